@@ -1,0 +1,119 @@
+import type { BackgroundModel, Geometry } from "./backgroundModel.js";
+import { hubbleDistanceMpc, hubbleTimeGyr } from "./hubbleScales.js";
+import { curvatureRadiusMpc } from "./curvatureRadius.js";
+import { bounceScaleFactor, maximumScaleFactor } from "./turningPoints.js";
+import { NoBigBangError } from "./noBigBangError.js";
+import { pastIntegrals } from "./pastIntegrals.js";
+import { futureIntegrals } from "./futureIntegrals.js";
+import { comovingVolumeWithin } from "./comovingVolume.js";
+import { decelerationParameter } from "./decelerationParameter.js";
+import { accelerationOnsetRedshift } from "./accelerationOnsetRedshift.js";
+import { matterDarkEnergyEqualityRedshift, matterRadiationEqualityRedshift } from "./equalityRedshifts.js";
+
+export type Fate = "expands_forever" | "recollapses";
+
+/** Quantities of a model today. null marks a quantity that is infinite or does not apply. */
+export interface BackgroundSummary {
+  geometry: Geometry;
+  age_Gyr: number | null;
+  hubble_time_Gyr: number;
+  hubble_distance_Mpc: number;
+  particle_horizon_Mpc: number | null;
+  event_horizon_Mpc: number | null;
+  curvature_radius_Mpc: number | null;
+  closed_volume_Gpc3: number | null;
+  identified_antipodes_volume_Gpc3: number | null;
+  antipode_distance_Mpc: number | null;
+  observable_fraction: number | null;
+  deceleration_q0: number;
+  z_acceleration: number | null;
+  z_matter_radiation_equality: number | null;
+  z_matter_de_equality: number | null;
+  fate: Fate;
+  max_scale_factor: number | null;
+  max_expansion_time_Gyr: number | null;
+  crunch_time_Gyr: number | null;
+}
+
+export interface SummaryResult {
+  summary: BackgroundSummary;
+  warnings: string[];
+}
+
+const finiteOrNull = (x: number): number | null => (Number.isFinite(x) ? x : null);
+
+/** Throws NoBigBangError when E^2 <= 0 somewhere in 0 < a < 1 (Friedmann equation). */
+export function assertBigBang(model: BackgroundModel): void {
+  const a = bounceScaleFactor(model);
+  if (a !== null) throw new NoBigBangError(1 / a - 1);
+}
+
+/**
+ * Today's background quantities (definitions as in Hogg 1999, astro-ph/9905116). Closed models: total volume
+ * 2 pi^2 R^3, antipode at pi R, the space with antipodal points identified has half the volume, and the observable
+ * fraction is the geodesic-ball volume of the particle horizon over the total.
+ */
+export function backgroundSummary(model: BackgroundModel): SummaryResult {
+  assertBigBang(model);
+  const warnings: string[] = [];
+  const DH = hubbleDistanceMpc(model.H0_km_s_Mpc);
+  const tH = hubbleTimeGyr(model.H0_km_s_Mpc);
+  const past = pastIntegrals(model, [0]);
+  const aMax = maximumScaleFactor(model);
+  const future = futureIntegrals(model, aMax);
+  const R = curvatureRadiusMpc(model);
+  const age = past.age0 * tH;
+  const particle = past.conformalAge0 * DH;
+  let event: number;
+  if (aMax === null) event = future.conformalToTurnaround * DH;
+  else event = (past.conformalAge0 + 2 * future.conformalToTurnaround) * DH;
+  if (!Number.isFinite(age)) warnings.push("infinite age: the scale factor reaches zero only as t -> -infinity, so age, lookback-free ages and the particle horizon are not defined");
+  else if (!Number.isFinite(particle)) warnings.push("the particle horizon is infinite: light from every comoving distance has had time to arrive");
+
+  let closedVolume: number | null = null;
+  let identified: number | null = null;
+  let antipode: number | null = null;
+  let fraction: number | null = null;
+  if (model.geometry === "closed" && R !== null) {
+    closedVolume = 2 * Math.PI ** 2 * R ** 3 * 1e-9;
+    identified = closedVolume / 2;
+    antipode = Math.PI * R;
+    if (Number.isFinite(particle)) {
+      fraction = Math.min(1, comovingVolumeWithin(particle, "closed", R) * 1e-9 / closedVolume);
+      if (particle >= antipode) warnings.push("the antipode lies inside today's particle horizon: light has had time to cross the whole 3-sphere");
+    }
+  }
+  let fate: Fate = "expands_forever";
+  let maxExpansionTime: number | null = null;
+  let crunch: number | null = null;
+  if (aMax !== null) {
+    fate = "recollapses";
+    maxExpansionTime = finiteOrNull((past.age0 + future.timeToTurnaround) * tH);
+    crunch = maxExpansionTime === null ? null : 2 * maxExpansionTime;
+    warnings.push(`recollapses: expansion stops at a = ${aMax.toPrecision(6)} and reverses (Friedmann equation is symmetric in time about the turnaround)`);
+  }
+  return {
+    summary: {
+      geometry: model.geometry,
+      age_Gyr: finiteOrNull(age),
+      hubble_time_Gyr: tH,
+      hubble_distance_Mpc: DH,
+      particle_horizon_Mpc: finiteOrNull(particle),
+      event_horizon_Mpc: finiteOrNull(event),
+      curvature_radius_Mpc: R,
+      closed_volume_Gpc3: closedVolume,
+      identified_antipodes_volume_Gpc3: identified,
+      antipode_distance_Mpc: antipode,
+      observable_fraction: fraction,
+      deceleration_q0: decelerationParameter(model, 1),
+      z_acceleration: accelerationOnsetRedshift(model),
+      z_matter_radiation_equality: matterRadiationEqualityRedshift(model),
+      z_matter_de_equality: matterDarkEnergyEqualityRedshift(model),
+      fate,
+      max_scale_factor: aMax,
+      max_expansion_time_Gyr: maxExpansionTime,
+      crunch_time_Gyr: crunch,
+    },
+    warnings,
+  };
+}

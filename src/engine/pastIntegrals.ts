@@ -1,0 +1,122 @@
+import type { BackgroundModel } from "./backgroundModel.js";
+import { expansionRateSquared } from "./expansionRateSquared.js";
+import { dominantTermEarly } from "./dominantTerm.js";
+import { GaussKronrodIntegrator } from "./gaussKronrod.js";
+import { NeumaierSum } from "./neumaierSum.js";
+
+/** Relative tolerance asked of every panel integral (the engine promises 1e-10 on the results). */
+export const PANEL_REL_TOL = 1e-13;
+
+/**
+ * The two integrals behind every past-light-cone quantity, in units of the Hubble time t_H = 1/H0 and the Hubble
+ * distance D_H = c/H0, aligned with the input redshifts:
+ *   lookback   = int_a^1 da / (a E)       comoving = int_a^1 da / (a^2 E)
+ *   age        = int_0^a da / (a E)       conformalAge = int_0^a da / (a^2 E)
+ * (Hogg 1999, astro-ph/9905116, eqs. 15 and 30). Infinity where an integral from a = 0 diverges.
+ */
+export interface PastIntegrals {
+  readonly lookback: Float64Array;
+  readonly comoving: Float64Array;
+  readonly age: Float64Array;
+  readonly conformalAge: Float64Array;
+  /** Age today in t_H (Infinity when a -> 0 only as t -> -infinity). */
+  readonly age0: number;
+  /** Conformal age today in D_H, i.e. the comoving particle horizon (Infinity when it diverges). */
+  readonly conformalAge0: number;
+}
+
+/** Whether int_0 da/(a E) and int_0 da/(a^2 E) converge: E^2 ~ a^-p gives integrands a^(p/2 - 1) and a^(p/2 - 2). */
+export function earlyIntegralsConverge(model: BackgroundModel): { age: boolean; conformal: boolean } {
+  const p = dominantTermEarly(model).power;
+  return { age: p > 0, conformal: p > 2 };
+}
+
+/**
+ * Integrand in s = sqrt(a) (a = s^2, da = 2 s ds), which removes the a^(-1/2) end-point behaviour of a matter era
+ * and keeps the radiation era smooth: out[0] = 2 / (s E), out[1] = 2 / (s^3 E).
+ */
+function pastIntegrand(model: BackgroundModel): (s: number, out: Float64Array) => void {
+  const e2 = expansionRateSquared(model);
+  return (s, out) => {
+    const a = s * s;
+    const t = 2 / (s * Math.sqrt(e2(a)));
+    out[0] = t;
+    out[1] = t / a;
+  };
+}
+
+/**
+ * Lookback time, comoving distance, age and conformal age at many redshifts, integrated cumulatively panel to panel
+ * between consecutive sorted redshifts (O(N) integrand work). Each panel is adaptive Gauss-Kronrod to PANEL_REL_TOL;
+ * the panels are summed with Neumaier compensation. Redshifts must be finite and >= 0; any order.
+ */
+export function pastIntegrals(model: BackgroundModel, redshifts: ArrayLike<number>): PastIntegrals {
+  const n = redshifts.length;
+  const order = Array.from({ length: n }, (_, i) => i);
+  let sorted = true;
+  for (let i = 0; i < n; i++) {
+    const z = redshifts[i];
+    if (!(z >= 0) || !Number.isFinite(z)) throw new RangeError(`redshift must be finite and >= 0, got ${z}`);
+    if (i > 0 && z < redshifts[i - 1]) sorted = false;
+  }
+  if (!sorted) order.sort((i, j) => redshifts[i] - redshifts[j]);
+
+  const f = pastIntegrand(model);
+  const vec = new GaussKronrodIntegrator(2);
+  const value = new Float64Array(2);
+  const error = new Float64Array(2);
+  const panelT = new Float64Array(n);
+  const panelC = new Float64Array(n);
+  const lookback = new Float64Array(n);
+  const comoving = new Float64Array(n);
+  const age = new Float64Array(n);
+  const conformalAge = new Float64Array(n);
+
+  // Panels from s = 1 (today) down to each redshift in turn.
+  let sHi = 1;
+  const sumT = new NeumaierSum();
+  const sumC = new NeumaierSum();
+  for (let k = 0; k < n; k++) {
+    const i = order[k];
+    const s = 1 / Math.sqrt(1 + redshifts[i]);
+    vec.integrate(f, s, sHi, PANEL_REL_TOL, 0, value, error);
+    panelT[k] = value[0];
+    panelC[k] = value[1];
+    sumT.add(value[0]);
+    sumC.add(value[1]);
+    lookback[i] = sumT.value;
+    comoving[i] = sumC.value;
+    sHi = s;
+  }
+
+  // The base piece from the big bang (s = 0) up to the highest redshift, for the quantities that converge there.
+  const converge = earlyIntegralsConverge(model);
+  const sLow = sHi;
+  let baseT = Infinity;
+  let baseC = Infinity;
+  if (converge.age && converge.conformal) {
+    vec.integrate(f, 0, sLow, PANEL_REL_TOL, 0, value, error);
+    baseT = value[0];
+    baseC = value[1];
+  } else if (converge.age) {
+    const one = new GaussKronrodIntegrator(1);
+    const v1 = new Float64Array(1);
+    const e1 = new Float64Array(1);
+    one.integrate((s, out) => { f(s, value); out[0] = value[0]; }, 0, sLow, PANEL_REL_TOL, 0, v1, e1);
+    baseT = v1[0];
+  }
+  const upT = new NeumaierSum();
+  const upC = new NeumaierSum();
+  upT.add(baseT);
+  upC.add(baseC);
+  for (let k = n - 1; k >= 0; k--) {
+    const i = order[k];
+    age[i] = Number.isFinite(baseT) ? upT.value : Infinity;
+    conformalAge[i] = Number.isFinite(baseC) ? upC.value : Infinity;
+    upT.add(panelT[k]);
+    upC.add(panelC[k]);
+  }
+  const age0 = Number.isFinite(baseT) ? upT.value : Infinity;
+  const conformalAge0 = Number.isFinite(baseC) ? upC.value : Infinity;
+  return { lookback, comoving, age, conformalAge, age0, conformalAge0 };
+}
