@@ -10,6 +10,12 @@ export interface DominantTerm {
 
 interface Term { power: number; coefficient: number }
 
+/** A dark-energy power within 1e-12 of an ordinary one (w0 = -1/3, 0, 1/3) is taken as that power exactly. */
+function snap(power: number): number {
+  for (const p of [2, 3, 4]) if (Math.abs(power - p) <= 1e-12) return p;
+  return power;
+}
+
 function terms(model: BackgroundModel, late: boolean): Term[] {
   const out: Term[] = [];
   if (model.Omega_r !== 0) out.push({ power: 4, coefficient: model.Omega_r });
@@ -19,12 +25,12 @@ function terms(model: BackgroundModel, late: boolean): Term[] {
     const { w0, wa } = model;
     if (!late) {
       // CPL as a -> 0: a^(-3(1 + w0 + wa)) exp(-3 wa) (Chevallier & Polarski 2001).
-      out.push({ power: 3 * (1 + w0 + wa), coefficient: model.Omega_de * Math.exp(-3 * wa) });
+      out.push({ power: snap(3 * (1 + w0 + wa)), coefficient: model.Omega_de * Math.exp(-3 * wa) });
     } else if (wa > 0) {
       // CPL as a -> infinity grows like exp(3 wa a): faster than any power.
       out.push({ power: -Infinity, coefficient: model.Omega_de });
     } else if (wa === 0) {
-      out.push({ power: 3 * (1 + w0), coefficient: model.Omega_de });
+      out.push({ power: snap(3 * (1 + w0)), coefficient: model.Omega_de });
     }
     // wa < 0: the dark-energy density falls like exp(-3 |wa| a) and never dominates late.
   }
@@ -36,7 +42,7 @@ function dominant(list: Term[], pick: (a: number, b: number) => boolean): Domina
   for (const t of list) if (best === null || pick(t.power, best)) best = t.power;
   if (best === null) return { power: 0, coefficient: 0 };
   let coefficient = 0;
-  for (const t of list) if (Math.abs(t.power - best) <= 1e-12 || t.power === best) coefficient += t.coefficient;
+  for (const t of list) if (t.power === best) coefficient += t.coefficient;
   return { power: best, coefficient };
 }
 

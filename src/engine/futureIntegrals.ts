@@ -1,6 +1,5 @@
 import type { BackgroundModel } from "./backgroundModel.js";
 import { expansionRateSquared } from "./expansionRateSquared.js";
-import { expansionRateSquaredSlope } from "./expansionRateSquaredSlope.js";
 import { dominantTermLate } from "./dominantTerm.js";
 import { GaussKronrodIntegrator } from "./gaussKronrod.js";
 import { PANEL_REL_TOL } from "./pastIntegrals.js";
@@ -16,6 +15,7 @@ export interface FutureIntegrals {
 /**
  * Future integrals. Expanding forever: int_1^inf da/(a^2 E) with u = 1/a and u = v^k, k = 2/(2 - p) where
  * E^2 ~ a^-p late (removes the u^(-p/2) end-point behaviour); finite only when p < 2 (Infinity otherwise).
+ * Every end point is handled by a change of variable; the range is never truncated.
  * Recollapse at a_max: [1, a_max/2] in ln a, then [a_max/2, a_max] with a = a_max - v^2, which turns the
  * 1/sqrt(a_max - a) end-point behaviour into a smooth integrand (Friedmann equation near H = 0).
  */
@@ -27,29 +27,38 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
   if (maxScaleFactor === null) {
     const late = dominantTermLate(model);
     if (!(late.power < 2)) return { timeToTurnaround: Infinity, conformalToTurnaround: Infinity };
-    const k = late.power > 0 ? 2 / (2 - late.power) : 1;
     const one = new GaussKronrodIntegrator(1);
     const v1 = new Float64Array(1);
     const err1 = new Float64Array(1);
-    // int_0^1 du / E(1/u), u = v^k, du = k v^(k-1) dv.
+    if (!Number.isFinite(late.power)) {
+      // CPL with wa > 0: E grows faster than any power, so int_0^1 du / E(1/u) has a smooth integrand.
+      one.integrate((u, out) => { const E2 = e2(1 / u); out[0] = Number.isFinite(E2) ? 1 / Math.sqrt(E2) : 0; }, 0, 1, PANEL_REL_TOL, 0, v1, err1);
+      return { timeToTurnaround: Infinity, conformalToTurnaround: v1[0] };
+    }
+    // Power-law terms only (wa = 0): E^2(1/u) = u^p S(u), S(u) = sum_i c_i u^(p_i - p) -> late coefficient as u -> 0.
+    // With u = v^k the integrand du / E = k v^(k - 1 - k p/2) dv / sqrt(S), and k = 2/(2 - p) (p > 0) or 1 (p <= 0)
+    // leaves a bounded power of v; S is summed term by term so nothing overflows or underflows.
+    const p = late.power;
+    const k = p > 0 ? 2 / (2 - p) : 1;
+    const vPower = k - 1 - (k * p) / 2;
+    const terms: [number, number][] = [
+      [model.Omega_r, 4], [model.Omega_m, 3], [model.Omega_k, 2],
+      [model.Omega_de, 3 * (1 + model.w0)],
+    ];
+    const live = terms.filter(([c]) => c !== 0).map(([c, pi]) => [c, (pi - p) * k] as [number, number]);
     one.integrate(
       (v, out) => {
-        const u = k === 1 ? v : Math.pow(v, k);
-        if (u < 1e-250) {
-          // Deep in the late-time regime E^2 = c u^p exactly: the integrand tends to k / sqrt(c).
-          out[0] = k / Math.sqrt(late.coefficient);
-          return;
-        }
-        const jac = k === 1 ? 1 : k * Math.pow(v, k - 1);
-        const E2 = e2(1 / u);
-        out[0] = Number.isFinite(E2) ? jac / Math.sqrt(E2) : 0;
+        const lnv = Math.log(v);
+        let S = 0;
+        for (const [c, q] of live) S += q === 0 ? c : c * Math.exp(q * lnv);
+        out[0] = (vPower === 0 ? k : k * Math.exp(vPower * lnv)) / Math.sqrt(S);
       },
       0, 1, PANEL_REL_TOL, 0, v1, err1,
     );
     return { timeToTurnaround: Infinity, conformalToTurnaround: v1[0] };
   }
   const aMax = maxScaleFactor;
-  const slope = -expansionRateSquaredSlope(model, aMax); // E^2 ~ slope (a_max - a) near the turnaround
+  const e2Below = expansionRateSquaredBelowTurnaround(model, aMax);
   let t = 0;
   let c = 0;
   const aMid = aMax <= 2 ? 1 : aMax / 2;
@@ -68,11 +77,8 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
   }
   vec.integrate(
     (v, out) => {
-      const v2 = v * v;
-      const a = aMax - v2;
-      const direct = e2(a);
-      const E2 = v2 <= 1e-9 * aMax || !(direct > 0) ? slope * v2 : direct;
-      const g = (2 * v) / (a * Math.sqrt(E2));
+      const a = aMax - v * v;
+      const g = (2 * v) / (a * Math.sqrt(e2Below(v)));
       out[0] = g;
       out[1] = g / a;
     },
@@ -81,4 +87,23 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
   t += value[0];
   c += value[1];
   return { timeToTurnaround: t, conformalToTurnaround: c };
+}
+
+/**
+ * E^2 at a = a_max - v^2 written as E^2(a) - E^2(a_max), term by term with log1p/expm1, so that it keeps full
+ * relative precision as v -> 0 instead of cancelling terms of order one (Friedmann equation; E^2(a_max) = 0).
+ */
+function expansionRateSquaredBelowTurnaround(model: BackgroundModel, aMax: number): (v: number) => number {
+  const { Omega_r, Omega_m, Omega_k, Omega_de, w0, wa } = model;
+  const powers: [number, number][] = [[Omega_r, 4], [Omega_m, 3], [Omega_k, 2]];
+  const live = powers.filter(([c]) => c !== 0).map(([c, p]) => [c * Math.pow(aMax, -p), p] as [number, number]);
+  const fMax = Omega_de === 0 ? 0 : Omega_de * Math.exp(-3 * (1 + w0 + wa) * Math.log(aMax) - 3 * wa * (1 - aMax));
+  return (v) => {
+    const v2 = v * v;
+    const L = Math.log1p(-v2 / aMax); // ln(a / a_max)
+    let sum = 0;
+    for (const [c, p] of live) sum += c * Math.expm1(-p * L);
+    if (fMax !== 0) sum += fMax * Math.expm1(-3 * (1 + w0 + wa) * L - 3 * wa * v2);
+    return sum;
+  };
 }

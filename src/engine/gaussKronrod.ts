@@ -118,10 +118,13 @@ export class GaussKronrodIntegrator {
 
   /**
    * Integrates f over [a, b]; writes the k integrals into `value` and their error estimates into `error`.
+   * epsRel is raised to 50 machine epsilons at least (QUADPACK's floor).
    * Throws QuadratureError when the tolerance is not met within maxIntervals subdivisions or a value is not finite.
    */
   integrate(f: VectorIntegrand, a: number, b: number, epsRel: number, epsAbs: number, value: Float64Array, error: Float64Array): void {
     const k = this.components;
+    // As QUADPACK: a relative tolerance below 50 machine epsilons cannot be met; ask for that floor instead.
+    epsRel = Math.max(epsRel, 50 * EPMACH);
     if (a === b) {
       for (let c = 0; c < k; c++) { value[c] = 0; error[c] = 0; }
       return;

@@ -1,0 +1,80 @@
+import { describe, expect, it } from "vitest";
+import {
+  backgroundSummary, bounceScaleFactor, NoBigBangError, NoSuchRedshiftError, redshiftAtAge, redshiftAtComovingDistance,
+  redshiftAtLookbackTime, redshiftTable, hubbleTimeGyr, hubbleDistanceMpc,
+} from "../../src/engine/index.js";
+import { modelOf, relErr } from "../helpers/modelOf.js";
+
+describe("models without a big bang are rejected, naming the turnaround redshift", () => {
+  it("Omega_m = 0.1, Omega_Lambda = 1.5: E^2 = 0.1 (1+z)^3 - 0.6 (1+z)^2 + 1.5 has a zero in the past", () => {
+    const m = modelOf({ Om: 0.1, Ode: 1.5 });
+    const a = bounceScaleFactor(m);
+    expect(a).not.toBeNull();
+    // Independent check: E^2 vanishes there (Friedmann equation).
+    const x = 1 / a!;
+    expect(Math.abs(0.1 * x ** 3 - 0.6 * x ** 2 + 1.5)).toBeLessThan(1e-12);
+    expect(() => backgroundSummary(m)).toThrow(NoBigBangError);
+    try { backgroundSummary(m); } catch (e) { expect((e as Error).message).toMatch(/turned around at z = \d/); }
+  });
+});
+
+describe("recollapse", () => {
+  it("negative Omega_de recollapses; event horizon is the distance light covers before the crunch", () => {
+    const r = backgroundSummary(modelOf({ Om: 0.3, Ode: -0.2 }));
+    expect(r.summary.fate).toBe("recollapses");
+    expect(r.summary.event_horizon_Mpc).not.toBeNull();
+    expect(r.summary.crunch_time_Gyr! ).toBeGreaterThan(r.summary.age_Gyr!);
+    expect(r.warnings.join(" ")).toMatch(/recollapses/);
+  });
+  it("closed matter-only: crunch time is twice the time of maximum expansion (time symmetry of the Friedmann equation)", () => {
+    const s = backgroundSummary(modelOf({ Om: 2, Ode: 0 })).summary;
+    expect(relErr(s.crunch_time_Gyr!, 2 * s.max_expansion_time_Gyr!)).toBeLessThan(1e-15);
+    // Cycloid: light emitted at the big bang covers exactly 2 pi in chi by the crunch (conformal time 2 pi over sqrt(Om - 1)).
+    const R = hubbleDistanceMpc(70) / Math.sqrt(1);
+    expect(relErr(s.particle_horizon_Mpc! + s.event_horizon_Mpc!, 2 * Math.PI * R)).toBeLessThan(1e-10);
+  });
+});
+
+describe("closed models beyond the antipode", () => {
+  it("D_M changes sign past pi R and the volume inside z stops at 2 pi^2 R^3", () => {
+    // A near-loitering closed Lambda model whose past light cone wraps past the antipode.
+    const m = modelOf({ Om: 0.2, Ode: 1.25 });
+    const s = backgroundSummary(m).summary;
+    const zs = [1, 10, 1e3, 1e5, 1e7];
+    const t = redshiftTable(m, zs);
+    const beyond = zs.findIndex((_, i) => t.comoving_distance_Mpc[i] > s.antipode_distance_Mpc!);
+    expect(beyond).toBeGreaterThan(-1);
+    expect(t.transverse_comoving_distance_Mpc[beyond]).toBeLessThan(0);
+    expect(t.comoving_volume_Gpc3[beyond]).toBeCloseTo(s.closed_volume_Gpc3!, 6);
+    expect(s.observable_fraction).toBe(1);
+    expect(backgroundSummary(m).warnings.join(" ")).toMatch(/antipode lies inside/);
+  });
+});
+
+describe("inverse look-ups", () => {
+  const m = modelOf({ Om: 0.3, Ok: 0.05, Or: 9e-5, w0: -0.9, wa: 0.2 });
+  it("round-trip lookback time, age and comoving distance", () => {
+    const zs = [0.01, 0.7, 3, 40];
+    const t = redshiftTable(m, zs);
+    zs.forEach((z, i) => {
+      expect(relErr(redshiftAtLookbackTime(m, t.lookback_time_Gyr[i]), z)).toBeLessThan(1e-9);
+      expect(relErr(redshiftAtAge(m, t.age_Gyr[i]), z)).toBeLessThan(1e-8);
+      expect(relErr(redshiftAtComovingDistance(m, t.comoving_distance_Mpc[i]), z)).toBeLessThan(1e-9);
+    });
+  });
+  it("a lookback time beyond the age has no redshift: a clear error", () => {
+    const age = backgroundSummary(m).summary.age_Gyr!;
+    expect(() => redshiftAtLookbackTime(m, age + 0.1)).toThrow(NoSuchRedshiftError);
+    expect(() => redshiftAtLookbackTime(m, age + 0.1)).toThrow(/must lie in/);
+    expect(() => redshiftAtComovingDistance(modelOf({ Om: 1, Ode: 0 }), 3 * hubbleDistanceMpc(70))).toThrow(/must lie in/);
+    expect(hubbleTimeGyr(70)).toBeGreaterThan(age * 0.5);
+  });
+});
+
+describe("Planck 2018 VI (A&A 641, A6) Table 2, base Lambda-CDM TT,TE,EE+lowE+lensing (values recalled from memory)", () => {
+  it("H0 = 67.36, Omega_m = 0.3153 gives an age of 13.797 Gyr within 0.3% (no massive neutrinos in this engine yet)", async () => {
+    const { makeBackgroundModel } = await import("../../src/engine/index.js");
+    const m = makeBackgroundModel({ H0_km_s_Mpc: 67.36, Omega_m: 0.3153, curvature: { kind: "flat" }, w0: -1, wa: 0, radiation: { T_cmb_K: 2.7255, N_eff: 3.044 } });
+    expect(relErr(backgroundSummary(m).summary.age_Gyr!, 13.797)).toBeLessThan(0.003);
+  });
+});
