@@ -7,11 +7,11 @@ import type { Geometry } from "./backgroundModel.js";
  * so the flat limit is reached without cancellation. Closed: capped at the whole 3-sphere 2 pi^2 R^3 once chi >= pi.
  */
 export function comovingVolumeWithin(comovingDistance: number, geometry: Geometry, curvatureRadius: number | null): number {
-  if (geometry === "flat" || curvatureRadius === null) return (4 / 3) * Math.PI * comovingDistance ** 3;
+  if (geometry === "flat" || curvatureRadius === null) return (4 / 3) * Math.PI * comovingDistance * comovingDistance * comovingDistance;
   const R = curvatureRadius;
   const chi = comovingDistance / R;
   const closed = geometry === "closed";
-  if (closed && chi >= Math.PI) return 2 * Math.PI * Math.PI * R ** 3;
+  if (closed && chi >= Math.PI) return 2 * Math.PI * Math.PI * R * R * R;
   const x = 2 * chi;
   let bracket: number;
   if (x < 0.5) {
@@ -27,5 +27,5 @@ export function comovingVolumeWithin(comovingDistance: number, geometry: Geometr
   } else {
     bracket = closed ? x - Math.sin(x) : Math.sinh(x) - x;
   }
-  return Math.PI * R ** 3 * bracket;
+  return Math.PI * R * R * R * bracket;
 }

@@ -19,7 +19,7 @@ export function expansionRateSquared(model: BackgroundModel): (a: number) => num
   }
   if (wa === 0) {
     const p = -3 * (1 + w0);
-    return (a) => { const ia = 1 / a; return ia * ia * (k + ia * (m + ia * r)) + de * Math.pow(a, p); };
+    return (a) => { const ia = 1 / a; return ia * ia * (k + ia * (m + ia * r)) + de * Math.exp(p * Math.log(a)); };
   }
   const p = -3 * (1 + w0 + wa);
   const q = -3 * wa;

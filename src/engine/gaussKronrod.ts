@@ -100,7 +100,10 @@ export class GaussKronrodIntegrator {
       resasc[c] = asc * ah;
       const rabs = resabs[c] * ah;
       let e = Math.abs((resk[c] - resg[c]) * hlgth);
-      if (resasc[c] !== 0 && e !== 0) e = resasc[c] * Math.min(1, Math.pow((200 * e) / resasc[c], 1.5));
+      if (resasc[c] !== 0 && e !== 0) {
+        const x = (200 * e) / resasc[c];
+        e = resasc[c] * Math.min(1, x * Math.sqrt(x)); // x^1.5
+      }
       if (rabs > UFLOW / (50 * EPMACH)) e = Math.max(EPMACH * 50 * rabs, e);
       result[offset + c] = resk[c] * hlgth;
       error[offset + c] = e;

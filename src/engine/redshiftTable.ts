@@ -72,7 +72,8 @@ export function redshiftTable(model: BackgroundModel, redshifts: ArrayLike<numbe
     out.z[i] = z;
     out.H_km_s_Mpc[i] = model.H0_km_s_Mpc * E;
     out.E[i] = E;
-    out.Omega_m_z[i] = (model.Omega_m * (1 + z) ** 3) / E2;
+    const zp1 = 1 + z;
+    out.Omega_m_z[i] = (model.Omega_m * zp1 * zp1 * zp1) / E2;
     out.comoving_distance_Mpc[i] = DC;
     out.transverse_comoving_distance_Mpc[i] = DM;
     out.angular_diameter_distance_Mpc[i] = DA;
