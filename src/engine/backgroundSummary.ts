@@ -75,11 +75,11 @@ export function backgroundSummary(model: BackgroundModel): SummaryResult {
   let antipode: number | null = null;
   let fraction: number | null = null;
   if (model.geometry === "closed" && R !== null) {
-    closedVolume = 2 * Math.PI ** 2 * R ** 3 * 1e-9;
+    closedVolume = comovingVolumeWithin(Math.PI * R, "closed", R) * 1e-9; // 2 pi^2 R^3
     identified = closedVolume / 2;
     antipode = Math.PI * R;
     if (Number.isFinite(particle)) {
-      fraction = Math.min(1, comovingVolumeWithin(particle, "closed", R) * 1e-9 / closedVolume);
+      fraction = particle >= antipode ? 1 : Math.min(1, comovingVolumeWithin(particle, "closed", R) * 1e-9 / closedVolume);
       if (particle >= antipode) warnings.push("the antipode lies inside today's particle horizon: light has had time to cross the whole 3-sphere");
     }
   }
