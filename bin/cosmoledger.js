@@ -1,0 +1,11 @@
+#!/usr/bin/env node
+// Entry point: runs the compiled CLI (npm install / npm ci compile it through the prepare script).
+import { main } from "../dist/cli/main.js";
+
+main(process.argv.slice(2)).then(
+  (code) => { process.exitCode = code; },
+  (error) => {
+    process.stderr.write(`cosmoledger: unexpected failure: ${error && error.stack ? error.stack : error}\n`);
+    process.exitCode = 1;
+  },
+);

@@ -1,0 +1,97 @@
+import { readFileSync } from "node:fs";
+import { join, relative, resolve, sep } from "node:path";
+import { loadScenario } from "../scenario/loadScenario.js";
+import { ScenarioInputError, formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
+import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
+import { buildTablesDocument } from "../tables/buildTablesDocument.js";
+import { tablesCsv } from "../tables/tablesCsv.js";
+import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
+
+const PROGRESS_THRESHOLD = 3;
+
+/** A path as shown in messages and stored in documents: relative to the working folder, with forward slashes. */
+function displayPath(file: string): string {
+  const rel = relative(process.cwd(), resolve(file));
+  return (rel.startsWith("..") ? resolve(file) : rel).split(sep).join("/");
+}
+
+function loadAll(files: string[]): { scenarios: ResolvedScenario[]; issues: ScenarioIssue[] } {
+  const scenarios: ResolvedScenario[] = [];
+  const issues: ScenarioIssue[] = [];
+  for (const file of files) {
+    const shown = displayPath(file);
+    let text: string;
+    try {
+      text = readFileSync(file, "utf8");
+    } catch (e) {
+      issues.push({ file: shown, line: 1, column: 1, path: "", message: `cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})` });
+      continue;
+    }
+    try {
+      scenarios.push(loadScenario(text, shown));
+    } catch (e) {
+      if (e instanceof ScenarioInputError) issues.push(...e.issues);
+      else throw e;
+    }
+  }
+  const seen = new Map<string, string>();
+  for (const s of scenarios) {
+    const other = seen.get(s.id);
+    if (other) issues.push({ file: s.source.path, line: 1, column: 1, path: "id", message: `scenario id ${s.id} is also used by ${other}; ids must be unique across the files of one run` });
+    else seen.set(s.id, s.source.path);
+  }
+  return { scenarios, issues };
+}
+
+function reportIssues(issues: ScenarioIssue[]): number {
+  for (const i of issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
+  process.stderr.write(`${issues.length} problem${issues.length === 1 ? "" : "s"} found; nothing was written.\n`);
+  return 2;
+}
+
+export async function runCommand(command: "check" | "compute", files: string[], options: { out?: string; json?: boolean; quiet?: boolean }): Promise<number> {
+  if (files.length === 0) {
+    process.stderr.write(`cosmoledger ${command}: name at least one scenario file, e.g. cosmoledger ${command} scenarios/*.yaml\n`);
+    return 2;
+  }
+  const progress = !options.quiet && files.length > PROGRESS_THRESHOLD;
+  const { scenarios, issues } = loadAll(files);
+  if (issues.length > 0) return reportIssues(issues);
+  if (command === "check") {
+    for (const s of scenarios) {
+      const warnings = s.models.flatMap((m) => m.warnings.map((w) => `${s.source.path}: model ${m.id}: ${w}`));
+      for (const w of warnings) process.stderr.write(`warning: ${w}\n`);
+      process.stdout.write(`ok: ${s.source.path} (${s.id}, ${s.models.length} model${s.models.length === 1 ? "" : "s"})\n`);
+    }
+    return 0;
+  }
+  if (options.json && scenarios.length !== 1) {
+    process.stderr.write("cosmoledger compute: --json prints one tables document; name exactly one file\n");
+    return 2;
+  }
+  const outputs: { dir: string; files: Record<string, string> }[] = [];
+  const docs: ReturnType<typeof buildTablesDocument>[] = [];
+  scenarios.forEach((s, i) => {
+    if (progress) process.stderr.write(`[${i + 1}/${scenarios.length}] computing ${s.source.path}\n`);
+    const doc = buildTablesDocument(s);
+    docs.push(doc);
+    if (!options.json) {
+      outputs.push({ dir: join(options.out ?? join("out", "tables"), s.id), files: { "tables.json": JSON.stringify(doc) + "\n", ...tablesCsv(doc) } });
+    }
+  });
+  if (options.json) {
+    process.stdout.write(JSON.stringify(docs[0]) + "\n");
+    return 0;
+  }
+  try {
+    writeOutputsAtomically(outputs);
+  } catch (e) {
+    if (e instanceof OutputRefusedError) {
+      process.stderr.write(`error: ${e.message}\n`);
+      return 2;
+    }
+    throw e;
+  }
+  for (const o of outputs) process.stdout.write(`wrote ${o.dir.split(sep).join("/")}/ (${Object.keys(o.files).length} files)\n`);
+  return 0;
+}

@@ -1,0 +1,218 @@
+import {
+  DEFAULT_N_EFF, DEFAULT_T_CMB_K, NoBigBangError, assertBigBang, makeBackgroundModel, type CurvatureSpec,
+} from "../engine/index.js";
+import type { ParsedYaml } from "./parseScenarioYaml.js";
+import { ScenarioInputError, formatPath, type ScenarioIssue } from "./scenarioIssue.js";
+import type {
+  CurvatureKey, Provenance, ResolvedModel, ResolvedModelInputs, ResolvedScenario, ResolvedSurvey, ResolvedTarget,
+} from "./resolvedScenario.js";
+
+export const DEFAULT_REDSHIFTS = [0.1, 0.5, 1, 2, 3, 5, 10];
+export const DEFAULT_GRID_POINTS = 200;
+export const DEFAULT_W0 = -1;
+export const DEFAULT_WA = 0;
+/** Largest number of (model, redshift) evaluations one scenario may ask for. */
+export const MAX_WORK_POINTS = 5_000_000;
+
+const CURVATURE_KEYS: CurvatureKey[] = ["flat", "Omega_k", "Omega_de", "Omega_Lambda"];
+const SLUG = /^[a-z0-9]+(-[a-z0-9]+)*$/;
+
+type RawModel = Record<string, unknown> & { id: string };
+type Raw = Record<string, any>;
+
+/** The parameter box over which the engine's accuracy is verified (see DEVELOPERS.md). */
+const VERIFIED = { Omega_m: [0.01, 3], Omega_k: [-1, 1], Omega_de: [-1, 2], w0: [-2, -1 / 3], wa: [-3, 2] } as const;
+
+/** Default scenario id from a file name: its base name without .yaml/.yml, if that is a valid slug. */
+export function idFromFileName(path: string): string | null {
+  const base = path.split(/[\\/]/).pop() ?? "";
+  const stem = base.replace(/\.(ya?ml)$/i, "");
+  return SLUG.test(stem) && stem.length <= 64 ? stem : null;
+}
+
+/**
+ * Applies inheritance (extends), defaults and every cross-field rule to a schema-valid scenario, and builds each
+ * model's background (rejecting models with no big bang). Throws ScenarioInputError with located issues.
+ */
+export function resolveScenario(parsed: ParsedYaml, sourceText: string): ResolvedScenario {
+  const raw = parsed.value as Raw;
+  const issues: ScenarioIssue[] = [];
+  const fail = (path: (string | number)[], message: string, which: "key" | "value" = "value") =>
+    issues.push({ file: parsed.file, ...parsed.locate(path, which), path: formatPath(path), message });
+
+  // Scenario id
+  let id: string | null = typeof raw.id === "string" ? raw.id : idFromFileName(parsed.file);
+  if (id === null) {
+    fail([], `the file name does not give a valid id (lowercase letters, digits and single hyphens, at most 64 characters); add a line such as "id: my-scenario"`);
+    id = "invalid";
+  }
+  const defaultsApplied: string[] = [];
+  if (raw.id === undefined) defaultsApplied.push("id");
+
+  // Models: unique ids, then inheritance.
+  const rawModels = raw.models as RawModel[];
+  const index = new Map<string, number>();
+  rawModels.forEach((m, i) => {
+    if (index.has(m.id)) fail(["models", i, "id"], `duplicate model id ${m.id} (first used by models[${index.get(m.id)}])`);
+    else index.set(m.id, i);
+  });
+  rawModels.forEach((m, i) => {
+    const own = CURVATURE_KEYS.filter((k) => m[k] !== undefined);
+    if (own.length > 1) fail(["models", i, own[1]], `curvature is over-determined: give only one of flat, Omega_k, Omega_de, Omega_Lambda (found ${own.join(" and ")})`, "key");
+    if (m.radiation === "none" && (m.T_cmb !== undefined || m.N_eff !== undefined)) {
+      fail(["models", i, m.T_cmb !== undefined ? "T_cmb" : "N_eff"], "contradictory radiation: radiation: none drops photons and neutrinos, so T_cmb and N_eff cannot be set in the same model", "key");
+    }
+    if (m.extends !== undefined && !index.has(m.extends as string)) {
+      fail(["models", i, "extends"], `extends unknown model ${m.extends}; known ids: ${[...index.keys()].join(", ")}`);
+    }
+  });
+  if (issues.length > 0) throw new ScenarioInputError(issues);
+
+  // Flatten inheritance: own keys override; a curvature key replaces the parent's curvature group.
+  type Flat = { values: Record<string, unknown>; provenance: Record<string, Provenance> };
+  const flattened = new Map<string, Flat>();
+  const flatten = (i: number, chain: string[]): Flat | null => {
+    const m = rawModels[i];
+    const done = flattened.get(m.id);
+    if (done) return done;
+    if (chain.includes(m.id)) {
+      fail(["models", i, "extends"], `cyclic extends: ${[...chain, m.id].join(" -> ")}`);
+      return null;
+    }
+    let values: Record<string, unknown> = {};
+    let provenance: Record<string, Provenance> = {};
+    if (m.extends !== undefined) {
+      const parent = flatten(index.get(m.extends as string)!, [...chain, m.id]);
+      if (!parent) return null;
+      values = { ...parent.values };
+      for (const k of Object.keys(parent.values)) provenance[k] = "inherited";
+      if (CURVATURE_KEYS.some((k) => m[k] !== undefined)) for (const k of CURVATURE_KEYS) { delete values[k]; delete provenance[k]; }
+      if (m.radiation === "none") { delete values.T_cmb; delete values.N_eff; }
+    }
+    for (const k of ["H0", "Omega_m", "w0", "wa", "radiation", "T_cmb", "N_eff", ...CURVATURE_KEYS]) {
+      if (m[k] !== undefined) { values[k] = m[k]; provenance[k] = "set"; }
+    }
+    const result = { values, provenance };
+    flattened.set(m.id, result);
+    return result;
+  };
+  rawModels.forEach((_, i) => flatten(i, []));
+  if (issues.length > 0) throw new ScenarioInputError(issues);
+
+  const models: ResolvedModel[] = [];
+  rawModels.forEach((m, i) => {
+    const { values: v, provenance: p } = flattened.get(m.id)!;
+    const here = ["models", i];
+    for (const k of ["H0", "Omega_m"]) {
+      if (v[k] === undefined) fail(here, `${k} is required: set it in model ${m.id} or extend a model that sets it`);
+    }
+    if (v.H0 === undefined || v.Omega_m === undefined) return;
+    const curvatureKey = (CURVATURE_KEYS.find((k) => v[k] !== undefined) ?? "flat") as CurvatureKey;
+    const prov = (k: string, fallback: Provenance = "default"): Provenance => p[k] ?? fallback;
+    const radiation = (v.radiation as "thermal" | "none" | undefined) ?? "thermal";
+    const inputs: ResolvedModelInputs = {
+      H0: v.H0 as number,
+      Omega_m: v.Omega_m as number,
+      curvature_key: curvatureKey,
+      curvature_value: curvatureKey === "flat" ? null : (v[curvatureKey] as number),
+      w0: (v.w0 as number | undefined) ?? DEFAULT_W0,
+      wa: (v.wa as number | undefined) ?? DEFAULT_WA,
+      radiation,
+      T_cmb: radiation === "none" ? null : ((v.T_cmb as number | undefined) ?? DEFAULT_T_CMB_K),
+      N_eff: radiation === "none" ? null : ((v.N_eff as number | undefined) ?? DEFAULT_N_EFF),
+    };
+    const provenance: ResolvedModel["provenance"] = {
+      H0: prov("H0"), Omega_m: prov("Omega_m"),
+      curvature_key: prov(curvatureKey), curvature_value: prov(curvatureKey),
+      w0: prov("w0"), wa: prov("wa"), radiation: prov("radiation"),
+      T_cmb: radiation === "none" ? prov("radiation") : prov("T_cmb"),
+      N_eff: radiation === "none" ? prov("radiation") : prov("N_eff"),
+    };
+    if (curvatureKey === "Omega_Lambda" && (inputs.w0 !== -1 || inputs.wa !== 0)) {
+      fail([...here, "Omega_Lambda"], `Omega_Lambda is a cosmological constant (w0 = -1, wa = 0) but this model has w0 = ${inputs.w0}, wa = ${inputs.wa}; use Omega_de for evolving dark energy`, "key");
+      return;
+    }
+    const curvature: CurvatureSpec = curvatureKey === "flat" ? { kind: "flat" }
+      : curvatureKey === "Omega_k" ? { kind: "Omega_k", Omega_k: inputs.curvature_value! }
+      : { kind: "Omega_de", Omega_de: inputs.curvature_value! };
+    const background = makeBackgroundModel({
+      H0_km_s_Mpc: inputs.H0, Omega_m: inputs.Omega_m, curvature, w0: inputs.w0, wa: inputs.wa,
+      radiation: radiation === "none" ? null : { T_cmb_K: inputs.T_cmb!, N_eff: inputs.N_eff! },
+    });
+    try {
+      assertBigBang(background);
+    } catch (e) {
+      if (e instanceof NoBigBangError) { fail(here, `model ${m.id}: ${e.message}`); return; }
+      throw e;
+    }
+    const warnings: string[] = [];
+    const check = (name: keyof typeof VERIFIED, value: number) => {
+      const [lo, hi] = VERIFIED[name];
+      if (value < lo || value > hi) warnings.push(`${name} = ${value} lies outside [${lo.toPrecision(3)}, ${hi.toPrecision(3)}], where the engine's 1e-10 accuracy is verified`);
+    };
+    check("Omega_m", background.Omega_m);
+    check("Omega_k", background.Omega_k);
+    check("Omega_de", background.Omega_de);
+    if (background.Omega_de !== 0) { check("w0", background.w0); check("wa", background.wa); }
+    models.push({
+      id: m.id, label: (m.label as string | undefined) ?? m.id, extends: (m.extends as string | undefined) ?? null,
+      notes: (m.notes as string | undefined) ?? null, inputs, provenance, background, warnings,
+    });
+  });
+
+  // Baseline
+  let baseline = raw.baseline as string | undefined;
+  if (baseline === undefined) { baseline = rawModels[0].id; defaultsApplied.push("baseline"); }
+  else if (!index.has(baseline)) fail(["baseline"], `baseline names unknown model ${baseline}; known ids: ${[...index.keys()].join(", ")}`);
+
+  // Redshifts and grid
+  let redshifts = raw.redshifts as number[] | undefined;
+  if (redshifts === undefined) { redshifts = DEFAULT_REDSHIFTS; defaultsApplied.push("redshifts"); }
+  const g = (raw.grid ?? {}) as Raw;
+  if (g.z_max === undefined) defaultsApplied.push("grid.z_max");
+  if (g.points === undefined) defaultsApplied.push("grid.points");
+  if (g.spacing === undefined) defaultsApplied.push("grid.spacing");
+  const grid = {
+    z_max: (g.z_max as number | undefined) ?? Math.max(10, ...redshifts),
+    points: (g.points as number | undefined) ?? DEFAULT_GRID_POINTS,
+    spacing: (g.spacing as "log" | "linear" | undefined) ?? "log",
+  };
+
+  // Targets and surveys
+  const placementKeys = ["z", "lookback_Gyr", "age_Gyr", "comoving_distance_Mpc"] as const;
+  const targets: ResolvedTarget[] = [];
+  ((raw.targets ?? []) as Raw[]).forEach((t, i) => {
+    const given = placementKeys.filter((k) => t[k] !== undefined);
+    if (given.length !== 1) {
+      fail(["targets", i], given.length === 0
+        ? `target ${t.name} needs exactly one of z, lookback_Gyr, age_Gyr, comoving_distance_Mpc to place it`
+        : `target ${t.name} is placed twice (${given.join(" and ")}): give exactly one of z, lookback_Gyr, age_Gyr, comoving_distance_Mpc`);
+      return;
+    }
+    const by = given[0];
+    targets.push({
+      name: t.name,
+      placement: by === "z" ? { by, z: t.z } : { by, value: t[by] },
+      size_kpc: t.size_kpc ?? null,
+      absolute_magnitude: t.absolute_magnitude ?? null,
+      luminosity_erg_s: t.luminosity_erg_s ?? null,
+    });
+  });
+  const surveys: ResolvedSurvey[] = [];
+  ((raw.surveys ?? []) as Raw[]).forEach((s, i) => {
+    if (!(s.z_max > s.z_min)) { fail(["surveys", i, "z_max"], `z_max (${s.z_max}) must be greater than z_min (${s.z_min})`); return; }
+    surveys.push({ name: s.name, area_deg2: s.area_deg2, z_min: s.z_min, z_max: s.z_max, density_per_Mpc3: s.density_per_Mpc3 ?? null });
+  });
+
+  const work = rawModels.length * (redshifts.length + grid.points + targets.length + 2 * surveys.length);
+  if (work > MAX_WORK_POINTS) {
+    fail(["models"], `this scenario asks for ${work} model-redshift evaluations; at most ${MAX_WORK_POINTS} are allowed (fewer models, redshifts or grid points)`);
+  }
+  if (issues.length > 0) throw new ScenarioInputError(issues);
+
+  return {
+    id: id!, title: raw.title, description: raw.description ?? null, author: raw.author ?? null, tags: raw.tags ?? [],
+    baseline: baseline!, redshifts, grid, models, targets, surveys, defaults_applied: defaultsApplied,
+    source: { path: parsed.file, text: sourceText },
+  };
+}

@@ -1,0 +1,72 @@
+import type { BackgroundModel } from "../engine/index.js";
+
+export type Provenance = "set" | "inherited" | "default";
+export type CurvatureKey = "flat" | "Omega_k" | "Omega_de" | "Omega_Lambda";
+
+/** A model's inputs with every default and inherited value explicit. */
+export interface ResolvedModelInputs {
+  H0: number;
+  Omega_m: number;
+  /** Which key fixed the curvature, and its value (null for flat). */
+  curvature_key: CurvatureKey;
+  curvature_value: number | null;
+  w0: number;
+  wa: number;
+  radiation: "thermal" | "none";
+  T_cmb: number | null;
+  N_eff: number | null;
+}
+
+export interface ResolvedModel {
+  id: string;
+  label: string;
+  extends: string | null;
+  notes: string | null;
+  inputs: ResolvedModelInputs;
+  /** Where each input came from: set in this model, inherited through extends, or a default. */
+  provenance: Record<keyof ResolvedModelInputs, Provenance>;
+  background: BackgroundModel;
+  warnings: string[];
+}
+
+export type TargetPlacement = { by: "z"; z: number } | { by: "lookback_Gyr"; value: number } | { by: "age_Gyr"; value: number } | { by: "comoving_distance_Mpc"; value: number };
+
+export interface ResolvedTarget {
+  name: string;
+  placement: TargetPlacement;
+  size_kpc: number | null;
+  absolute_magnitude: number | null;
+  luminosity_erg_s: number | null;
+}
+
+export interface ResolvedSurvey {
+  name: string;
+  area_deg2: number;
+  z_min: number;
+  z_max: number;
+  density_per_Mpc3: number | null;
+}
+
+export interface ResolvedGrid {
+  z_max: number;
+  points: number;
+  spacing: "log" | "linear";
+}
+
+/** A validated scenario with every default applied: the only input of the tables builder. */
+export interface ResolvedScenario {
+  id: string;
+  title: string;
+  description: string | null;
+  author: string | null;
+  tags: string[];
+  baseline: string;
+  redshifts: number[];
+  grid: ResolvedGrid;
+  models: ResolvedModel[];
+  targets: ResolvedTarget[];
+  surveys: ResolvedSurvey[];
+  /** Scenario-level keys that took their defaults. */
+  defaults_applied: string[];
+  source: { path: string; text: string };
+}

@@ -1,0 +1,108 @@
+import { Ajv, type ErrorObject } from "ajv";
+import { closest, distance } from "fastest-levenshtein";
+import schema from "../schema/scenario.schema.json" with { type: "json" };
+import type { ParsedYaml } from "./parseScenarioYaml.js";
+import { formatPath, type ScenarioIssue } from "./scenarioIssue.js";
+
+const ajv = new Ajv({ allErrors: true, strict: true, allowUnionTypes: false });
+const validate = ajv.compile(schema);
+
+type SchemaNode = { properties?: Record<string, unknown>; $ref?: string; items?: SchemaNode };
+
+/** The schema node that describes the object at a given instance path. */
+function schemaAt(segments: (string | number)[]): SchemaNode | undefined {
+  let node: SchemaNode | undefined = schema as SchemaNode;
+  const deref = (n: SchemaNode | undefined): SchemaNode | undefined => {
+    if (n?.$ref?.startsWith("#/definitions/")) return (schema.definitions as Record<string, SchemaNode>)[n.$ref.slice(14)];
+    return n;
+  };
+  for (const s of segments) {
+    node = deref(node);
+    if (!node) return undefined;
+    node = typeof s === "number" ? node.items : (node.properties?.[s] as SchemaNode | undefined);
+  }
+  return deref(node);
+}
+
+function segmentsOf(instancePath: string): (string | number)[] {
+  if (instancePath === "") return [];
+  return instancePath.slice(1).split("/").map((s) => {
+    const key = s.replace(/~1/g, "/").replace(/~0/g, "~");
+    return /^\d+$/.test(key) ? Number(key) : key;
+  });
+}
+
+function describeValue(v: unknown): string {
+  if (typeof v === "string") return `"${v.length > 40 ? v.slice(0, 40) + "..." : v}"`;
+  if (v === null) return "nothing (null)";
+  if (Array.isArray(v)) return "a list";
+  if (typeof v === "object") return "a mapping";
+  return String(v);
+}
+
+function valueAt(root: unknown, segments: (string | number)[]): unknown {
+  let v: any = root;
+  for (const s of segments) v = v == null ? undefined : v[s];
+  return v;
+}
+
+function message(e: ErrorObject, root: unknown, segments: (string | number)[]): { path: (string | number)[]; text: string; at: "key" | "value" } {
+  const got = describeValue(valueAt(root, segments));
+  switch (e.keyword) {
+    case "additionalProperties": {
+      const key = (e.params as { additionalProperty: string }).additionalProperty;
+      const allowed = Object.keys(schemaAt(segments)?.properties ?? {});
+      const near = allowed.length ? closest(key, allowed) : undefined;
+      const lower = allowed.find((k) => k.toLowerCase() === key.toLowerCase());
+      const suggestion = lower ?? near;
+      const hint = suggestion && (lower || levenshteinClose(key, suggestion)) ? ` did you mean ${suggestion}?` : "";
+      return { path: [...segments, key], at: "key", text: `unknown key ${key}.${hint} Valid keys here: ${allowed.join(", ")}` };
+    }
+    case "required":
+      return { path: segments, at: "value", text: `missing required key ${(e.params as { missingProperty: string }).missingProperty}` };
+    case "type":
+      return { path: segments, at: "value", text: `must be ${article((e.params as { type: string }).type)} (got ${got})` };
+    case "const":
+      return { path: segments, at: "value", text: `must be true (got ${got}); to fix the curvature otherwise give Omega_k or Omega_de instead` };
+    case "enum":
+      return { path: segments, at: "value", text: `must be one of: ${(e.params as { allowedValues: unknown[] }).allowedValues.join(", ")} (got ${got})` };
+    case "pattern":
+      return { path: segments, at: "value", text: `must be a slug of lowercase letters, digits and single hyphens, such as deep-field (got ${got})` };
+    case "minimum": case "maximum": case "exclusiveMinimum": case "exclusiveMaximum": {
+      const p = e.params as { comparison: string; limit: number };
+      return { path: segments, at: "value", text: `must be ${p.comparison} ${p.limit} (got ${got})` };
+    }
+    case "minItems": return { path: segments, at: "value", text: `must list at least ${(e.params as { limit: number }).limit} item(s)` };
+    case "maxItems": return { path: segments, at: "value", text: `may list at most ${(e.params as { limit: number }).limit} items` };
+    case "minLength": return { path: segments, at: "value", text: "must not be empty" };
+    case "maxLength": return { path: segments, at: "value", text: `may be at most ${(e.params as { limit: number }).limit} characters long` };
+    default:
+      return { path: segments, at: "value", text: e.message ?? "is not valid" };
+  }
+}
+
+function article(type: string): string {
+  return type === "integer" ? "a whole number" : type === "object" ? "a mapping of keys to values" : type === "array" ? "a list" : `a ${type}`;
+}
+
+function levenshteinClose(a: string, b: string): boolean {
+  // Suggest only when the nearest key is plausibly a misspelling: within a third of its length.
+  return distance(a.toLowerCase(), b.toLowerCase()) <= Math.max(2, Math.floor(b.length / 3));
+}
+
+/** Validates parsed YAML against src/schema/scenario.schema.json with ajv; returns located, readable issues. */
+export function validateScenarioSchema(parsed: ParsedYaml): ScenarioIssue[] {
+  if (validate(parsed.value)) return [];
+  const seen = new Set<string>();
+  const issues: ScenarioIssue[] = [];
+  for (const e of validate.errors ?? []) {
+    const segments = segmentsOf(e.instancePath);
+    const m = message(e, parsed.value, segments);
+    const pathText = formatPath(m.path);
+    const dedupe = `${pathText}|${m.text}`;
+    if (seen.has(dedupe)) continue;
+    seen.add(dedupe);
+    issues.push({ file: parsed.file, ...parsed.locate(m.path, m.at), path: pathText, message: m.text });
+  }
+  return issues;
+}

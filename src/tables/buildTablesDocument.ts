@@ -1,0 +1,96 @@
+import { createHash } from "node:crypto";
+import {
+  CONSTANTS, DEFAULT_N_EFF, DEFAULT_T_CMB_K, ENGINE_TOLERANCE, ENGINE_VERSION, FLATNESS_THRESHOLD, REDSHIFT_COLUMN_KEYS,
+  backgroundSummary, redshiftAtComovingDistance, redshiftTable, type RedshiftColumns,
+} from "../engine/index.js";
+import type { ResolvedModel, ResolvedScenario } from "../scenario/resolvedScenario.js";
+import { DEFAULT_W0, DEFAULT_WA } from "../scenario/resolveScenario.js";
+import { gridRedshifts } from "./gridRedshifts.js";
+import { targetRows } from "./targetRows.js";
+import { surveyRows } from "./surveyRows.js";
+import { differencesFromBaseline } from "./differences.js";
+import { CAUTIONS } from "./cautions.js";
+import { TABLES_FORMAT, type ModelTables, type Num, type RedshiftRow, type TablesDocument } from "./tablesDocument.js";
+
+const sha256 = (text: string) => createHash("sha256").update(text, "utf8").digest("hex");
+
+function rows(columns: RedshiftColumns): RedshiftRow[] {
+  const n = columns.z.length;
+  const out: RedshiftRow[] = new Array(n);
+  for (let i = 0; i < n; i++) {
+    const row: RedshiftRow = {};
+    for (const key of REDSHIFT_COLUMN_KEYS) {
+      const v = columns[key][i];
+      row[key] = Number.isFinite(v) ? v : null;
+    }
+    out[i] = row;
+  }
+  return out;
+}
+
+function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[]): ModelTables {
+  const bg = m.background;
+  const { summary, warnings } = backgroundSummary(bg);
+  const allWarnings = [...m.warnings, ...warnings];
+  if (summary.antipode_distance_Mpc !== null && summary.particle_horizon_Mpc !== null && summary.particle_horizon_Mpc > summary.antipode_distance_Mpc) {
+    const zAnti = redshiftAtComovingDistance(bg, summary.antipode_distance_Mpc);
+    allWarnings.push(`light from beyond z = ${zAnti.toPrecision(6)} has passed the antipode: D_M is negative there (sign convention: D_M = R sin(D_C/R); images are inverted)`);
+  }
+  const derived = m.inputs.curvature_key === "Omega_k" ? "Omega_de" : m.inputs.curvature_key === "flat" ? "Omega_de" : "Omega_k";
+  const provenance: ModelTables["provenance"] = {
+    H0: m.provenance.H0, Omega_m: m.provenance.Omega_m, w0: m.provenance.w0, wa: m.provenance.wa,
+    radiation: m.provenance.radiation, T_cmb: m.provenance.T_cmb, N_eff: m.provenance.N_eff,
+    curvature_from: m.provenance.curvature_key,
+    [m.inputs.curvature_key === "flat" ? "Omega_k" : m.inputs.curvature_key === "Omega_Lambda" ? "Omega_de" : m.inputs.curvature_key]: m.provenance.curvature_value,
+    [derived]: "derived", Omega_r: "derived", Omega_gamma: "derived", Omega_nu: "derived",
+  };
+  if (m.inputs.curvature_key === "flat") provenance.Omega_k = m.provenance.curvature_key;
+  return {
+    id: m.id, label: m.label, extends: m.extends, notes: m.notes, warnings: allWarnings,
+    parameters: {
+      H0: bg.H0_km_s_Mpc, Omega_m: bg.Omega_m, Omega_de: bg.Omega_de, Omega_k: bg.Omega_k, Omega_r: bg.Omega_r,
+      Omega_gamma: bg.Omega_gamma, Omega_nu: bg.Omega_nu, w0: bg.w0, wa: bg.wa, T_cmb: m.inputs.T_cmb, N_eff: m.inputs.N_eff,
+      radiation: m.inputs.radiation, curvature_from: m.inputs.curvature_key,
+    },
+    provenance,
+    summary: summary as unknown as Record<string, Num | string>,
+    redshifts: rows(redshiftTable(bg, scenario.redshifts)),
+    grid: rows(redshiftTable(bg, grid)),
+    targets: targetRows(bg, scenario.targets),
+    surveys: surveyRows(bg, scenario.surveys),
+  };
+}
+
+/** The canonical text of a scenario's resolved inputs and the engine version: the basis of its version hash. */
+export function canonicalInputs(s: ResolvedScenario): string {
+  return JSON.stringify({
+    engine: ENGINE_VERSION, id: s.id, baseline: s.baseline, redshifts: s.redshifts, grid: s.grid,
+    models: s.models.map((m) => ({ id: m.id, extends: m.extends, inputs: m.inputs })), targets: s.targets, surveys: s.surveys,
+  });
+}
+
+/** Resolved scenario -> tables document (pure apart from hashing; deterministic: the same input gives the same bytes). */
+export function buildTablesDocument(s: ResolvedScenario): TablesDocument {
+  const grid = gridRedshifts(s.grid);
+  const models = s.models.map((m) => modelTables(m, s, grid));
+  const baseline = models.find((m) => m.id === s.baseline)!;
+  const differences: TablesDocument["differences"] = {};
+  for (const m of models) if (m.id !== s.baseline) differences[m.id] = differencesFromBaseline(m, baseline);
+  const constants: TablesDocument["engine"]["constants"] = {};
+  for (const [name, c] of Object.entries(CONSTANTS)) constants[name] = { value: c.value, unit: c.unit, source: c.source };
+  return {
+    format: TABLES_FORMAT,
+    scenario: {
+      id: s.id, title: s.title, description: s.description, author: s.author, tags: s.tags, baseline: s.baseline,
+      source_path: s.source.path, source_sha256: sha256(s.source.text), inputs_sha256: sha256(canonicalInputs(s)),
+      defaults_applied: s.defaults_applied, redshifts: s.redshifts, grid: s.grid,
+    },
+    engine: {
+      version: ENGINE_VERSION, tolerance: ENGINE_TOLERANCE, constants,
+      defaults: { w0: DEFAULT_W0, wa: DEFAULT_WA, T_cmb: DEFAULT_T_CMB_K, N_eff: DEFAULT_N_EFF, radiation: "thermal", curvature: "flat", flatness_threshold: FLATNESS_THRESHOLD },
+    },
+    cautions: CAUTIONS,
+    models,
+    differences,
+  };
+}

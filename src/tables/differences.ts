@@ -1,0 +1,35 @@
+import type { Difference, ModelDifferences, ModelTables, Num, RedshiftRow } from "./tablesDocument.js";
+
+function relative(x: Num | string, base: Num | string): Num {
+  if (typeof x !== "number" || typeof base !== "number" || base === 0) return null;
+  return (x - base) / Math.abs(base);
+}
+
+function rowRatios(rows: RedshiftRow[], baseRows: RedshiftRow[], ratio: boolean): Record<string, Num>[] {
+  return rows.map((row, i) => {
+    const base = baseRows[i];
+    const out: Record<string, Num> = { z: row.z };
+    for (const key of Object.keys(row)) {
+      if (key === "z") continue;
+      const x = row[key];
+      const b = base[key];
+      out[key] = ratio ? (typeof x === "number" && typeof b === "number" && b !== 0 ? x / b : null) : relative(x, b);
+    }
+    return out;
+  });
+}
+
+/** Each model against the baseline: summary differences (absolute and relative), relative differences per table row, and grid ratios for charts. */
+export function differencesFromBaseline(model: ModelTables, baseline: ModelTables): ModelDifferences {
+  const summary: Record<string, Difference> = {};
+  for (const [key, value] of Object.entries(model.summary)) {
+    const b = baseline.summary[key];
+    if (typeof value === "string" || typeof b === "string") continue;
+    summary[key] = { absolute: value !== null && b !== null ? value - b : null, relative: relative(value, b) };
+  }
+  return {
+    summary,
+    redshifts: rowRatios(model.redshifts, baseline.redshifts, false),
+    grid_ratio: rowRatios(model.grid, baseline.grid, true),
+  };
+}

@@ -1,0 +1,54 @@
+import {
+  MPC_CM, NoSuchRedshiftError, redshiftAtAge, redshiftAtComovingDistance, redshiftAtLookbackTime, redshiftTable,
+  type BackgroundModel,
+} from "../engine/index.js";
+import type { ResolvedTarget } from "../scenario/resolvedScenario.js";
+import type { Num, TargetRow } from "./tablesDocument.js";
+
+const num = (x: number): Num => (Number.isFinite(x) ? x : null);
+
+/**
+ * Each target under one model: its redshift (given, or solved from lookback time, age or comoving distance),
+ * then angular size theta = size / D_A, apparent magnitude m = M + mu (no K-correction) and bolometric flux
+ * F = L / (4 pi D_L^2) (Hogg 1999 eqs. 18, 24, 21).
+ */
+export function targetRows(model: BackgroundModel, targets: readonly ResolvedTarget[]): TargetRow[] {
+  return targets.map((t) => {
+    const empty: TargetRow = {
+      name: t.name, placed_by: t.placement.by, z: null, lookback_time_Gyr: null, age_Gyr: null, comoving_distance_Mpc: null,
+      angular_diameter_distance_Mpc: null, luminosity_distance_Mpc: null, distance_modulus_mag: null, kpc_per_arcsec_proper: null,
+      angular_size_arcsec: null, apparent_magnitude: null, bolometric_flux_erg_s_cm2: null, note: null,
+    };
+    let z: number;
+    try {
+      const p = t.placement;
+      z = p.by === "z" ? p.z
+        : p.by === "lookback_Gyr" ? redshiftAtLookbackTime(model, p.value)
+        : p.by === "age_Gyr" ? redshiftAtAge(model, p.value)
+        : redshiftAtComovingDistance(model, p.value);
+    } catch (e) {
+      if (e instanceof NoSuchRedshiftError) return { ...empty, note: `not reached in this model: ${e.message}` };
+      throw e;
+    }
+    const r = redshiftTable(model, [z]);
+    const DA = r.angular_diameter_distance_Mpc[0];
+    const DL = r.luminosity_distance_Mpc[0];
+    const mu = r.distance_modulus_mag[0];
+    const kpc = r.kpc_per_arcsec_proper[0];
+    return {
+      ...empty,
+      z,
+      lookback_time_Gyr: r.lookback_time_Gyr[0],
+      age_Gyr: num(r.age_Gyr[0]),
+      comoving_distance_Mpc: r.comoving_distance_Mpc[0],
+      angular_diameter_distance_Mpc: DA,
+      luminosity_distance_Mpc: DL,
+      distance_modulus_mag: num(mu),
+      kpc_per_arcsec_proper: kpc,
+      angular_size_arcsec: t.size_kpc !== null && kpc !== 0 ? t.size_kpc / Math.abs(kpc) : null,
+      apparent_magnitude: t.absolute_magnitude !== null && Number.isFinite(mu) ? t.absolute_magnitude + mu : null,
+      bolometric_flux_erg_s_cm2: t.luminosity_erg_s !== null && DL !== 0 ? t.luminosity_erg_s / (4 * Math.PI * (DL * MPC_CM) ** 2) : null,
+      note: t.absolute_magnitude !== null ? "apparent magnitude without K-correction" : null,
+    };
+  });
+}
