@@ -2,6 +2,9 @@
 // Entry point: runs the compiled CLI (npm install / npm ci compile it through the prepare script).
 import { main } from "../dist/cli/main.js";
 
+// A closed pipe (cosmoledger ... | head) is not a failure.
+process.stdout.on("error", (e) => { if (e.code === "EPIPE") process.exit(0); throw e; });
+
 main(process.argv.slice(2)).then(
   (code) => { process.exitCode = code; },
   (error) => {
