@@ -1,9 +1,16 @@
 // npm run bench: prints the figures; never asserts on time. The last line is one JSON object.
 import { runEngineBench } from "./engine.js";
+import { runComputeBench } from "./compute.js";
 
 const engine = runEngineBench();
 console.log(`engine: ${engine.points} points (8 models x 2000 redshifts, z 0..20, all per-redshift quantities)`);
 console.log(`  median wall time ${engine.ms.toFixed(2)} ms, ${(engine.pointsPerSecond / 1e6).toFixed(2)} M points/s`);
 console.log(`  largest relative error against the per-point careful path (1e-13): ${engine.maxRelError.toExponential(2)} over ${engine.checked} values`);
-const extra = globalThis.__benchExtra ? await globalThis.__benchExtra() : {};
-console.log(JSON.stringify({ points: engine.points, ms: Number(engine.ms.toFixed(3)), max_rel_error: engine.maxRelError, ...extra }));
+const cli = runComputeBench();
+console.log(`cli: bare node start-up ${cli.nodeStartMs.toFixed(0)} ms`);
+console.log(`  --help ${cli.helpMs.toFixed(0)} ms (${(cli.helpMs - cli.nodeStartMs).toFixed(0)} ms beyond node)`);
+console.log(`  compute, 8 models x (2000 grid + 20 table redshifts): ${cli.computeMs.toFixed(0)} ms (${(cli.computeMs - cli.nodeStartMs).toFixed(0)} ms beyond node)`);
+console.log(JSON.stringify({
+  points: engine.points, ms: Number(engine.ms.toFixed(3)), max_rel_error: engine.maxRelError,
+  help_ms_beyond_node: Number((cli.helpMs - cli.nodeStartMs).toFixed(1)), compute_ms_beyond_node: Number((cli.computeMs - cli.nodeStartMs).toFixed(1)),
+}));

@@ -19,7 +19,7 @@ and prints every problem as file:line:column: key path: message. Writes nothing.
   compute: `Usage: cosmoledger compute FILE... [--out DIR] [--json]
 
 Validates and computes every file, then writes DIR/<id>/tables.json plus parameters.csv, summary.csv,
-redshifts.csv, grid.csv, differences.csv and, where the scenario has them, targets.csv and surveys.csv.
+redshifts.csv, differences.csv and, where the scenario has them, targets.csv and surveys.csv.
 If any file is invalid, nothing at all is written.
 
 Options:

@@ -1,37 +1,96 @@
 import type { BackgroundModel } from "./backgroundModel.js";
 import { dominantTermEarly, dominantTermLate } from "./dominantTerm.js";
-import { firstNonPositive } from "./scanForSign.js";
+import { brentRoot } from "./brentRoot.js";
 
-// ln a ranges scanned for E^2 = 0. The scan uses E^2 divided by the magnitude of its dominant term (same sign
-// as E^2), so it neither overflows nor underflows however far the scan goes.
+// ln a ranges scanned for E^2 = 0. The scan works with E^2 divided by the magnitude of its asymptotically dominant
+// term (same sign as E^2), so it neither overflows nor underflows however far it goes.
 const LN_A_EARLIEST = -700;
 const LN_A_LATEST = 700;
 const NEAR = 12;
 const STEP_NEAR = 0.005;
 const STEP_FAR = 0.05;
 
+interface Scaled {
+  /** The terms of a^n E^2 exp(-x a) at a = e^u, the asymptotically dominant one first. */
+  terms(u: number, out: Float64Array): void;
+  /** ln a beyond which every other term's share of the dominant one only shrinks. */
+  settled: number;
+}
+
 /**
- * a^n E^2(a) exp(-x a) at a = e^u (Friedmann equation; CPL term in log form, Chevallier & Polarski 2001),
- * n the power of the dominant term and x = 3 wa when a super-exponential CPL term dominates late.
+ * a^n E^2(a) exp(-x a), term by term (Friedmann equation; CPL term in log form, Chevallier & Polarski 2001),
+ * with n the power of the dominant term and x = 3 wa when a super-exponential CPL term dominates late.
  */
-function scaledExpansionRateSquared(model: BackgroundModel, late: boolean): (u: number) => number {
+function scaled(model: BackgroundModel, late: boolean): Scaled {
   const { Omega_r: r, Omega_m: m, Omega_k: k, Omega_de: de, w0, wa } = model;
   const dom = late ? dominantTermLate(model) : dominantTermEarly(model);
   const n = Number.isFinite(dom.power) ? dom.power : 2;
   const x = late && wa > 0 && de !== 0 ? 3 * wa : 0;
   const p = -3 * (1 + w0 + wa);
-  return (u) => {
-    const a = Math.exp(u);
-    const xa = x * a;
-    const dark = de === 0 ? 0 : de * Math.exp((p + n) * u - 3 * wa * (1 - a) - xa);
-    const ordinary = r * Math.exp((n - 4) * u - xa) + m * Math.exp((n - 3) * u - xa) + k * Math.exp((n - 2) * u - xa);
-    return ordinary + dark;
+  const pDe = 3 * (1 + w0 + wa);
+  // Power-law terms have monotonic ratios; a CPL term with wa != 0 settles once 3|wa| a is small (early) or
+  // large (late) against the power differences.
+  let settled = 0;
+  if (wa !== 0 && de !== 0) {
+    const spread = Math.abs(pDe - n) + 4;
+    settled = late ? Math.log(spread / (3 * Math.abs(wa))) : Math.log(0.01 / (3 * Math.abs(wa)));
+  }
+  return {
+    settled,
+    terms(u, out) {
+      const a = Math.exp(u);
+      const xa = x * a;
+      out[0] = r === 0 ? 0 : r * Math.exp((n - 4) * u - xa);
+      out[1] = m === 0 ? 0 : m * Math.exp((n - 3) * u - xa);
+      out[2] = k === 0 ? 0 : k * Math.exp((n - 2) * u - xa);
+      out[3] = de === 0 ? 0 : de * Math.exp((p + n) * u - 3 * wa * (1 - a) - xa);
+    },
   };
 }
 
-function scan(g: (u: number) => number, far: number): number | null {
-  const mid = Math.sign(far) * NEAR;
-  return firstNonPositive(g, 0, mid, STEP_NEAR) ?? firstNonPositive(g, mid, far, STEP_FAR);
+/**
+ * First ln a (walking from 0 towards `far`) where E^2 <= 0, refined by Brent's method; null when E^2 stays positive.
+ * Grid scan plus bracketed root (common practice). The walk stops early once the dominant term is positive, more
+ * than four times all the others together and past the point where their shares can only shrink.
+ */
+function scanForZero(model: BackgroundModel, far: number): number | null {
+  const late = far > 0;
+  const s = scaled(model, late);
+  const dom = late ? dominantTermLate(model) : dominantTermEarly(model);
+  const t = new Float64Array(4);
+  const g = (u: number) => { s.terms(u, t); return t[0] + t[1] + t[2] + t[3]; };
+  const dir = late ? 1 : -1;
+  let uPrev = 0;
+  for (let i = 1; ; i++) {
+    const near = i * STEP_NEAR <= NEAR;
+    const u = near ? dir * i * STEP_NEAR : dir * (NEAR + (i - NEAR / STEP_NEAR) * STEP_FAR);
+    if (dir * u > dir * far) return null;
+    s.terms(u, t);
+    const v = t[0] + t[1] + t[2] + t[3];
+    if (!(v > 0)) return v === 0 ? u : Number.isNaN(v) ? null : brentRoot(g, uPrev, u, 0);
+    uPrev = u;
+    if (dom.coefficient > 0 && dir * u > dir * s.settled) {
+      // The dominant term is the sum of the terms with its power: compare it with the rest.
+      let domPart = 0;
+      let rest = 0;
+      const powers = [4, 3, 2, NaN];
+      for (let j = 0; j < 4; j++) {
+        const isDom = j < 3 ? powers[j] === dom.power : isDarkEnergyDominant(model, dom.power, late);
+        if (isDom) domPart += t[j]; else rest += Math.abs(t[j]);
+      }
+      if (domPart > 4 * rest) return null;
+    }
+  }
+}
+
+function isDarkEnergyDominant(model: BackgroundModel, power: number, late: boolean): boolean {
+  if (model.Omega_de === 0) return false;
+  if (late) {
+    if (model.wa > 0) return !Number.isFinite(power);
+    if (model.wa < 0) return false;
+  }
+  const p = late ? 3 * (1 + model.w0) : 3 * (1 + model.w0 + model.wa);
+  return Math.abs(p - power) <= 1e-12;
 }
 
 /**
@@ -39,7 +98,7 @@ function scan(g: (u: number) => number, far: number): number | null {
  * or null when E^2 > 0 for all 0 < a <= 1. Friedmann equation: H^2 = H0^2 E^2(a) must stay positive.
  */
 export function bounceScaleFactor(model: BackgroundModel): number | null {
-  const u = scan(scaledExpansionRateSquared(model, false), LN_A_EARLIEST);
+  const u = scanForZero(model, LN_A_EARLIEST);
   if (u !== null) return Math.exp(u);
   // E^2 negative as a -> 0 but no zero found above a = e^-700: the turn-around is earlier still.
   if (dominantTermEarly(model).coefficient < 0) return Math.exp(LN_A_EARLIEST);
@@ -51,7 +110,7 @@ export function bounceScaleFactor(model: BackgroundModel): number | null {
  * or null when the model expands forever. Friedmann equation: expansion halts where H^2 = 0.
  */
 export function maximumScaleFactor(model: BackgroundModel): number | null {
-  const u = scan(scaledExpansionRateSquared(model, true), LN_A_LATEST);
+  const u = scanForZero(model, LN_A_LATEST);
   if (u !== null) return Math.exp(u);
   if (dominantTermLate(model).coefficient < 0) {
     throw new RangeError("E^2 turns negative only beyond a = e^700, outside the range this engine can follow");

@@ -10,7 +10,7 @@ import { targetRows } from "./targetRows.js";
 import { surveyRows } from "./surveyRows.js";
 import { differencesFromBaseline } from "./differences.js";
 import { CAUTIONS } from "./cautions.js";
-import { TABLES_FORMAT, type ModelTables, type Num, type RedshiftRow, type TablesDocument } from "./tablesDocument.js";
+import { TABLES_FORMAT, type ModelTables, type Num, type RedshiftGrid, type RedshiftRow, type TablesDocument } from "./tablesDocument.js";
 
 const sha256 = (text: string) => createHash("sha256").update(text, "utf8").digest("hex");
 
@@ -25,6 +25,12 @@ function rows(columns: RedshiftColumns): RedshiftRow[] {
     }
     out[i] = row;
   }
+  return out;
+}
+
+function gridColumns(columns: RedshiftColumns): RedshiftGrid {
+  const out: RedshiftGrid = {};
+  for (const key of REDSHIFT_COLUMN_KEYS) out[key] = Array.from(columns[key], (v) => (Number.isFinite(v) ? v : null));
   return out;
 }
 
@@ -55,7 +61,7 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
     provenance,
     summary: summary as unknown as Record<string, Num | string>,
     redshifts: rows(redshiftTable(bg, scenario.redshifts)),
-    grid: rows(redshiftTable(bg, grid)),
+    grid: gridColumns(redshiftTable(bg, grid)),
     targets: targetRows(bg, scenario.targets),
     surveys: surveyRows(bg, scenario.surveys),
   };

@@ -5,7 +5,7 @@ function relative(x: Num | string, base: Num | string): Num {
   return (x - base) / Math.abs(base);
 }
 
-function rowRatios(rows: RedshiftRow[], baseRows: RedshiftRow[], ratio: boolean): Record<string, Num>[] {
+function rowDifferences(rows: RedshiftRow[], baseRows: RedshiftRow[]): Record<string, Num>[] {
   return rows.map((row, i) => {
     const base = baseRows[i];
     const out: Record<string, Num> = { z: row.z };
@@ -13,13 +13,13 @@ function rowRatios(rows: RedshiftRow[], baseRows: RedshiftRow[], ratio: boolean)
       if (key === "z") continue;
       const x = row[key];
       const b = base[key];
-      out[key] = ratio ? (typeof x === "number" && typeof b === "number" && b !== 0 ? x / b : null) : relative(x, b);
+      out[key] = relative(x, b);
     }
     return out;
   });
 }
 
-/** Each model against the baseline: summary differences (absolute and relative), relative differences per table row, and grid ratios for charts. */
+/** Each model against the baseline: summary differences (absolute and relative) and relative differences per table row. */
 export function differencesFromBaseline(model: ModelTables, baseline: ModelTables): ModelDifferences {
   const summary: Record<string, Difference> = {};
   for (const [key, value] of Object.entries(model.summary)) {
@@ -29,7 +29,6 @@ export function differencesFromBaseline(model: ModelTables, baseline: ModelTable
   }
   return {
     summary,
-    redshifts: rowRatios(model.redshifts, baseline.redshifts, false),
-    grid_ratio: rowRatios(model.grid, baseline.grid, true),
+    redshifts: rowDifferences(model.redshifts, baseline.redshifts),
   };
 }

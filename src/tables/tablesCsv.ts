@@ -4,7 +4,7 @@ import type { TablesDocument } from "./tablesDocument.js";
 
 const cell = (v: unknown): string => (v === null || v === undefined ? "" : String(v));
 
-/** One RFC 4180 CSV per table of the document (csv-stringify), keyed by file name. Numbers at full precision; empty cell = null. */
+/** One RFC 4180 CSV per table shown on the page (the chart grid stays in tables.json) of the document (csv-stringify), keyed by file name. Numbers at full precision; empty cell = null. */
 export function tablesCsv(doc: TablesDocument): Record<string, string> {
   const ids = doc.models.map((m) => m.id);
   const table = (header: string[], body: unknown[][]) => stringify([header, ...body.map((r) => r.map(cell))], { record_delimiter: "\r\n" });
@@ -14,7 +14,6 @@ export function tablesCsv(doc: TablesDocument): Record<string, string> {
     "parameters.csv": table(["parameter", ...ids], paramKeys.map((k) => [k, ...doc.models.map((m) => m.parameters[k])])),
     "summary.csv": table(["quantity", ...ids], summaryKeys.map((k) => [k, ...doc.models.map((m) => m.summary[k])])),
     "redshifts.csv": table(["model", ...REDSHIFT_COLUMN_KEYS], doc.models.flatMap((m) => m.redshifts.map((r) => [m.id, ...REDSHIFT_COLUMN_KEYS.map((k) => r[k])]))),
-    "grid.csv": table(["model", ...REDSHIFT_COLUMN_KEYS], doc.models.flatMap((m) => m.grid.map((r) => [m.id, ...REDSHIFT_COLUMN_KEYS.map((k) => r[k])]))),
     "differences.csv": table(["model", "quantity", "absolute", "relative"], Object.entries(doc.differences).flatMap(([id, d]) =>
       Object.entries(d.summary).map(([k, v]) => [id, k, v.absolute, v.relative]))),
   };

@@ -13,6 +13,9 @@ export interface ModelParameters {
 
 export type RedshiftRow = Record<string, Num>;
 
+/** The chart grid column by column: each key of a redshift row maps to one array over the grid points. */
+export type RedshiftGrid = Record<string, Num[]>;
+
 export interface TargetRow {
   name: string;
   placed_by: "z" | "lookback_Gyr" | "age_Gyr" | "comoving_distance_Mpc";
@@ -30,7 +33,7 @@ export interface ModelTables {
   provenance: Record<string, "set" | "inherited" | "default" | "derived">;
   summary: Record<string, Num | string>;
   redshifts: RedshiftRow[];
-  grid: RedshiftRow[];
+  grid: RedshiftGrid;
   targets: TargetRow[];
   surveys: SurveyRow[];
 }
@@ -40,7 +43,6 @@ export interface Difference { absolute: Num; relative: Num }
 export interface ModelDifferences {
   summary: Record<string, Difference>;
   redshifts: Record<string, Num>[];
-  grid_ratio: Record<string, Num>[];
 }
 
 export interface TablesDocument {

@@ -43,7 +43,7 @@ describe("cosmoledger CLI on the demo scenarios", () => {
       expect(docText).toBe(readFileSync(join(b, id, "tables.json"), "utf8"));
       const doc = JSON.parse(docText);
       expect(validate(doc), JSON.stringify(validate.errors?.slice(0, 3))).toBe(true);
-      for (const csv of ["parameters.csv", "summary.csv", "redshifts.csv", "grid.csv"]) expect(existsSync(join(a, id, csv))).toBe(true);
+      for (const csv of ["parameters.csv", "summary.csv", "redshifts.csv", "differences.csv"]) expect(existsSync(join(a, id, csv))).toBe(true);
       // CSV parsed back (csv-parse) gives the document's numbers.
       const rows = parseCsv(readFileSync(join(a, id, "redshifts.csv"), "utf8"), { columns: true }) as Record<string, string>[];
       const first = doc.models[0];

@@ -1,0 +1,41 @@
+// The whole compute process for one scenario of 8 models, 2,000 grid points and 20 table redshifts,
+// and --help start-up, each measured beyond a bare Node start-up (median of several runs).
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, writeFileSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join, resolve } from "node:path";
+
+const ROOT = resolve(import.meta.dirname, "..");
+const BIN = join(ROOT, "bin/cosmoledger.js");
+
+function median(fn, runs) {
+  const t = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = process.hrtime.bigint();
+    fn();
+    t.push(Number(process.hrtime.bigint() - t0) / 1e6);
+  }
+  t.sort((a, b) => a - b);
+  return t[Math.floor(runs / 2)];
+}
+
+export function runComputeBench(runs = 7) {
+  const dir = mkdtempSync(join(tmpdir(), "cosmoledger-bench-"));
+  const file = join(dir, "bench.yaml");
+  const models = [
+    "{ id: m0, H0: 67.5, Omega_m: 0.315 }", "{ id: m1, extends: m0, Omega_k: 0.1 }", "{ id: m2, extends: m0, Omega_k: -0.05 }",
+    "{ id: m3, extends: m0, w0: -0.8, wa: -0.6 }", "{ id: m4, extends: m0, Omega_k: 0.05, w0: -1.2, wa: 0.5 }",
+    "{ id: m5, extends: m0, Omega_de: -0.2 }", "{ id: m6, H0: 60, Omega_m: 1.5, Omega_de: 0.005 }", "{ id: m7, extends: m0, w0: -0.9 }",
+  ];
+  const redshifts = Array.from({ length: 20 }, (_, i) => (0.25 * (i + 1)).toString());
+  writeFileSync(file, `title: bench\nredshifts: [${redshifts.join(", ")}]\ngrid: { z_max: 20, points: 2000 }\nmodels:\n${models.map((m) => `  - ${m}\n`).join("")}`);
+  const node = median(() => spawnSync(process.execPath, ["-e", "0"]), runs);
+  const help = median(() => spawnSync(process.execPath, [BIN, "--help"]), runs);
+  let out = 0;
+  const compute = median(() => {
+    const r = spawnSync(process.execPath, [BIN, "compute", file, "--out", join(dir, `out${out++}`)], { encoding: "utf8" });
+    if (r.status !== 0) throw new Error(r.stderr);
+  }, runs);
+  rmSync(dir, { recursive: true, force: true });
+  return { nodeStartMs: node, helpMs: help, computeMs: compute };
+}
