@@ -98,12 +98,17 @@ function isDarkEnergyDominant(model: BackgroundModel, power: number, late: boole
  * or null when E^2 > 0 for all 0 < a <= 1. Friedmann equation: H^2 = H0^2 E^2(a) must stay positive.
  */
 export function bounceScaleFactor(model: BackgroundModel): number | null {
+  const known = bounceMemo.get(model);
+  if (known !== undefined) return known;
   const u = scanForZero(model, LN_A_EARLIEST);
-  if (u !== null) return Math.exp(u);
   // E^2 negative as a -> 0 but no zero found above a = e^-700: the turn-around is earlier still.
-  if (dominantTermEarly(model).coefficient < 0) return Math.exp(LN_A_EARLIEST);
-  return null;
+  const a = u !== null ? Math.exp(u) : dominantTermEarly(model).coefficient < 0 ? Math.exp(LN_A_EARLIEST) : null;
+  bounceMemo.set(model, a);
+  return a;
 }
+
+// Models are immutable, so the scan is done once per model object.
+const bounceMemo = new WeakMap<BackgroundModel, number | null>();
 
 /**
  * The scale factor a > 1 at which E^2 reaches zero in the future (maximum expansion before a recollapse),

@@ -1,11 +1,26 @@
-import { Ajv, type ErrorObject } from "ajv";
+import type { ErrorObject, ValidateFunction } from "ajv";
 import { closest, distance } from "fastest-levenshtein";
 import schema from "../schema/scenario.schema.json" with { type: "json" };
 import type { ParsedYaml } from "./parseScenarioYaml.js";
 import { formatPath, type ScenarioIssue } from "./scenarioIssue.js";
 
-const ajv = new Ajv({ allErrors: true, strict: true, allowUnionTypes: false });
-const validate = ajv.compile(schema);
+import { SCENARIO_AJV_OPTIONS } from "../schema/scenarioAjvOptions.js";
+
+/**
+ * The compiled validator: the module precompiled at build time (dist/schema/scenarioValidator.cjs, CommonJS as ajv's standalone code requires its runtime helpers) when it exists,
+ * otherwise ajv compiles the same schema with the same options now (when running from the TypeScript sources).
+ */
+async function loadValidator(): Promise<ValidateFunction> {
+  const precompiled = "../schema/scenarioValidator.cjs";
+  try {
+    return (await import(precompiled)).default as ValidateFunction;
+  } catch (e) {
+    if ((e as NodeJS.ErrnoException).code !== "ERR_MODULE_NOT_FOUND") throw e;
+    const { Ajv } = await import("ajv");
+    return new Ajv(SCENARIO_AJV_OPTIONS).compile(schema);
+  }
+}
+const validate = await loadValidator();
 
 type SchemaNode = { properties?: Record<string, unknown>; $ref?: string; items?: SchemaNode };
 

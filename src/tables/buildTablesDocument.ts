@@ -30,7 +30,12 @@ function rows(columns: RedshiftColumns): RedshiftRow[] {
 
 function gridColumns(columns: RedshiftColumns): RedshiftGrid {
   const out: RedshiftGrid = {};
-  for (const key of REDSHIFT_COLUMN_KEYS) out[key] = Array.from(columns[key], (v) => (Number.isFinite(v) ? v : null));
+  for (const key of REDSHIFT_COLUMN_KEYS) {
+    const column = columns[key];
+    const values = new Array<Num>(column.length);
+    for (let i = 0; i < column.length; i++) values[i] = Number.isFinite(column[i]) ? column[i] : null;
+    out[key] = values;
+  }
   return out;
 }
 

@@ -20,7 +20,7 @@ const tmp = () => mkdtempSync(join(tmpdir(), "cosmoledger-test-"));
 
 beforeAll(() => {
   // The CLI runs compiled JavaScript: make sure dist/ is current.
-  const r = spawnSync("npx", ["tsc", "-p", "tsconfig.json"], { cwd: ROOT, encoding: "utf8" });
+  const r = spawnSync("npm", ["run", "-s", "build:ts"], { cwd: ROOT, encoding: "utf8" });
   if (r.status !== 0) throw new Error(r.stdout + r.stderr);
 }, 60_000);
 
