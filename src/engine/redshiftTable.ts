@@ -11,6 +11,8 @@ import { comovingVolumeWithin } from "./comovingVolume.js";
 export interface RedshiftColumns {
   z: Float64Array;
   H_km_s_Mpc: Float64Array;
+  /** H(z)/(1+z) = a' (the expansion speed of a comoving separation of 1 Mpc today), km/s/Mpc. */
+  H_over_1pz_km_s_Mpc: Float64Array;
   E: Float64Array;
   Omega_m_z: Float64Array;
   comoving_distance_Mpc: Float64Array;
@@ -30,7 +32,7 @@ export interface RedshiftColumns {
 }
 
 export const REDSHIFT_COLUMN_KEYS = [
-  "z", "H_km_s_Mpc", "E", "Omega_m_z", "comoving_distance_Mpc", "transverse_comoving_distance_Mpc",
+  "z", "H_km_s_Mpc", "H_over_1pz_km_s_Mpc", "E", "Omega_m_z", "comoving_distance_Mpc", "transverse_comoving_distance_Mpc",
   "angular_diameter_distance_Mpc", "luminosity_distance_Mpc", "distance_modulus_mag", "lookback_time_Gyr", "age_Gyr",
   "comoving_volume_Gpc3", "comoving_volume_element_Mpc3_sr", "kpc_per_arcsec_proper", "kpc_per_arcsec_comoving",
   "hubble_radius_Mpc", "particle_horizon_Mpc", "light_travel_distance_Gly",
@@ -52,7 +54,7 @@ export function redshiftTable(model: BackgroundModel, redshifts: ArrayLike<numbe
   const past = pastIntegrals(model, redshifts);
   const col = () => new Float64Array(n);
   const out: RedshiftColumns = {
-    z: col(), H_km_s_Mpc: col(), E: col(), Omega_m_z: col(), comoving_distance_Mpc: col(),
+    z: col(), H_km_s_Mpc: col(), H_over_1pz_km_s_Mpc: col(), E: col(), Omega_m_z: col(), comoving_distance_Mpc: col(),
     transverse_comoving_distance_Mpc: col(), angular_diameter_distance_Mpc: col(), luminosity_distance_Mpc: col(),
     distance_modulus_mag: col(), lookback_time_Gyr: col(), age_Gyr: col(), comoving_volume_Gpc3: col(),
     comoving_volume_element_Mpc3_sr: col(), kpc_per_arcsec_proper: col(), kpc_per_arcsec_comoving: col(),
@@ -71,6 +73,7 @@ export function redshiftTable(model: BackgroundModel, redshifts: ArrayLike<numbe
     const lookback = tH * past.lookback[i];
     out.z[i] = z;
     out.H_km_s_Mpc[i] = model.H0_km_s_Mpc * E;
+    out.H_over_1pz_km_s_Mpc[i] = model.H0_km_s_Mpc * E * a;
     out.E[i] = E;
     const zp1 = 1 + z;
     out.Omega_m_z[i] = (model.Omega_m * zp1 * zp1 * zp1) / E2;

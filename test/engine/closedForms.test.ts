@@ -20,6 +20,12 @@ describe("Einstein-de Sitter (Omega_m = 1, no radiation): closed forms", () => {
       expect(relErr(t.age_Gyr[i], (2 / 3) * tH * (1 + z) ** -1.5)).toBeLessThan(TOL);
     });
   });
+  it("H(z) = H0 (1+z)^(3/2) and H(z)/(1+z) = H0 (1+z)^(1/2) (closed form)", () => {
+    Z.forEach((z, i) => {
+      expect(relErr(t.H_km_s_Mpc[i], 70 * (1 + z) ** 1.5)).toBeLessThan(1e-14);
+      expect(relErr(t.H_over_1pz_km_s_Mpc[i], 70 * Math.sqrt(1 + z))).toBeLessThan(1e-14);
+    });
+  });
   it("particle horizon today 2 D_H; no event horizon; q0 = 1/2", () => {
     const s = backgroundSummary(m).summary;
     expect(relErr(s.particle_horizon_Mpc!, 2 * DH)).toBeLessThan(TOL);

@@ -1,0 +1,37 @@
+// Eleventy configuration: filters, passthrough copies, the tables documents as global data, and the folder layout.
+// Templates format the tables documents; every number they show was computed by the engine before Eleventy ran.
+import { HTML_FILTERS, TEXT_FILTERS } from "./dist/site/siteFilters.js";
+import { getSiteLedger, readLedger } from "./dist/site/siteLedger.js";
+import * as catalog from "./dist/site/quantityCatalog.js";
+import { CLOSURE_TEX, FRIEDMANN_TEX } from "./dist/site/renderMath.js";
+import { formatIssue } from "./dist/scenario/scenarioIssue.js";
+import { ENGINE_VERSION } from "./dist/engine/engineVersion.js";
+
+export default function (eleventyConfig) {
+  const scenariosDir = process.env.COSMOLEDGER_SCENARIOS ?? "scenarios";
+  eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, throwOnUndefined: false });
+  for (const [name, fn] of Object.entries({ ...TEXT_FILTERS, ...HTML_FILTERS })) eleventyConfig.addFilter(name, fn);
+
+  // `cosmoledger build` hands over the ledger it checked; `npm start` recomputes it on every rebuild.
+  eleventyConfig.addGlobalData("ledger", () => {
+    const ready = getSiteLedger();
+    if (ready) return ready;
+    const { ledger, issues } = readLedger(scenariosDir);
+    if (!ledger) throw new Error(issues.map(formatIssue).join("\n"));
+    return ledger;
+  });
+  eleventyConfig.addGlobalData("catalog", { ...catalog });
+  eleventyConfig.addGlobalData("tex", { friedmann: FRIEDMANN_TEX, closure: CLOSURE_TEX });
+  eleventyConfig.addGlobalData("tool", { name: "cosmoledger", engine: ENGINE_VERSION });
+  eleventyConfig.addWatchTarget(scenariosDir);
+
+  eleventyConfig.addPassthroughCopy({ "content/assets": "assets" });
+  eleventyConfig.addPassthroughCopy({ "node_modules/chart.js/dist/chart.umd.min.js": "assets/chart.umd.min.js" });
+
+  return {
+    // cosmoledger build renders into a temporary folder that it then swaps in (COSMOLEDGER_SITE_OUT).
+    dir: { input: "content", includes: "_includes", data: "_data", output: process.env.COSMOLEDGER_SITE_OUT ?? "_site" },
+    templateFormats: ["njk"],
+    htmlTemplateEngine: "njk",
+  };
+}

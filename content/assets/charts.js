@@ -1,0 +1,73 @@
+// Draws the scenario charts from the inline JSON data block with Chart.js (bundled with the site).
+// Display only: it plots the engine's numbers; "ratio to baseline" divides two plotted series.
+(function () {
+  "use strict";
+  var dataElement = document.getElementById("chart-data");
+  var diffToggle = document.getElementById("show-diffs");
+  if (diffToggle) {
+    diffToggle.addEventListener("change", function () { document.body.classList.toggle("hide-diffs", !diffToggle.checked); });
+  }
+  if (!dataElement || typeof Chart === "undefined") return;
+  var data = JSON.parse(dataElement.textContent);
+  // Our palette, with a line pattern per model so that greyscale prints still tell models apart.
+  var COLOURS = ["#0b6e69", "#c2571a", "#6a3d9a", "#7a8b1f", "#2f3e9e", "#a8324a", "#5d6d7e", "#b8860b"];
+  var DASHES = [[], [9, 4], [2, 3], [12, 3, 2, 3], [5, 5], [1, 2], [14, 4, 4, 4], [3, 6]];
+  Chart.defaults.animation = false;
+  Chart.defaults.font.family = "system-ui, 'DejaVu Sans', sans-serif";
+  Chart.defaults.color = "#1d232a";
+  var baseline = data.models.filter(function (m) { return m.id === data.baseline; })[0];
+  var byKey = {};
+  data.series.forEach(function (s) { byKey[s.key] = s; });
+  window.cosmoledgerCharts = {};
+
+  document.querySelectorAll("figure.chart").forEach(function (figure) {
+    var canvas = figure.querySelector("canvas");
+    var seriesInput = figure.querySelector("[data-series]");
+    var logInput = figure.querySelector("[data-log]");
+    var ratioInput = figure.querySelector("[data-ratio]");
+    function build() {
+      var key = seriesInput.value;
+      var ratio = ratioInput.checked;
+      var log = logInput.checked;
+      var base = baseline.values[key];
+      return data.models.map(function (m, i) {
+        var ys = m.values[key];
+        var points = [];
+        for (var j = 0; j < data.z.length; j++) {
+          var x = data.z[j];
+          if (log && !(x > 0)) continue;
+          var y = ys[j];
+          if (ratio) y = y === null || !base[j] ? null : y / base[j];
+          points.push({ x: x, y: y });
+        }
+        return { label: m.label, data: points, borderColor: COLOURS[i % COLOURS.length], backgroundColor: COLOURS[i % COLOURS.length],
+          borderDash: DASHES[i % DASHES.length], borderWidth: 2, pointRadius: 0, spanGaps: false, fill: false };
+      });
+    }
+    function yTitle() {
+      var s = byKey[seriesInput.value];
+      return ratioInput.checked ? s.label + " / baseline (" + data.baseline + ")" : s.label + (s.unit ? " [" + s.unit.replace("^3", "\u00b3") + "]" : "");
+    }
+    var chart = new Chart(canvas, {
+      type: "line",
+      data: { datasets: build() },
+      options: {
+        parsing: false, normalized: true, responsive: true, maintainAspectRatio: false,
+        interaction: { mode: "nearest", axis: "x", intersect: false },
+        scales: {
+          x: { type: logInput.checked ? "logarithmic" : "linear", title: { display: true, text: "redshift z" } },
+          y: { type: "linear", title: { display: true, text: yTitle() } },
+        },
+        plugins: { legend: { position: "bottom", labels: { usePointStyle: false, boxWidth: 36 } } },
+      },
+    });
+    function update() {
+      chart.data.datasets = build();
+      chart.options.scales.x.type = logInput.checked ? "logarithmic" : "linear";
+      chart.options.scales.y.title.text = yTitle();
+      chart.update();
+    }
+    [seriesInput, logInput, ratioInput].forEach(function (input) { if (input) input.addEventListener("change", update); });
+    window.cosmoledgerCharts[figure.getAttribute("data-chart")] = chart;
+  });
+})();

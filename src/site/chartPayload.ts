@@ -1,0 +1,26 @@
+import type { TablesDocument } from "../tables/tablesDocument.js";
+import { CHART_SERIES } from "./quantityCatalog.js";
+
+/** Plot points are drawn, not read: six significant figures are more than a screen resolves. */
+const round = (x: number | null) => (x === null ? null : Number(x.toPrecision(6)));
+
+/** The data the page's charts draw, taken from the grid of the tables document and rounded for size. */
+export function chartPayload(doc: TablesDocument) {
+  const z = doc.models[0].grid.z.map(round);
+  return {
+    baseline: doc.scenario.baseline,
+    z,
+    series: CHART_SERIES,
+    models: doc.models.map((m) => ({
+      id: m.id,
+      label: m.label,
+      values: Object.fromEntries(CHART_SERIES.map((s) => [s.key, m.grid[s.key].map(round)])),
+    })),
+  };
+}
+
+/** JSON safe to place inside a <script type="application/json"> element: <, > and & are escaped. */
+export function jsonForScriptElement(value: unknown): string {
+  return JSON.stringify(value).replace(/</g, "\\u003c").replace(/>/g, "\\u003e").replace(/&/g, "\\u0026")
+    .replace(/\u2028/g, "\\u2028").replace(/\u2029/g, "\\u2029");
+}
