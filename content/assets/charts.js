@@ -7,14 +7,35 @@
   if (diffToggle) {
     diffToggle.addEventListener("change", function () { document.body.classList.toggle("hide-diffs", !diffToggle.checked); });
   }
-  if (!dataElement || typeof Chart === "undefined") return;
-  var data = JSON.parse(dataElement.textContent);
+  if (typeof Chart === "undefined") return;
   // Our palette, with a line pattern per model so that greyscale prints still tell models apart.
   var COLOURS = ["#0b6e69", "#c2571a", "#6a3d9a", "#7a8b1f", "#2f3e9e", "#a8324a", "#5d6d7e", "#b8860b"];
   var DASHES = [[], [9, 4], [2, 3], [12, 3, 2, 3], [5, 5], [1, 2], [14, 4, 4, 4], [3, 6]];
   Chart.defaults.animation = false;
   Chart.defaults.font.family = "system-ui, 'DejaVu Sans', sans-serif";
   Chart.defaults.color = "#1d232a";
+  window.cosmoledgerCharts = {};
+
+  // Index: one small D_L(z) chart per scenario card.
+  var indexElement = document.getElementById("index-chart-data");
+  if (indexElement) {
+    JSON.parse(indexElement.textContent).forEach(function (scenario) {
+      var canvas = document.querySelector('canvas[data-mini="' + scenario.id + '"]');
+      if (!canvas) return;
+      window.cosmoledgerCharts[scenario.id] = new Chart(canvas, {
+        type: "line",
+        data: { datasets: scenario.models.map(function (m, i) {
+          return { label: m.label, data: scenario.z.map(function (z, j) { return { x: z, y: m.values[j] }; }),
+            borderColor: COLOURS[i % COLOURS.length], borderDash: DASHES[i % DASHES.length], borderWidth: 1.5, pointRadius: 0 };
+        }) },
+        options: { parsing: false, responsive: true, maintainAspectRatio: false,
+          scales: { x: { type: "linear", title: { display: true, text: "z" } }, y: { title: { display: true, text: "D_L [Mpc]" } } },
+          plugins: { legend: { display: false } } },
+      });
+    });
+  }
+  if (!dataElement) return;
+  var data = JSON.parse(dataElement.textContent);
   var baseline = data.models.filter(function (m) { return m.id === data.baseline; })[0];
   var byKey = {};
   data.series.forEach(function (s) { byKey[s.key] = s; });

@@ -1,5 +1,6 @@
 import { readFileSync } from "node:fs";
-import { join, relative, resolve, sep } from "node:path";
+import { join, sep } from "node:path";
+import { displayPath } from "./displayPath.js";
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError, formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
@@ -9,11 +10,6 @@ import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomic
 
 const PROGRESS_THRESHOLD = 3;
 
-/** A path as shown in messages and stored in documents: relative to the working folder, with forward slashes. */
-function displayPath(file: string): string {
-  const rel = relative(process.cwd(), resolve(file));
-  return (rel.startsWith("..") ? resolve(file) : rel).split(sep).join("/");
-}
 
 function loadAll(files: string[]): { scenarios: ResolvedScenario[]; issues: ScenarioIssue[] } {
   const scenarios: ResolvedScenario[] = [];

@@ -24,3 +24,17 @@ export function jsonForScriptElement(value: unknown): string {
   return JSON.stringify(value).replace(/</g, "\\u003c").replace(/>/g, "\\u003e").replace(/&/g, "\\u0026")
     .replace(/\u2028/g, "\\u2028").replace(/\u2029/g, "\\u2029");
 }
+
+/** The small overview chart of each scenario on the index: D_L against z, at most about 60 grid points. */
+export function indexChartPayload(docs: TablesDocument[]) {
+  return docs.map((doc) => {
+    const n = doc.models[0].grid.z.length;
+    const step = Math.max(1, Math.ceil(n / 60));
+    const pick = (xs: (number | null)[]) => xs.filter((_, i) => i % step === 0 || i === n - 1).map(round);
+    return {
+      id: doc.scenario.id,
+      z: pick(doc.models[0].grid.z),
+      models: doc.models.map((m) => ({ label: m.label, values: pick(m.grid.luminosity_distance_Mpc) })),
+    };
+  });
+}

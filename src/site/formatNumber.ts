@@ -1,7 +1,7 @@
 /** Significant digits shown on the pages: the engine is accurate to 1e-10, so all six are supported. */
 export const DISPLAY_DIGITS = 6;
 
-const SUPERSCRIPT: Record<string, string> = { "-": "\u2212", "0": "\u2070", "1": "\u00b9", "2": "\u00b2", "3": "\u00b3", "4": "\u2074", "5": "\u2075", "6": "\u2076", "7": "\u2077", "8": "\u2078", "9": "\u2079" };
+const SUPERSCRIPT: Record<string, string> = { "-": "\u207b", "0": "\u2070", "1": "\u00b9", "2": "\u00b2", "3": "\u00b3", "4": "\u2074", "5": "\u2075", "6": "\u2076", "7": "\u2077", "8": "\u2078", "9": "\u2079" };
 
 /**
  * A number rounded to `digits` significant figures, as plain text: fixed notation for 1e-3 <= |x| < 1e6,

@@ -1,7 +1,7 @@
 import { formatExact, formatNumber, formatPercent } from "./formatNumber.js";
 import { renderMarkdown } from "./renderMarkdown.js";
 import { renderMath } from "./renderMath.js";
-import { chartPayload, jsonForScriptElement } from "./chartPayload.js";
+import { chartPayload, indexChartPayload, jsonForScriptElement } from "./chartPayload.js";
 
 /** The Nunjucks filters of the site: formatting only. Filters marked html return markup (marked safe by the config). */
 export const TEXT_FILTERS = {
@@ -26,4 +26,6 @@ export const HTML_FILTERS = {
   math: (tex: string) => renderMath(tex, true),
   /** The chart data of a tables document as JSON for an inline data element. */
   chartJson: (doc: Parameters<typeof chartPayload>[0]) => jsonForScriptElement(chartPayload(doc)),
+  /** The index's overview charts of all scenarios as JSON for an inline data element. */
+  indexChartJson: (docs: Parameters<typeof indexChartPayload>[0]) => jsonForScriptElement(indexChartPayload(docs)),
 };

@@ -1,5 +1,6 @@
 import { readFileSync, readdirSync } from "node:fs";
-import { join, relative, sep } from "node:path";
+import { join } from "node:path";
+import { displayPath } from "../cli/displayPath.js";
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError, type ScenarioIssue } from "../scenario/scenarioIssue.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
@@ -26,7 +27,7 @@ export function readLedger(dir: string): { ledger: SiteLedger | null; issues: Sc
   const sources: Record<string, string> = {};
   const seen = new Map<string, string>();
   for (const file of scenarioFiles(dir)) {
-    const shown = relative(process.cwd(), file).split(sep).join("/");
+    const shown = displayPath(file);
     const text = readFileSync(file, "utf8");
     try {
       const scenario = loadScenario(text, shown);

@@ -6,6 +6,7 @@ import { join, resolve } from "node:path";
 import { Ajv } from "ajv";
 import { parse as parseCsv } from "csv-parse/sync";
 import tablesSchema from "../../src/schema/tables.schema.json" with { type: "json" };
+import { compileProject } from "../helpers/buildDemoSite.js";
 import { makeBackgroundModel, redshiftTable, hubbleDistanceMpc, MPC_CM, FULL_SKY_DEG2, REDSHIFT_COLUMN_KEYS } from "../../src/engine/index.js";
 
 const ROOT = resolve(import.meta.dirname, "../..");
@@ -18,11 +19,7 @@ function run(args: string[], cwd = ROOT) {
 }
 const tmp = () => mkdtempSync(join(tmpdir(), "cosmoledger-test-"));
 
-beforeAll(() => {
-  // The CLI runs compiled JavaScript: make sure dist/ is current.
-  const r = spawnSync("npm", ["run", "-s", "build:ts"], { cwd: ROOT, encoding: "utf8" });
-  if (r.status !== 0) throw new Error(r.stdout + r.stderr);
-}, 60_000);
+beforeAll(() => compileProject());
 
 describe("cosmoledger CLI on the demo scenarios", () => {
   it("check accepts every demo file", () => {

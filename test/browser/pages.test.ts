@@ -1,0 +1,141 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { spawnSync } from "node:child_process";
+import { createServer, type Server } from "node:http";
+import { mkdirSync, readFileSync, existsSync, writeFileSync, statSync } from "node:fs";
+import { extname, join, resolve } from "node:path";
+import type { BrowserContext, Page } from "playwright-core";
+import { HOSTILE_SCENARIO, ROOT, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
+
+// Browser tests: playwright-core driving Debian's chromium (apt-get install -y chromium). Without it they are
+// skipped, and say so; .ci/run sets COSMOLEDGER_REQUIRE_BROWSER=1, which turns a missing browser into a failure.
+const chromiumPath = spawnSync("sh", ["-c", "command -v chromium"], { encoding: "utf8" }).stdout.trim();
+const required = process.env.COSMOLEDGER_REQUIRE_BROWSER === "1";
+if (!chromiumPath) {
+  const message = "browser tests SKIPPED: chromium not found (install it with: apt-get install -y chromium)";
+  if (!required) console.warn(message);
+}
+const SHOTS = join(ROOT, "test-output", "screenshots");
+
+if (!chromiumPath && required) {
+  describe("browser requirement", () => {
+    it("chromium must be installed when COSMOLEDGER_REQUIRE_BROWSER=1", () => {
+      expect(chromiumPath, "chromium not found; .ci/run must install it").not.toBe("");
+    });
+  });
+}
+
+describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
+  let site: string;
+  let hostileSite: string;
+  let server: Server;
+  let base: string;
+  let context: BrowserContext;
+
+  beforeAll(async () => {
+    compileProject();
+    const dir = tempDir();
+    site = join(dir, "site");
+    let r = runCli(["build", "--out", site, "--quiet"]);
+    if (r.code !== 0) throw new Error(r.stderr);
+    mkdirSync(join(dir, "hostile-scenarios"));
+    writeFileSync(join(dir, "hostile-scenarios", "hostile.yaml"), HOSTILE_SCENARIO);
+    hostileSite = join(dir, "hostile-site");
+    r = runCli(["build", "--scenarios", join(dir, "hostile-scenarios"), "--out", hostileSite, "--quiet"]);
+    if (r.code !== 0) throw new Error(r.stderr);
+    // A static file server on the loopback address only.
+    const types: Record<string, string> = { ".html": "text/html", ".js": "text/javascript", ".css": "text/css", ".json": "application/json", ".csv": "text/csv" };
+    server = createServer((req, res) => {
+      const url = new URL(req.url ?? "/", "http://127.0.0.1");
+      let file = resolve(site, "." + decodeURIComponent(url.pathname));
+      if (!file.startsWith(site)) { res.writeHead(403).end(); return; }
+      if (existsSync(file) && statSync(file).isDirectory()) file = join(file, "index.html");
+      if (!existsSync(file)) { res.writeHead(404).end(); return; }
+      res.writeHead(200, { "content-type": types[extname(file)] ?? "application/octet-stream" }).end(readFileSync(file));
+    });
+    await new Promise<void>((ok) => server.listen(0, "127.0.0.1", ok));
+    const address = server.address();
+    base = `http://127.0.0.1:${typeof address === "object" && address ? address.port : 0}`;
+    const { chromium } = await import("playwright-core");
+    context = await chromium.launchPersistentContext(tempDir("cosmoledger-chromium-"), {
+      executablePath: chromiumPath, headless: true, viewport: { width: 1280, height: 900 },
+      args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
+    });
+    mkdirSync(SHOTS, { recursive: true });
+  }, 180_000);
+
+  afterAll(async () => {
+    await context?.close();
+    await new Promise((ok) => server?.close(ok));
+  });
+
+  /** Opens a page and collects console errors, page errors, failed requests and HTTP errors. */
+  async function open(url: string): Promise<{ page: Page; problems: string[] }> {
+    const page = await context.newPage();
+    const problems: string[] = [];
+    page.on("console", (m) => { if (m.type() === "error") problems.push(`console: ${m.text()}`); });
+    page.on("pageerror", (e) => problems.push(`page error: ${e.message}`));
+    page.on("requestfailed", (r) => problems.push(`request failed: ${r.url()}`));
+    page.on("response", (r) => { if (r.status() >= 400) problems.push(`HTTP ${r.status()}: ${r.url()}`); });
+    page.on("dialog", (d) => { problems.push(`dialog: ${d.message()}`); void d.dismiss(); });
+    await page.goto(url, { waitUntil: "load" });
+    return { page, problems };
+  }
+
+  /** Number of canvas pixels with any opacity, per canvas on the page. */
+  const drawnPixels = (page: Page) => page.evaluate(() => [...document.querySelectorAll("canvas")].map((c) => {
+    const d = (c as HTMLCanvasElement).getContext("2d")!.getImageData(0, 0, (c as HTMLCanvasElement).width, (c as HTMLCanvasElement).height).data;
+    let n = 0;
+    for (let i = 3; i < d.length; i += 4) if (d[i] !== 0) n++;
+    return n;
+  }));
+
+  it("every page loads with no console error and no failed request, and every chart canvas has drawn pixels", async () => {
+    for (const path of ["/index.html", "/lantern-deep-field/index.html", "/harbor-lights-census/index.html", "/tidewater-geometry/index.html"]) {
+      const { page, problems } = await open(base + path);
+      expect(problems, path).toEqual([]);
+      const pixels = await drawnPixels(page);
+      expect(pixels.length, path).toBeGreaterThan(0);
+      for (const n of pixels) expect(n, path).toBeGreaterThan(2000);
+      await page.screenshot({ path: join(SHOTS, path.replace(/\//g, "_").replace(/^_/, "") + ".png"), fullPage: path === "/index.html" });
+      await page.close();
+    }
+  }, 120_000);
+
+  it("the log/linear control changes the chart", async () => {
+    const { page, problems } = await open(base + "/lantern-deep-field/index.html");
+    const figure = page.locator('figure[data-chart="distances"]');
+    await figure.scrollIntoViewIfNeeded();
+    const type = () => page.evaluate(() => (window as any).cosmoledgerCharts.distances.scales.x.type);
+    const picture = () => figure.locator("canvas").evaluate((c) => (c as HTMLCanvasElement).toDataURL());
+    expect(await type()).toBe("logarithmic");
+    const before = await picture();
+    await figure.locator("[data-log]").uncheck();
+    expect(await type()).toBe("linear");
+    expect(await picture()).not.toBe(before);
+    await figure.locator("[data-ratio]").check();
+    expect(await page.evaluate(() => (window as any).cosmoledgerCharts.distances.options.scales.y.title.text)).toMatch(/\/ baseline/);
+    await page.screenshot({ path: join(SHOTS, "distances-linear-ratio.png") });
+    expect(problems).toEqual([]);
+    await page.close();
+  }, 60_000);
+
+  it("the hostile scenario runs no script", async () => {
+    const { page, problems } = await open("file://" + join(hostileSite, "hostile", "index.html"));
+    await page.mouse.move(100, 200);
+    await page.waitForTimeout(300);
+    expect(await page.evaluate(() => (window as any).__pwned)).toBeUndefined();
+    expect(problems.filter((p) => p.startsWith("dialog") || p.startsWith("page error"))).toEqual([]);
+    expect(await page.locator("h1").textContent()).toContain("<script>");
+    await page.screenshot({ path: join(SHOTS, "hostile.png") });
+    await page.close();
+  }, 60_000);
+
+  it("the index opened via file:// draws its charts, with no network at all", async () => {
+    const { page, problems } = await open("file://" + join(site, "index.html"));
+    const pixels = await drawnPixels(page);
+    expect(pixels.length).toBe(3);
+    for (const n of pixels) expect(n).toBeGreaterThan(2000);
+    expect(problems).toEqual([]);
+    await page.close();
+  }, 60_000);
+});

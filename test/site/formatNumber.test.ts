@@ -1,0 +1,30 @@
+import { describe, expect, it } from "vitest";
+import { formatExact, formatNumber, formatPercent } from "../../src/site/formatNumber.js";
+
+// Rounding to significant figures as defined by ECMAScript Number.prototype.toPrecision (ECMA-262).
+describe("number formatting on the pages", () => {
+  it("six significant figures in fixed notation between 1e-3 and 1e6", () => {
+    expect(formatNumber(1234.56789)).toBe("1234.57");
+    expect(formatNumber(0.00123456789)).toBe("0.00123457");
+    expect(formatNumber(-0.5)).toBe("\u22120.500000");
+    expect(formatNumber(0)).toBe("0");
+  });
+  it("scientific notation with a superscript exponent outside that range", () => {
+    expect(formatNumber(2.876276e10)).toBe("2.87628 \u00d7 10\u00b9\u2070");
+    expect(formatNumber(8.9924e-5)).toBe("8.99240 \u00d7 10\u207b\u2075");
+  });
+  it("null and non-finite values print as an em dash", () => {
+    expect(formatNumber(null)).toBe("\u2014");
+    expect(formatNumber(Infinity)).toBe("\u2014");
+  });
+  it("percentages carry a sign and three significant figures", () => {
+    expect(formatPercent(0.012345)).toBe("+1.23 %");
+    expect(formatPercent(-0.0911)).toBe("\u22129.11 %");
+    expect(formatPercent(0)).toBe("0 %");
+  });
+  it("inputs print exactly as given", () => {
+    expect(formatExact(68.2)).toBe("68.2");
+    expect(formatExact(-1)).toBe("\u22121");
+    expect(formatExact(1e-10)).toBe("1 \u00d7 10\u207b\u00b9\u2070");
+  });
+});
