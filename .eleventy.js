@@ -6,6 +6,9 @@ import * as catalog from "./dist/site/quantityCatalog.js";
 import { CLOSURE_TEX, FRIEDMANN_TEX } from "./dist/site/renderMath.js";
 import { formatIssue } from "./dist/scenario/scenarioIssue.js";
 import { ENGINE_VERSION } from "./dist/engine/engineVersion.js";
+import { SITE_MARKER } from "./dist/cli/siteMarker.js";
+import { writeFileSync } from "node:fs";
+import { join } from "node:path";
 
 export default function (eleventyConfig) {
   const scenariosDir = process.env.COSMOLEDGER_SCENARIOS ?? "scenarios";
@@ -24,6 +27,10 @@ export default function (eleventyConfig) {
   eleventyConfig.addGlobalData("tex", { friedmann: FRIEDMANN_TEX, closure: CLOSURE_TEX });
   eleventyConfig.addGlobalData("tool", { name: "cosmoledger", engine: ENGINE_VERSION });
   eleventyConfig.addWatchTarget(scenariosDir);
+  // Mark the output as ours, so that `cosmoledger build` may replace a folder that `npm start` wrote.
+  eleventyConfig.on("eleventy.after", ({ dir }) => {
+    writeFileSync(join(dir.output, SITE_MARKER), "Built by cosmoledger; this folder is replaced by the next build.\n");
+  });
 
   eleventyConfig.addPassthroughCopy({ "content/assets": "assets" });
   eleventyConfig.addPassthroughCopy({ "node_modules/chart.js/dist/chart.umd.min.js": "assets/chart.umd.min.js" });

@@ -1,6 +1,7 @@
 // npm run bench: prints the figures; never asserts on time. The last line is one JSON object.
 import { runEngineBench } from "./engine.js";
 import { runComputeBench } from "./compute.js";
+import { runSiteBench } from "./site.js";
 
 const engine = runEngineBench();
 console.log(`engine: ${engine.points} points (8 models x 2000 redshifts, z 0..20, all per-redshift quantities)`);
@@ -10,7 +11,11 @@ const cli = runComputeBench();
 console.log(`cli: bare node start-up ${cli.nodeStartMs.toFixed(0)} ms`);
 console.log(`  --help ${cli.helpMs.toFixed(0)} ms (${(cli.helpMs - cli.nodeStartMs).toFixed(0)} ms beyond node)`);
 console.log(`  compute, 8 models x (2000 grid + 20 table redshifts): ${cli.computeMs.toFixed(0)} ms (${(cli.computeMs - cli.nodeStartMs).toFixed(0)} ms beyond node)`);
+const site = runSiteBench();
+site.sizes.forEach((n, i) => console.log(`site: ${n} generated scenarios x 4 models: ${site.seconds[i].toFixed(2)} s (${(1000 * site.seconds[i] / n).toFixed(1)} ms per scenario page)`));
+console.log(`  largest demo scenario page (HTML with inline chart data, without Chart.js): ${site.maxPageKB.toFixed(0)} KB`);
 console.log(JSON.stringify({
   points: engine.points, ms: Number(engine.ms.toFixed(3)), max_rel_error: engine.maxRelError,
   help_ms_beyond_node: Number((cli.helpMs - cli.nodeStartMs).toFixed(1)), compute_ms_beyond_node: Number((cli.computeMs - cli.nodeStartMs).toFixed(1)),
+  site_200_s: Number(site.seconds[2].toFixed(2)), max_page_kb: Number(site.maxPageKB.toFixed(1)),
 }));

@@ -1,11 +1,10 @@
-import { existsSync, mkdirSync, readdirSync, renameSync, rmSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, readdirSync, renameSync, rmSync } from "node:fs";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { readLedger, setSiteLedger } from "../site/siteLedger.js";
 import { formatIssue } from "../scenario/scenarioIssue.js";
 
-/** Marker file that says a site folder was written by cosmoledger build and may be replaced by it. */
-export const SITE_MARKER = ".cosmoledger-site";
+import { SITE_MARKER } from "./siteMarker.js";
 
 /** The package root (where .eleventy.js and content/ live), from dist/cli/. */
 const PACKAGE_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), "../..");
@@ -48,7 +47,7 @@ export async function buildSite(scenariosDir: string, outDir: string, quiet: boo
     process.env.COSMOLEDGER_SITE_OUT = tmp;
     const eleventy = new Eleventy("content", tmp, { configPath: ".eleventy.js", quietMode: true });
     await eleventy.write();
-    writeFileSync(join(tmp, SITE_MARKER), "Built by cosmoledger build; this folder is replaced by the next build.\n");
+    if (!existsSync(join(tmp, SITE_MARKER))) throw new Error("Eleventy finished without writing the site marker");
   } catch (e) {
     rmSync(tmp, { recursive: true, force: true });
     throw e;
