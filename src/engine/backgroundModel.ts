@@ -1,5 +1,7 @@
 import { photonDensityParameter } from "./photonDensityParameter.js";
 import { masslessNeutrinoDensityParameter } from "./masslessNeutrinoDensityParameter.js";
+import { CONSTANTS } from "./constants.js";
+import { lnEnergyRatio } from "./fermiDiracEnergy.js";
 
 /** |Omega_k| at or below this is treated as exactly flat (Omega_k set to 0). */
 export const FLATNESS_THRESHOLD = 1e-12;
@@ -17,22 +19,48 @@ export type CurvatureSpec = { kind: "flat" } | { kind: "Omega_k"; Omega_k: numbe
 /** Radiation: photons at T_cmb plus N_eff massless neutrino species, or none at all. */
 export type RadiationSpec = { T_cmb_K: number; N_eff: number } | null;
 
+/** Baryon density today, as a fraction of critical or as the physical density omega_b = Omega_b h^2. */
+export type BaryonSpec = { Omega_b: number } | { omega_b: number } | null;
+
 export interface BackgroundModelInput {
   H0_km_s_Mpc: number;
+  /** All non-relativistic matter today, massive neutrinos included. */
   Omega_m: number;
   curvature: CurvatureSpec;
   w0: number;
   wa: number;
   radiation: RadiationSpec;
+  baryons?: BaryonSpec;
+  /** Masses of the massive neutrino species in eV (at most 3; zeros count as massless). */
+  m_nu_eV?: readonly number[];
+}
+
+/** One massive neutrino species: its massless-equivalent density today and ln y0 = ln(m c^2 / k T_nu0). */
+export interface MassiveNeutrino {
+  readonly m_eV: number;
+  /** (N_eff/3) (7/8) (4/11)^(4/3) Omega_gamma: the density it would have today if it were massless. */
+  readonly Omega_rel: number;
+  readonly lnY0: number;
 }
 
 /** A fully resolved FLRW background: every density parameter today, closure applied. */
 export interface BackgroundModel {
   readonly H0_km_s_Mpc: number;
+  /** All non-relativistic matter today: Omega_cb + Omega_nu_massive. */
   readonly Omega_m: number;
+  /** Cold dark matter plus baryons: the part that scales exactly as a^-3. */
+  readonly Omega_cb: number;
+  /** Baryons today, or null when not given. */
+  readonly Omega_b: number | null;
   readonly Omega_gamma: number;
+  /** Massless neutrino species today. */
   readonly Omega_nu: number;
-  /** Omega_gamma + Omega_nu: the radiation density today. */
+  /** Massive neutrino species today (exact Fermi-Dirac density). */
+  readonly Omega_nu_massive: number;
+  readonly massiveNeutrinos: readonly MassiveNeutrino[];
+  /** Neutrino temperature today (4/11)^(1/3) T_cmb, K; null without radiation. */
+  readonly T_nu_K: number | null;
+  /** Omega_gamma + Omega_nu: the radiation that is relativistic today (used in closure). */
   readonly Omega_r: number;
   readonly Omega_de: number;
   /** Exactly 0 when |1 - Omega_m - Omega_r - Omega_de| <= FLATNESS_THRESHOLD. */
@@ -49,7 +77,27 @@ export interface BackgroundModel {
 export function makeBackgroundModel(input: BackgroundModelInput): BackgroundModel {
   const { H0_km_s_Mpc, Omega_m, w0, wa, radiation } = input;
   const Omega_gamma = radiation ? photonDensityParameter(radiation.T_cmb_K, H0_km_s_Mpc) : 0;
-  const Omega_nu = radiation ? masslessNeutrinoDensityParameter(radiation.N_eff, Omega_gamma) : 0;
+  const masses = (input.m_nu_eV ?? []).filter((m) => m > 0);
+  if (masses.length > 3) throw new RangeError("at most three neutrino species can be massive");
+  if (masses.length > 0 && !radiation) throw new RangeError("massive neutrinos need thermal radiation (their temperature follows T_cmb)");
+  // Convention: each massive species carries N_eff/3 of the early relativistic neutrino density, at temperature
+  // T_nu = (4/11)^(1/3) T_cmb (instantaneous decoupling), and turns non-relativistic following the exact
+  // Fermi-Dirac energy integral. The massless species share the rest.
+  const perSpecies = radiation ? masslessNeutrinoDensityParameter(radiation.N_eff / 3, Omega_gamma) : 0;
+  const Omega_nu = radiation ? perSpecies * (3 - masses.length) : 0;
+  const T_nu_K = radiation ? Math.cbrt(4 / 11) * radiation.T_cmb_K : null;
+  const massiveNeutrinos: MassiveNeutrino[] = masses.map((m) => ({
+    m_eV: m,
+    Omega_rel: perSpecies,
+    lnY0: Math.log((m * CONSTANTS.electron_volt.value) / (CONSTANTS.boltzmann_constant.value * T_nu_K!)),
+  }));
+  const Omega_nu_massive = massiveNeutrinos.reduce((sum, n) => sum + n.Omega_rel * Math.exp(lnEnergyRatio(n.lnY0)), 0);
+  const Omega_cb = Omega_m - Omega_nu_massive;
+  if (Omega_cb < 0) throw new RangeError(`Omega_m = ${Omega_m} is smaller than the massive-neutrino density ${Omega_nu_massive.toPrecision(4)}`);
+  const h = H0_km_s_Mpc / 100;
+  const b = input.baryons ?? null;
+  const Omega_b = b === null ? null : "Omega_b" in b ? b.Omega_b : b.omega_b / (h * h);
+  if (Omega_b !== null && Omega_b > Omega_cb) throw new RangeError(`Omega_b = ${Omega_b.toPrecision(6)} exceeds the cold matter plus baryons ${Omega_cb.toPrecision(6)}`);
   const Omega_r = Omega_gamma + Omega_nu;
   let Omega_de: number;
   let Omega_k: number;
@@ -72,8 +120,13 @@ export function makeBackgroundModel(input: BackgroundModelInput): BackgroundMode
   return {
     H0_km_s_Mpc,
     Omega_m,
+    Omega_cb,
+    Omega_b,
     Omega_gamma,
     Omega_nu,
+    Omega_nu_massive,
+    massiveNeutrinos,
+    T_nu_K,
     Omega_r,
     Omega_de,
     Omega_k,

@@ -1,4 +1,5 @@
 import type { BackgroundModel } from "./backgroundModel.js";
+import { FD_ENERGY_MASSLESS, FD_NUMBER } from "./fermiDiracEnergy.js";
 
 /** The term of E^2(a) that dominates as a -> 0 or a -> infinity: E^2 ~ coefficient * a^(-power). */
 export interface DominantTerm {
@@ -19,7 +20,11 @@ function snap(power: number): number {
 function terms(model: BackgroundModel, late: boolean): Term[] {
   const out: Term[] = [];
   if (model.Omega_r !== 0) out.push({ power: 4, coefficient: model.Omega_r });
-  if (model.Omega_m !== 0) out.push({ power: 3, coefficient: model.Omega_m });
+  if (model.Omega_cb !== 0) out.push({ power: 3, coefficient: model.Omega_cb });
+  // Massive neutrinos: radiation (a^-4, massless-equivalent density) early, matter (a^-3) late.
+  for (const n of model.massiveNeutrinos) {
+    out.push(late ? { power: 3, coefficient: n.Omega_rel * (FD_NUMBER / FD_ENERGY_MASSLESS) * Math.exp(n.lnY0) } : { power: 4, coefficient: n.Omega_rel });
+  }
   if (model.Omega_k !== 0) out.push({ power: 2, coefficient: model.Omega_k });
   if (model.Omega_de !== 0) {
     const { w0, wa } = model;

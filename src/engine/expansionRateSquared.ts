@@ -1,13 +1,20 @@
 import type { BackgroundModel } from "./backgroundModel.js";
+import { massiveNeutrinoDensity } from "./massiveNeutrinoDensity.js";
 
 /**
- * E^2(a) = (H/H0)^2 = Omega_r a^-4 + Omega_m a^-3 + Omega_k a^-2 + Omega_de rho_de(a)/rho_de(1)
+ * E^2(a) = (H/H0)^2 = Omega_r a^-4 + Omega_cb a^-3 + Omega_k a^-2 + Omega_de rho_de(a)/rho_de(1) + rho_nu,massive(a)
  * (Friedmann equation; CPL dark energy, Chevallier & Polarski 2001, Linder 2003), as a function specialised
  * to the model so that the hot loops pay for pow/exp only when the dark energy needs them.
  */
 export function expansionRateSquared(model: BackgroundModel): (a: number) => number {
+  const base = withoutMassiveNeutrinos(model);
+  if (model.massiveNeutrinos.length === 0) return base;
+  return (a) => base(a) + massiveNeutrinoDensity(model, a);
+}
+
+function withoutMassiveNeutrinos(model: BackgroundModel): (a: number) => number {
   const r = model.Omega_r;
-  const m = model.Omega_m;
+  const m = model.Omega_cb;
   const k = model.Omega_k;
   const de = model.Omega_de;
   const { w0, wa } = model;

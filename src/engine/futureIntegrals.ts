@@ -3,6 +3,7 @@ import { expansionRateSquared } from "./expansionRateSquared.js";
 import { dominantTermLate } from "./dominantTerm.js";
 import { GaussKronrodIntegrator } from "./gaussKronrod.js";
 import { PANEL_REL_TOL } from "./pastIntegrals.js";
+import { energyRatioSlope, lnEnergyRatio } from "./fermiDiracEnergy.js";
 
 /** Integrals from today to the future, in units of t_H and D_H. */
 export interface FutureIntegrals {
@@ -42,7 +43,7 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
     const k = p > 0 ? 2 / (2 - p) : 1;
     const vPower = k - 1 - (k * p) / 2;
     const terms: [number, number][] = [
-      [model.Omega_r, 4], [model.Omega_m, 3], [model.Omega_k, 2],
+      [model.Omega_r, 4], [model.Omega_cb, 3], [model.Omega_k, 2],
       [model.Omega_de, 3 * (1 + model.w0)],
     ];
     const live = terms.filter(([c]) => c !== 0).map(([c, pi]) => [c, (pi - p) * k] as [number, number]);
@@ -51,6 +52,8 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
         const lnv = Math.log(v);
         let S = 0;
         for (const [c, q] of live) S += q === 0 ? c : c * Math.exp(q * lnv);
+        // Massive neutrinos: Omega_rel u^(4-p) R(y0/u), summed in logarithms.
+        for (const nu of model.massiveNeutrinos) S += nu.Omega_rel * Math.exp((4 - p) * k * lnv + lnEnergyRatio(nu.lnY0 - k * lnv));
         out[0] = (vPower === 0 ? k : k * Math.exp(vPower * lnv)) / Math.sqrt(S);
       },
       0, 1, PANEL_REL_TOL, 0, v1, err1,
@@ -94,8 +97,13 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
  * relative precision as v -> 0 instead of cancelling terms of order one (Friedmann equation; E^2(a_max) = 0).
  */
 function expansionRateSquaredBelowTurnaround(model: BackgroundModel, aMax: number): (v: number) => number {
-  const { Omega_r, Omega_m, Omega_k, Omega_de, w0, wa } = model;
-  const powers: [number, number][] = [[Omega_r, 4], [Omega_m, 3], [Omega_k, 2]];
+  const { Omega_r, Omega_cb, Omega_k, Omega_de, w0, wa } = model;
+  const powers: [number, number][] = [[Omega_r, 4], [Omega_cb, 3], [Omega_k, 2]];
+  const lnAMax = Math.log(aMax);
+  const nus = model.massiveNeutrinos.map((n) => {
+    const x = n.lnY0 + lnAMax;
+    return { x, atMax: n.Omega_rel * Math.exp(lnEnergyRatio(x) - 4 * lnAMax) };
+  });
   const live = powers.filter(([c]) => c !== 0).map(([c, p]) => [c * Math.pow(aMax, -p), p] as [number, number]);
   const fMax = Omega_de === 0 ? 0 : Omega_de * Math.exp(-3 * (1 + w0 + wa) * Math.log(aMax) - 3 * wa * (1 - aMax));
   return (v) => {
@@ -104,6 +112,11 @@ function expansionRateSquaredBelowTurnaround(model: BackgroundModel, aMax: numbe
     let sum = 0;
     for (const [c, p] of live) sum += c * Math.expm1(-p * L);
     if (fMax !== 0) sum += fMax * Math.expm1(-3 * (1 + w0 + wa) * L - 3 * wa * v2);
+    for (const n of nus) {
+      // ln R(x + L) - ln R(x); for tiny L the midpoint slope avoids the cancellation (error O(L^3)).
+      const dLnR = Math.abs(L) < 1e-4 ? L * energyRatioSlope(n.x + L / 2) : lnEnergyRatio(n.x + L) - lnEnergyRatio(n.x);
+      sum += n.atMax * Math.expm1(-4 * L + dLnR);
+    }
     return sum;
   };
 }

@@ -22,3 +22,7 @@ export * from "./noBigBangError.js";
 export * from "./engineVersion.js";
 export { GaussKronrodIntegrator, integrateScalar, QuadratureError } from "./gaussKronrod.js";
 export { brentRoot } from "./brentRoot.js";
+export * from "./earlyUniverse.js";
+export * from "./massiveNeutrinoDensity.js";
+export * from "./fermiDiracEnergy.js";
+export * from "./baoRatios.js";

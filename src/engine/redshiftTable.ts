@@ -6,6 +6,7 @@ import { expansionRateSquared } from "./expansionRateSquared.js";
 import { pastIntegrals } from "./pastIntegrals.js";
 import { transverseComovingDistance } from "./transverseComovingDistance.js";
 import { comovingVolumeWithin } from "./comovingVolume.js";
+import { massiveNeutrinoParts } from "./massiveNeutrinoDensity.js";
 
 /** Per-redshift quantities as columns aligned with the input redshifts. NaN marks a value that is undefined. */
 export interface RedshiftColumns {
@@ -61,6 +62,7 @@ export function redshiftTable(model: BackgroundModel, redshifts: ArrayLike<numbe
     hubble_radius_Mpc: col(), particle_horizon_Mpc: col(), light_travel_distance_Gly: col(),
   };
   const kpcPerMpcArcsec = 1000 * ARCSEC_RAD;
+  const hasNu = model.massiveNeutrinos.length > 0;
   for (let i = 0; i < n; i++) {
     const z = redshifts[i];
     const a = 1 / (1 + z);
@@ -76,7 +78,9 @@ export function redshiftTable(model: BackgroundModel, redshifts: ArrayLike<numbe
     out.H_over_1pz_km_s_Mpc[i] = model.H0_km_s_Mpc * E * a;
     out.E[i] = E;
     const zp1 = 1 + z;
-    out.Omega_m_z[i] = (model.Omega_m * zp1 * zp1 * zp1) / E2;
+    // Matter: cold matter and baryons plus the non-relativistic part rho - 3p of massive neutrinos.
+    const nu = hasNu ? massiveNeutrinoParts(model, a) : null;
+    out.Omega_m_z[i] = (model.Omega_cb * zp1 * zp1 * zp1 + (nu ? nu.rho - nu.threeP : 0)) / E2;
     out.comoving_distance_Mpc[i] = DC;
     out.transverse_comoving_distance_Mpc[i] = DM;
     out.angular_diameter_distance_Mpc[i] = DA;

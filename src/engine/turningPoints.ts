@@ -1,6 +1,7 @@
 import type { BackgroundModel } from "./backgroundModel.js";
 import { dominantTermEarly, dominantTermLate } from "./dominantTerm.js";
 import { brentRoot } from "./brentRoot.js";
+import { FD_ENERGY_MASSLESS, FD_NUMBER, lnEnergyRatio } from "./fermiDiracEnergy.js";
 
 // ln a ranges scanned for E^2 = 0. The scan works with E^2 divided by the magnitude of its asymptotically dominant
 // term (same sign as E^2), so it neither overflows nor underflows however far it goes.
@@ -11,7 +12,7 @@ const STEP_NEAR = 0.005;
 const STEP_FAR = 0.05;
 
 interface Scaled {
-  /** The terms of a^n E^2 exp(-x a) at a = e^u, the asymptotically dominant one first. */
+  /** The terms of a^n E^2 exp(-x a) at a = e^u: radiation, matter, curvature, dark energy, massive neutrinos. */
   terms(u: number, out: Float64Array): void;
   /** ln a beyond which every other term's share of the dominant one only shrinks. */
   settled: number;
@@ -22,7 +23,8 @@ interface Scaled {
  * with n the power of the dominant term and x = 3 wa when a super-exponential CPL term dominates late.
  */
 function scaled(model: BackgroundModel, late: boolean): Scaled {
-  const { Omega_r: r, Omega_m: m, Omega_k: k, Omega_de: de, w0, wa } = model;
+  const { Omega_r: r, Omega_cb: m, Omega_k: k, Omega_de: de, w0, wa } = model;
+  const nus = model.massiveNeutrinos;
   const dom = late ? dominantTermLate(model) : dominantTermEarly(model);
   const n = Number.isFinite(dom.power) ? dom.power : 2;
   const x = late && wa > 0 && de !== 0 ? 3 * wa : 0;
@@ -44,6 +46,9 @@ function scaled(model: BackgroundModel, late: boolean): Scaled {
       out[1] = m === 0 ? 0 : m * Math.exp((n - 3) * u - xa);
       out[2] = k === 0 ? 0 : k * Math.exp((n - 2) * u - xa);
       out[3] = de === 0 ? 0 : de * Math.exp((p + n) * u - 3 * wa * (1 - a) - xa);
+      let nu = 0;
+      for (const v of nus) nu += v.Omega_rel * Math.exp((n - 4) * u + lnEnergyRatio(v.lnY0 + u) - xa);
+      out[4] = nu;
     },
   };
 }
@@ -57,8 +62,15 @@ function scanForZero(model: BackgroundModel, far: number): number | null {
   const late = far > 0;
   const s = scaled(model, late);
   const dom = late ? dominantTermLate(model) : dominantTermEarly(model);
-  const t = new Float64Array(4);
-  const g = (u: number) => { s.terms(u, t); return t[0] + t[1] + t[2] + t[3]; };
+  const t = new Float64Array(5);
+  const g = (u: number) => { s.terms(u, t); return t[0] + t[1] + t[2] + t[3] + t[4]; };
+  // Lower bound of the scaled neutrino term when it shares the dominant power: R(y) >= 1 (early, a^-4) and
+  // R(y) >= y (3 zeta(3)/2)/F(0) (late, a^-3), since sqrt(x^2 + y^2) >= max(x, y).
+  let nuFloor = 0;
+  for (const v of model.massiveNeutrinos) {
+    if (!late && dom.power === 4) nuFloor += v.Omega_rel;
+    if (late && dom.power === 3) nuFloor += v.Omega_rel * (FD_NUMBER / FD_ENERGY_MASSLESS) * Math.exp(v.lnY0);
+  }
   const dir = late ? 1 : -1;
   let uPrev = 0;
   for (let i = 1; ; i++) {
@@ -66,19 +78,20 @@ function scanForZero(model: BackgroundModel, far: number): number | null {
     const u = near ? dir * i * STEP_NEAR : dir * (NEAR + (i - NEAR / STEP_NEAR) * STEP_FAR);
     if (dir * u > dir * far) return null;
     s.terms(u, t);
-    const v = t[0] + t[1] + t[2] + t[3];
+    const v = t[0] + t[1] + t[2] + t[3] + t[4];
     if (!(v > 0)) return v === 0 ? u : Number.isNaN(v) ? null : brentRoot(g, uPrev, u, 0);
     uPrev = u;
     if (dom.coefficient > 0 && dir * u > dir * s.settled) {
-      // The dominant term is the sum of the terms with its power: compare it with the rest.
-      let domPart = 0;
-      let rest = 0;
+      // E^2 >= (terms of the dominant power, constant in this scaling) - |negative other terms|, and the negative
+      // terms' shares only shrink from here: once the first is four times the second, no zero lies ahead.
+      let domPart = nuFloor;
+      let negative = 0;
       const powers = [4, 3, 2, NaN];
       for (let j = 0; j < 4; j++) {
         const isDom = j < 3 ? powers[j] === dom.power : isDarkEnergyDominant(model, dom.power, late);
-        if (isDom) domPart += t[j]; else rest += Math.abs(t[j]);
+        if (isDom) domPart += t[j]; else if (t[j] < 0) negative -= t[j];
       }
-      if (domPart > 4 * rest) return null;
+      if (domPart > 4 * negative) return null;
     }
   }
 }

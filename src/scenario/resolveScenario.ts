@@ -15,6 +15,7 @@ export const DEFAULT_WA = 0;
 export const MAX_WORK_POINTS = 5_000_000;
 
 const CURVATURE_KEYS: CurvatureKey[] = ["flat", "Omega_k", "Omega_de", "Omega_Lambda"];
+const BARYON_KEYS = ["Omega_b", "omega_b"] as const;
 const SLUG = /^[a-z0-9]+(-[a-z0-9]+)*$/;
 
 type RawModel = Record<string, unknown> & { id: string };
@@ -22,6 +23,10 @@ type Raw = Record<string, any>;
 
 /** The parameter box over which the engine's accuracy is verified (see DEVELOPERS.md). */
 const VERIFIED = { Omega_m: [0.01, 3], Omega_k: [-1, 1], Omega_de: [-1, 2], w0: [-2, -1 / 3], wa: [-3, 2] } as const;
+
+function inputsBaryonProvenance(p: Record<string, Provenance>): Provenance {
+  return p.Omega_b ?? p.omega_b ?? "default";
+}
 
 /** Default scenario id from a file name: its base name without .yaml/.yml, if that is a valid slug. */
 export function idFromFileName(path: string): string | null {
@@ -59,6 +64,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
   rawModels.forEach((m, i) => {
     const own = CURVATURE_KEYS.filter((k) => m[k] !== undefined);
     if (own.length > 1) fail(["models", i, own[1]], `curvature is over-determined: give only one of flat, Omega_k, Omega_de, Omega_Lambda (found ${own.join(" and ")})`, "key");
+    if (m.Omega_b !== undefined && m.omega_b !== undefined) fail(["models", i, "omega_b"], "baryons are over-determined: give Omega_b or omega_b, not both", "key");
     if (m.radiation === "none" && (m.T_cmb !== undefined || m.N_eff !== undefined)) {
       fail(["models", i, m.T_cmb !== undefined ? "T_cmb" : "N_eff"], "contradictory radiation: radiation: none drops photons and neutrinos, so T_cmb and N_eff cannot be set in the same model", "key");
     }
@@ -87,9 +93,10 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       values = { ...parent.values };
       for (const k of Object.keys(parent.values)) provenance[k] = "inherited";
       if (CURVATURE_KEYS.some((k) => m[k] !== undefined)) for (const k of CURVATURE_KEYS) { delete values[k]; delete provenance[k]; }
+      if (BARYON_KEYS.some((k) => m[k] !== undefined)) for (const k of BARYON_KEYS) { delete values[k]; delete provenance[k]; }
       if (m.radiation === "none") { delete values.T_cmb; delete values.N_eff; }
     }
-    for (const k of ["H0", "Omega_m", "w0", "wa", "radiation", "T_cmb", "N_eff", ...CURVATURE_KEYS]) {
+    for (const k of ["H0", "Omega_m", "w0", "wa", "radiation", "T_cmb", "N_eff", "m_nu_eV", ...BARYON_KEYS, ...CURVATURE_KEYS]) {
       if (m[k] !== undefined) { values[k] = m[k]; provenance[k] = "set"; }
     }
     const result = { values, provenance };
@@ -120,6 +127,9 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       radiation,
       T_cmb: radiation === "none" ? null : ((v.T_cmb as number | undefined) ?? DEFAULT_T_CMB_K),
       N_eff: radiation === "none" ? null : ((v.N_eff as number | undefined) ?? DEFAULT_N_EFF),
+      baryon_key: v.Omega_b !== undefined ? "Omega_b" : v.omega_b !== undefined ? "omega_b" : null,
+      baryon_value: (v.Omega_b ?? v.omega_b ?? null) as number | null,
+      m_nu_eV: [...((v.m_nu_eV as number[] | undefined) ?? [])],
     };
     const provenance: ResolvedModel["provenance"] = {
       H0: prov("H0"), Omega_m: prov("Omega_m"),
@@ -127,7 +137,13 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       w0: prov("w0"), wa: prov("wa"), radiation: prov("radiation"),
       T_cmb: radiation === "none" ? prov("radiation") : prov("T_cmb"),
       N_eff: radiation === "none" ? prov("radiation") : prov("N_eff"),
+      baryon_key: inputsBaryonProvenance(p), baryon_value: inputsBaryonProvenance(p),
+      m_nu_eV: prov("m_nu_eV"),
     };
+    if (radiation === "none" && inputs.m_nu_eV.some((x) => x > 0)) {
+      fail([...here, p.m_nu_eV === "set" ? "m_nu_eV" : "radiation"], "massive neutrinos need thermal radiation: their temperature follows T_cmb; remove m_nu_eV or radiation: none", "key");
+      return;
+    }
     if (curvatureKey === "Omega_Lambda" && (inputs.w0 !== -1 || inputs.wa !== 0)) {
       fail([...here, "Omega_Lambda"], `Omega_Lambda is a cosmological constant (w0 = -1, wa = 0) but this model has w0 = ${inputs.w0}, wa = ${inputs.wa}; use Omega_de for evolving dark energy`, "key");
       return;
@@ -135,10 +151,18 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     const curvature: CurvatureSpec = curvatureKey === "flat" ? { kind: "flat" }
       : curvatureKey === "Omega_k" ? { kind: "Omega_k", Omega_k: inputs.curvature_value! }
       : { kind: "Omega_de", Omega_de: inputs.curvature_value! };
-    const background = makeBackgroundModel({
-      H0_km_s_Mpc: inputs.H0, Omega_m: inputs.Omega_m, curvature, w0: inputs.w0, wa: inputs.wa,
-      radiation: radiation === "none" ? null : { T_cmb_K: inputs.T_cmb!, N_eff: inputs.N_eff! },
-    });
+    let background;
+    try {
+      background = makeBackgroundModel({
+        H0_km_s_Mpc: inputs.H0, Omega_m: inputs.Omega_m, curvature, w0: inputs.w0, wa: inputs.wa,
+        radiation: radiation === "none" ? null : { T_cmb_K: inputs.T_cmb!, N_eff: inputs.N_eff! },
+        baryons: inputs.baryon_key === "Omega_b" ? { Omega_b: inputs.baryon_value! } : inputs.baryon_key === "omega_b" ? { omega_b: inputs.baryon_value! } : null,
+        m_nu_eV: inputs.m_nu_eV,
+      });
+    } catch (e) {
+      if (e instanceof RangeError) { fail(here, `model ${m.id}: ${e.message}`); return; }
+      throw e;
+    }
     try {
       assertBigBang(background);
     } catch (e) {

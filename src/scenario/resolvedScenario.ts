@@ -15,6 +15,11 @@ export interface ResolvedModelInputs {
   radiation: "thermal" | "none";
   T_cmb: number | null;
   N_eff: number | null;
+  /** Which key gave the baryon density, and its value; null when neither was given. */
+  baryon_key: "Omega_b" | "omega_b" | null;
+  baryon_value: number | null;
+  /** Massive neutrino masses in eV; empty when all are massless. */
+  m_nu_eV: number[];
 }
 
 export interface ResolvedModel {

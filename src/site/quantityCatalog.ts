@@ -36,6 +36,13 @@ export const REDSHIFT_GROUPS: { title: string; id: string; quantities: QuantityI
       { key: "particle_horizon_Mpc", label: "Comoving particle horizon at z", unit: "Mpc" },
     ],
   },
+  {
+    title: "BAO distance ratios", id: "bao", quantities: [
+      { key: "D_M_over_r_drag", label: "D_M / r_drag", unit: "" },
+      { key: "D_H_over_r_drag", label: "D_H / r_drag", unit: "" },
+      { key: "D_V_over_r_drag", label: "D_V / r_drag", unit: "" },
+    ],
+  },
 ];
 
 export const SUMMARY_QUANTITIES: QuantityInfo[] = [
@@ -65,6 +72,24 @@ export const PARAMETERS: QuantityInfo[] = [
   { key: "wa", label: "wa", unit: "" },
   { key: "T_cmb", label: "T_cmb", unit: "K" },
   { key: "N_eff", label: "N_eff", unit: "" },
+  { key: "Omega_b", label: "Omega_b", unit: "" },
+  { key: "omega_b", label: "omega_b = Omega_b h^2", unit: "" },
+  { key: "Omega_cb", label: "Omega_cb (cold matter + baryons)", unit: "" },
+  { key: "Omega_nu_massive", label: "Omega_nu (massive, today)", unit: "" },
+  { key: "T_nu", label: "T_nu", unit: "K" },
+];
+
+/** Early-universe quantities; the source of each fitting formula is named on the page. */
+export const EARLY_QUANTITIES: (QuantityInfo & { method: string })[] = [
+  { key: "z_recombination", label: "Decoupling redshift z*", unit: "", method: "fitting formula, Hu & Sugiyama 1996" },
+  { key: "z_drag", label: "Drag-epoch redshift z_drag", unit: "", method: "fitting formula, Eisenstein & Hu 1998 (approximate, a few % low)" },
+  { key: "sound_horizon_recombination_Mpc", label: "Sound horizon at z*, r*", unit: "Mpc", method: "integral of c_s/H" },
+  { key: "sound_horizon_drag_Mpc", label: "Sound horizon at drag, r_drag", unit: "Mpc", method: "calibrated formula, Aubourg et al. 2015 eq. 16" },
+  { key: "sound_horizon_drag_integral_Mpc", label: "r_drag as the integral to z_drag", unit: "Mpc", method: "integral of c_s/H at the fitted z_drag" },
+  { key: "theta_star_100", label: "100 theta* = 100 r*/D_M(z*)", unit: "", method: "ratio" },
+  { key: "transverse_comoving_distance_recombination_Mpc", label: "D_M(z*)", unit: "Mpc", method: "integral" },
+  { key: "z_matter_radiation_equality", label: "Matter-radiation equality z_eq", unit: "", method: "root of rho_m = rho_r" },
+  { key: "k_eq_1_Mpc", label: "k_eq = a_eq H(a_eq)/c", unit: "1/Mpc", method: "from z_eq" },
 ];
 
 export const TARGET_QUANTITIES: QuantityInfo[] = [
@@ -89,4 +114,7 @@ export const CHART_SERIES: QuantityInfo[] = [
   { key: "lookback_time_Gyr", label: "Lookback time", unit: "Gyr" },
   { key: "kpc_per_arcsec_proper", label: "Proper scale", unit: "kpc/arcsec" },
   { key: "comoving_volume_Gpc3", label: "Comoving volume", unit: "Gpc^3" },
+  { key: "D_M_over_r_drag", label: "D_M / r_drag", unit: "" },
+  { key: "D_H_over_r_drag", label: "D_H / r_drag", unit: "" },
+  { key: "D_V_over_r_drag", label: "D_V / r_drag", unit: "" },
 ];

@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import {
   CONSTANTS, DEFAULT_N_EFF, DEFAULT_T_CMB_K, ENGINE_TOLERANCE, ENGINE_VERSION, FLATNESS_THRESHOLD, REDSHIFT_COLUMN_KEYS,
-  backgroundSummary, redshiftAtComovingDistance, redshiftTable, type RedshiftColumns,
+  BAO_KEYS, backgroundSummary, baoRatios, earlyUniverse, redshiftAtComovingDistance, redshiftTable, type BaoColumns, type RedshiftColumns,
 } from "../engine/index.js";
 import type { ResolvedModel, ResolvedScenario } from "../scenario/resolvedScenario.js";
 import { DEFAULT_W0, DEFAULT_WA } from "../scenario/resolveScenario.js";
@@ -9,17 +9,21 @@ import { gridRedshifts } from "./gridRedshifts.js";
 import { targetRows } from "./targetRows.js";
 import { surveyRows } from "./surveyRows.js";
 import { differencesFromBaseline } from "./differences.js";
-import { CAUTIONS } from "./cautions.js";
+import { cautions } from "./cautions.js";
 import { TABLES_FORMAT, type ModelTables, type Num, type RedshiftGrid, type RedshiftRow, type TablesDocument } from "./tablesDocument.js";
 
 const sha256 = (text: string) => createHash("sha256").update(text, "utf8").digest("hex");
 
-function rows(columns: RedshiftColumns): RedshiftRow[] {
+/** Every key of a redshift row: the engine's per-redshift quantities, then the BAO ratios. */
+export const ROW_KEYS = [...REDSHIFT_COLUMN_KEYS, ...BAO_KEYS] as const;
+type Columns = RedshiftColumns & BaoColumns;
+
+function rows(columns: Columns): RedshiftRow[] {
   const n = columns.z.length;
   const out: RedshiftRow[] = new Array(n);
   for (let i = 0; i < n; i++) {
     const row: RedshiftRow = {};
-    for (const key of REDSHIFT_COLUMN_KEYS) {
+    for (const key of ROW_KEYS) {
       const v = columns[key][i];
       row[key] = Number.isFinite(v) ? v : null;
     }
@@ -28,9 +32,9 @@ function rows(columns: RedshiftColumns): RedshiftRow[] {
   return out;
 }
 
-function gridColumns(columns: RedshiftColumns): RedshiftGrid {
+function gridColumns(columns: Columns): RedshiftGrid {
   const out: RedshiftGrid = {};
-  for (const key of REDSHIFT_COLUMN_KEYS) {
+  for (const key of ROW_KEYS) {
     const column = columns[key];
     const values = new Array<Num>(column.length);
     for (let i = 0; i < column.length; i++) values[i] = Number.isFinite(column[i]) ? column[i] : null;
@@ -47,6 +51,9 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
     const zAnti = redshiftAtComovingDistance(bg, summary.antipode_distance_Mpc);
     allWarnings.push(`light from beyond z = ${zAnti.toPrecision(6)} has passed the antipode: D_M is negative there (sign convention: D_M = R sin(D_C/R); images are inverted)`);
   }
+  const early = earlyUniverse(bg);
+  const rDrag = early.values.sound_horizon_drag_Mpc;
+  const withBao = (c: RedshiftColumns): Columns => ({ ...c, ...baoRatios(c, rDrag) });
   const derived = m.inputs.curvature_key === "Omega_k" ? "Omega_de" : m.inputs.curvature_key === "flat" ? "Omega_de" : "Omega_k";
   const provenance: ModelTables["provenance"] = {
     H0: m.provenance.H0, Omega_m: m.provenance.Omega_m, w0: m.provenance.w0, wa: m.provenance.wa,
@@ -54,6 +61,9 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
     curvature_from: m.provenance.curvature_key,
     [m.inputs.curvature_key === "flat" ? "Omega_k" : m.inputs.curvature_key === "Omega_Lambda" ? "Omega_de" : m.inputs.curvature_key]: m.provenance.curvature_value,
     [derived]: "derived", Omega_r: "derived", Omega_gamma: "derived", Omega_nu: "derived",
+    Omega_cb: "derived", Omega_nu_massive: "derived", T_nu: "derived", m_nu_eV: m.provenance.m_nu_eV,
+    Omega_b: m.inputs.baryon_key === "Omega_b" ? m.provenance.baryon_value : "derived",
+    omega_b: m.inputs.baryon_key === "omega_b" ? m.provenance.baryon_value : "derived",
   };
   if (m.inputs.curvature_key === "flat") provenance.Omega_k = m.provenance.curvature_key;
   return {
@@ -62,11 +72,13 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
       H0: bg.H0_km_s_Mpc, Omega_m: bg.Omega_m, Omega_de: bg.Omega_de, Omega_k: bg.Omega_k, Omega_r: bg.Omega_r,
       Omega_gamma: bg.Omega_gamma, Omega_nu: bg.Omega_nu, w0: bg.w0, wa: bg.wa, T_cmb: m.inputs.T_cmb, N_eff: m.inputs.N_eff,
       radiation: m.inputs.radiation, curvature_from: m.inputs.curvature_key,
+      Omega_b: bg.Omega_b, omega_b: bg.Omega_b === null ? null : bg.Omega_b * (bg.H0_km_s_Mpc / 100) ** 2,
+      Omega_cb: bg.Omega_cb, Omega_nu_massive: bg.Omega_nu_massive, T_nu: bg.T_nu_K, m_nu_eV: m.inputs.m_nu_eV,
     },
     provenance,
-    summary: summary as unknown as Record<string, Num | string>,
-    redshifts: rows(redshiftTable(bg, scenario.redshifts)),
-    grid: gridColumns(redshiftTable(bg, grid)),
+    summary: { ...(summary as unknown as Record<string, Num | string>), ...early.values, early_universe_note: early.note } as Record<string, Num | string>,
+    redshifts: rows(withBao(redshiftTable(bg, scenario.redshifts))),
+    grid: gridColumns(withBao(redshiftTable(bg, grid))),
     targets: targetRows(bg, scenario.targets),
     surveys: surveyRows(bg, scenario.surveys),
   };
@@ -100,7 +112,7 @@ export function buildTablesDocument(s: ResolvedScenario): TablesDocument {
       version: ENGINE_VERSION, tolerance: ENGINE_TOLERANCE, constants,
       defaults: { w0: DEFAULT_W0, wa: DEFAULT_WA, T_cmb: DEFAULT_T_CMB_K, N_eff: DEFAULT_N_EFF, radiation: "thermal", curvature: "flat", flatness_threshold: FLATNESS_THRESHOLD },
     },
-    cautions: CAUTIONS,
+    cautions: cautions(s.models.some((m) => m.background.Omega_b !== null), s.models.some((m) => m.background.massiveNeutrinos.length > 0)),
     models,
     differences,
   };

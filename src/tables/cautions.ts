@@ -1,8 +1,14 @@
-/** The cautions every tables document, page and export carries. */
-export const CAUTIONS = [
-  "Background only: a homogeneous, isotropic FLRW expansion. Perturbations, gravitational lensing, peculiar velocities and K-corrections are not included.",
-  "Radiation is photons at T_cmb plus N_eff massless neutrino species; massive neutrinos and baryon physics are not modelled in this version.",
-  "Dark energy follows the CPL form w(a) = w0 + wa (1 - a) at all times, including its extrapolation into the future used for the fate and the event horizon.",
-  "No fitting formulas enter these numbers: every quantity is an integral or closed form of the Friedmann equation, computed to 1e-10 relative accuracy.",
-  "These are comparison tables, not parameter inference: for precision constraints use a dedicated Boltzmann and likelihood code.",
-];
+/** The cautions every tables document, page and export carries; the fitting formulas are named when they are used. */
+export function cautions(usesEarlyUniverse: boolean, usesMassiveNeutrinos: boolean): string[] {
+  return [
+    "Background only: a homogeneous, isotropic FLRW expansion. Perturbations, gravitational lensing, peculiar velocities and K-corrections are not included.",
+    usesMassiveNeutrinos
+      ? "Radiation is photons at T_cmb plus N_eff neutrino species; each massive species carries N_eff/3 of the relativistic density at T_nu = (4/11)^(1/3) T_cmb and follows the exact Fermi-Dirac energy integral."
+      : "Radiation is photons at T_cmb plus N_eff massless neutrino species.",
+    "Dark energy follows the CPL form w(a) = w0 + wa (1 - a) at all times, including its extrapolation into the future used for the fate and the event horizon.",
+    usesEarlyUniverse
+      ? "Fitting formulas: z* (recombination) from Hu & Sugiyama 1996; z_drag from Eisenstein & Hu 1998, approximate (it falls a few percent below full recombination calculations); r_drag from the calibrated formula of Aubourg et al. 2015, eq. 16 (calibrated for N_eff = 3.046 near the Planck best fit). BAO ratios use that r_drag. Everything else is an integral or closed form of the Friedmann equation, to 1e-10 relative accuracy."
+      : "No fitting formulas enter these numbers: every quantity is an integral or closed form of the Friedmann equation, computed to 1e-10 relative accuracy.",
+    "These are comparison tables, not parameter inference: for precision constraints use a dedicated Boltzmann and likelihood code.",
+  ];
+}

@@ -1,5 +1,5 @@
 import { stringify } from "csv-stringify/sync";
-import { REDSHIFT_COLUMN_KEYS } from "../engine/index.js";
+import { ROW_KEYS } from "./buildTablesDocument.js";
 import type { TablesDocument } from "./tablesDocument.js";
 
 const cell = (v: unknown): string => (v === null || v === undefined ? "" : String(v));
@@ -8,12 +8,13 @@ const cell = (v: unknown): string => (v === null || v === undefined ? "" : Strin
 export function tablesCsv(doc: TablesDocument): Record<string, string> {
   const ids = doc.models.map((m) => m.id);
   const table = (header: string[], body: unknown[][]) => stringify([header, ...body.map((r) => r.map(cell))], { record_delimiter: "\r\n" });
+  const cellOf = (v: unknown) => (Array.isArray(v) ? v.join(" ") : v);
   const paramKeys = Object.keys(doc.models[0].parameters) as (keyof TablesDocument["models"][0]["parameters"])[];
   const summaryKeys = Object.keys(doc.models[0].summary);
   const files: Record<string, string> = {
-    "parameters.csv": table(["parameter", ...ids], paramKeys.map((k) => [k, ...doc.models.map((m) => m.parameters[k])])),
+    "parameters.csv": table(["parameter", ...ids], paramKeys.map((k) => [k, ...doc.models.map((m) => cellOf(m.parameters[k]))])),
     "summary.csv": table(["quantity", ...ids], summaryKeys.map((k) => [k, ...doc.models.map((m) => m.summary[k])])),
-    "redshifts.csv": table(["model", ...REDSHIFT_COLUMN_KEYS], doc.models.flatMap((m) => m.redshifts.map((r) => [m.id, ...REDSHIFT_COLUMN_KEYS.map((k) => r[k])]))),
+    "redshifts.csv": table(["model", ...ROW_KEYS], doc.models.flatMap((m) => m.redshifts.map((r) => [m.id, ...ROW_KEYS.map((k) => r[k])]))),
     "differences.csv": table(["model", "quantity", "absolute", "relative"], Object.entries(doc.differences).flatMap(([id, d]) =>
       Object.entries(d.summary).map(([k, v]) => [id, k, v.absolute, v.relative]))),
   };

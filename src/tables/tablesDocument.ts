@@ -8,6 +8,7 @@ export interface ConstantEntry { value: number; unit: string; source: string }
 export interface ModelParameters {
   H0: number; Omega_m: number; Omega_de: number; Omega_k: number; Omega_r: number; Omega_gamma: number; Omega_nu: number;
   w0: number; wa: number; T_cmb: number | null; N_eff: number | null; radiation: "thermal" | "none";
+  Omega_b: number | null; omega_b: number | null; Omega_cb: number; Omega_nu_massive: number; T_nu: number | null; m_nu_eV: number[];
   curvature_from: "flat" | "Omega_k" | "Omega_de" | "Omega_Lambda";
 }
 

@@ -10,7 +10,8 @@ const TOL = 1e-10;
 function modelFrom(f: any): BackgroundModel {
   const Ok = Number(f.Omega_k);
   return {
-    H0_km_s_Mpc: f.H0, Omega_m: Number(f.Omega_m), Omega_gamma: Number(f.Omega_r), Omega_nu: 0, Omega_r: Number(f.Omega_r),
+    H0_km_s_Mpc: f.H0, Omega_m: Number(f.Omega_m), Omega_cb: Number(f.Omega_m), Omega_b: null, Omega_gamma: Number(f.Omega_r),
+    Omega_nu: 0, Omega_nu_massive: 0, massiveNeutrinos: [], T_nu_K: null, Omega_r: Number(f.Omega_r),
     Omega_de: Number(f.Omega_de), Omega_k: Ok, w0: f.w0, wa: f.wa, T_cmb_K: null, N_eff: 0,
     geometry: Ok === 0 ? "flat" : Ok > 0 ? "open" : "closed",
   };

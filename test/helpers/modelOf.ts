@@ -9,8 +9,13 @@ export function modelOf(p: { H0?: number; Om: number; Or?: number; Ok?: number; 
   return {
     H0_km_s_Mpc: p.H0 ?? 70,
     Omega_m: p.Om,
+    Omega_cb: p.Om,
+    Omega_b: null,
     Omega_gamma: Or,
     Omega_nu: 0,
+    Omega_nu_massive: 0,
+    massiveNeutrinos: [],
+    T_nu_K: null,
     Omega_r: Or,
     Omega_de: Ode,
     Omega_k: Ok,

@@ -1,0 +1,33 @@
+import type { BackgroundModel } from "./backgroundModel.js";
+import { energyRatioSlope, lnEnergyRatio } from "./fermiDiracEnergy.js";
+
+/**
+ * rho_nu(a) / rho_crit,0 summed over massive species: Omega_rel a^-4 R(y0 a), R = F(y)/F(0) the Fermi-Dirac energy
+ * ratio (exact integral, interpolated; see fermiDiracEnergy.ts). 0 when there are none.
+ */
+export function massiveNeutrinoDensity(model: BackgroundModel, a: number): number {
+  const list = model.massiveNeutrinos;
+  if (list.length === 0) return 0;
+  const lnA = Math.log(a);
+  let sum = 0;
+  for (const n of list) sum += n.Omega_rel * Math.exp(lnEnergyRatio(n.lnY0 + lnA) - 4 * lnA);
+  return sum;
+}
+
+/**
+ * The massive neutrinos split into their radiation-like part 3p and matter-like part rho - 3p (relative to
+ * rho_crit,0), and the acceleration source rho + 3p. From rho ~ a^-4 R(y): 3p/rho = 1 - G, G = d ln R / d ln y,
+ * so rho + 3p = rho (2 - G).
+ */
+export function massiveNeutrinoParts(model: BackgroundModel, a: number): { rho: number; threeP: number } {
+  let rho = 0;
+  let threeP = 0;
+  const lnA = Math.log(a);
+  for (const n of model.massiveNeutrinos) {
+    const lnY = n.lnY0 + lnA;
+    const r = n.Omega_rel * Math.exp(lnEnergyRatio(lnY) - 4 * lnA);
+    rho += r;
+    threeP += r * (1 - energyRatioSlope(lnY));
+  }
+  return { rho, threeP };
+}
