@@ -6,6 +6,7 @@ import { runSiteBench } from "./site.js";
 const engine = runEngineBench();
 console.log(`engine: ${engine.points} points (8 models x 2000 redshifts, z 0..20, all per-redshift quantities)`);
 console.log(`  median wall time ${engine.ms.toFixed(2)} ms, ${(engine.pointsPerSecond / 1e6).toFixed(2)} M points/s`);
+console.log(`  with one massive neutrino per model: ${engine.nuMs.toFixed(2)} ms (${(engine.nuMs / engine.ms).toFixed(2)}x)`);
 console.log(`  largest relative error against the per-point careful path (1e-13): ${engine.maxRelError.toExponential(2)} over ${engine.checked} values`);
 const cli = runComputeBench();
 console.log(`cli: bare node start-up ${cli.nodeStartMs.toFixed(0)} ms`);
@@ -15,7 +16,7 @@ const site = runSiteBench();
 site.sizes.forEach((n, i) => console.log(`site: ${n} generated scenarios x 4 models: ${site.seconds[i].toFixed(2)} s (${(1000 * site.seconds[i] / n).toFixed(1)} ms per scenario page)`));
 console.log(`  largest demo scenario page (HTML with inline chart data, without Chart.js): ${site.maxPageKB.toFixed(0)} KB`);
 console.log(JSON.stringify({
-  points: engine.points, ms: Number(engine.ms.toFixed(3)), max_rel_error: engine.maxRelError,
+  points: engine.points, ms: Number(engine.ms.toFixed(3)), ms_with_neutrinos: Number(engine.nuMs.toFixed(3)), max_rel_error: engine.maxRelError,
   help_ms_beyond_node: Number((cli.helpMs - cli.nodeStartMs).toFixed(1)), compute_ms_beyond_node: Number((cli.computeMs - cli.nodeStartMs).toFixed(1)),
   site_200_s: Number(site.seconds[2].toFixed(2)), max_page_kb: Number(site.maxPageKB.toFixed(1)),
 }));
