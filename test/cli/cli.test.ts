@@ -55,7 +55,7 @@ describe("cosmoledger CLI on the demo scenarios", () => {
     expect(r.code).toBe(0);
     const doc = JSON.parse(r.stdout);
     const ref = doc.models.find((m: { id: string }) => m.id === "reference");
-    const engine = redshiftTable(makeBackgroundModel({ H0_km_s_Mpc: 68.2, Omega_m: 0.306, curvature: { kind: "flat" }, w0: -1, wa: 0, radiation: { T_cmb_K: 2.7255, N_eff: 3.044 } }), doc.scenario.redshifts);
+    const engine = redshiftTable(makeBackgroundModel({ H0_km_s_Mpc: 68.2, Omega_m: 0.306, curvature: { kind: "flat" }, w0: -1, wa: 0, radiation: { T_cmb_K: 2.7255, N_eff: 3.044 }, baryons: { omega_b: 0.0223 }, m_nu_eV: [0.06] }), doc.scenario.redshifts);
     ref.redshifts.forEach((row: Record<string, number>, i: number) => expect(row.luminosity_distance_Mpc).toBe(engine.luminosity_distance_Mpc[i]));
   });
 
