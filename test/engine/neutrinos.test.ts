@@ -75,3 +75,27 @@ describe("scenario rules for baryons and neutrinos", () => {
     expect(() => loadScenario(base + "    m_nu_eV: [0.1, 0.1, 0.1, 0.1]\n", "x.yaml")).toThrow(/at most 3 items/);
   });
 });
+
+describe("massive-neutrino model against mpmath fixtures (test/fixtures/mpmath/neutrinos.py wrote neutrinos.json)", async () => {
+  const { readFileSync } = await import("node:fs");
+  const { redshiftTable, photonDensityParameter } = await import("../../src/engine/index.js");
+  const f = JSON.parse(readFileSync(new URL("../fixtures/mpmath/neutrinos.json", import.meta.url), "utf8"));
+  const m = makeBackgroundModel({
+    H0_km_s_Mpc: f.model.H0, Omega_m: f.model.Omega_m, curvature: { kind: "Omega_k", Omega_k: f.model.Omega_k }, w0: -1, wa: 0,
+    radiation: { T_cmb_K: f.model.T_cmb, N_eff: f.model.N_eff }, m_nu_eV: f.model.m_nu_eV,
+  });
+  it("uses the same photon density as the fixture's input", () => {
+    expect(relErr(photonDensityParameter(f.model.T_cmb, f.model.H0), Number(f.model.Omega_gamma))).toBeLessThan(1e-15);
+  });
+  it("Omega_nu today, the age, D_C, lookback time and E(z) agree to 1e-10", () => {
+    expect(relErr(m.Omega_nu_massive, Number(f.Omega_nu_massive))).toBeLessThan(1e-9); // interpolated Fermi-Dirac ratio
+    expect(relErr(backgroundSummary(m).summary.age_Gyr!, Number(f.age_Gyr))).toBeLessThan(1e-10);
+    const zs = f.redshifts.map((r: { z: string }) => Number(r.z));
+    const t = redshiftTable(m, zs);
+    f.redshifts.forEach((r: Record<string, string>, i: number) => {
+      expect(relErr(t.comoving_distance_Mpc[i], Number(r.comoving_distance_Mpc)), `D_C z=${r.z}`).toBeLessThan(1e-10);
+      expect(relErr(t.lookback_time_Gyr[i], Number(r.lookback_time_Gyr)), `lookback z=${r.z}`).toBeLessThan(1e-10);
+      expect(relErr(t.E[i], Number(r.E)), `E z=${r.z}`).toBeLessThan(1e-10);
+    });
+  });
+});
