@@ -1,5 +1,5 @@
 import {
-  DEFAULT_N_EFF, DEFAULT_T_CMB_K, NoBigBangError, assertBigBang, makeBackgroundModel, type CurvatureSpec,
+  DEFAULT_N_EFF, DEFAULT_T_CMB_K, NoBigBangError, assertBigBang, makeBackgroundModel, maximumScaleFactor, type CurvatureSpec,
 } from "../engine/index.js";
 import type { ParsedYaml } from "./parseScenarioYaml.js";
 import { ScenarioInputError, formatPath, type ScenarioIssue } from "./scenarioIssue.js";
@@ -165,8 +165,9 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     }
     try {
       assertBigBang(background);
+      maximumScaleFactor(background); // a turnaround the engine cannot follow is an input problem, not a crash
     } catch (e) {
-      if (e instanceof NoBigBangError) { fail(here, `model ${m.id}: ${e.message}`); return; }
+      if (e instanceof NoBigBangError || e instanceof RangeError) { fail(here, `model ${m.id}: ${e.message}`); return; }
       throw e;
     }
     const warnings: string[] = [];
