@@ -1,7 +1,7 @@
 // Eleventy configuration: filters, passthrough copies, the tables documents as global data, and the folder layout.
 // Templates format the tables documents; every number they show was computed by the engine before Eleventy ran.
 import { HTML_FILTERS, TEXT_FILTERS } from "./dist/site/siteFilters.js";
-import { getSiteLedger, readLedger } from "./dist/site/siteLedger.js";
+import { defaultArchive, getSiteLedger, readLedger } from "./dist/site/siteLedger.js";
 import * as catalog from "./dist/site/quantityCatalog.js";
 import { CLOSURE_TEX, FRIEDMANN_TEX } from "./dist/site/renderMath.js";
 import { formatIssue } from "./dist/scenario/scenarioIssue.js";
@@ -12,6 +12,7 @@ import { join } from "node:path";
 
 export default function (eleventyConfig) {
   const scenariosDir = process.env.COSMOLEDGER_SCENARIOS ?? "scenarios";
+  const archiveDir = process.env.COSMOLEDGER_ARCHIVE ?? defaultArchive(scenariosDir);
   eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, throwOnUndefined: false });
   for (const [name, fn] of Object.entries({ ...TEXT_FILTERS, ...HTML_FILTERS })) eleventyConfig.addFilter(name, fn);
 
@@ -19,7 +20,7 @@ export default function (eleventyConfig) {
   eleventyConfig.addGlobalData("ledger", () => {
     const ready = getSiteLedger();
     if (ready) return ready;
-    const { ledger, issues } = readLedger(scenariosDir);
+    const { ledger, issues } = readLedger(scenariosDir, archiveDir);
     if (!ledger) throw new Error(issues.map(formatIssue).join("\n"));
     return ledger;
   });
@@ -27,6 +28,7 @@ export default function (eleventyConfig) {
   eleventyConfig.addGlobalData("tex", { friedmann: FRIEDMANN_TEX, closure: CLOSURE_TEX });
   eleventyConfig.addGlobalData("tool", { name: "cosmoledger", engine: ENGINE_VERSION });
   eleventyConfig.addWatchTarget(scenariosDir);
+  eleventyConfig.addWatchTarget(archiveDir);
   // Mark the output as ours, so that `cosmoledger build` may replace a folder that `npm start` wrote.
   eleventyConfig.on("eleventy.after", ({ dir }) => {
     writeFileSync(join(dir.output, SITE_MARKER), "Built by cosmoledger; this folder is replaced by the next build.\n");

@@ -1,7 +1,7 @@
 import { existsSync, mkdirSync, readdirSync, renameSync, rmSync } from "node:fs";
-import { dirname, join, resolve } from "node:path";
+import { basename, dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
-import { readLedger, setSiteLedger } from "../site/siteLedger.js";
+import { defaultArchive, readLedger, setSiteLedger } from "../site/siteLedger.js";
 import { formatIssue } from "../scenario/scenarioIssue.js";
 
 import { SITE_MARKER } from "./siteMarker.js";
@@ -14,8 +14,9 @@ const PACKAGE_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), "../..");
  * `outDir`, then swap it in. An invalid scenario stops the build (exit 2) before anything is written; a failed or
  * killed build leaves the previous site whole. A non-empty `outDir` that cosmoledger did not create is refused.
  */
-export async function buildSite(scenariosDir: string, outDir: string, quiet: boolean): Promise<number> {
+export async function buildSite(scenariosDir: string, outDir: string, quiet: boolean, archiveDir?: string): Promise<number> {
   const scenarios = resolve(scenariosDir);
+  const archive = resolve(archiveDir ?? defaultArchive(scenariosDir));
   const out = resolve(outDir);
   if (!existsSync(scenarios)) {
     process.stderr.write(`error: scenarios folder ${scenariosDir} does not exist\n`);
@@ -25,7 +26,7 @@ export async function buildSite(scenariosDir: string, outDir: string, quiet: boo
     process.stderr.write(`error: refusing to replace ${outDir}: it is not empty and was not built by cosmoledger (no ${SITE_MARKER}); choose another --out\n`);
     return 2;
   }
-  const { ledger, issues } = readLedger(scenarios);
+  const { ledger, issues } = readLedger(scenarios, archive);
   if (!ledger) {
     for (const i of issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
     process.stderr.write(`${issues.length} problem${issues.length === 1 ? "" : "s"} found; the site was not built and ${outDir} is untouched.\n`);
@@ -35,6 +36,7 @@ export async function buildSite(scenariosDir: string, outDir: string, quiet: boo
     process.stderr.write(`error: no scenario files (*.yaml) in ${scenariosDir}\n`);
     return 2;
   }
+  removeAbandonedBuilds(out);
   const stamp = `${process.pid}-${Date.now()}`;
   const tmp = `${out}.building-${stamp}`;
   const old = `${out}.previous-${stamp}`;
@@ -59,6 +61,30 @@ export async function buildSite(scenariosDir: string, outDir: string, quiet: boo
   if (existsSync(out)) renameSync(out, old);
   renameSync(tmp, out);
   rmSync(old, { recursive: true, force: true });
-  if (!quiet) process.stdout.write(`built ${ledger.docs.length} scenario page${ledger.docs.length === 1 ? "" : "s"} into ${outDir}/\n`);
+  const frozen = ledger.pages.filter((p) => p.status === "frozen").length;
+  if (!quiet) process.stdout.write(`built ${ledger.docs.length} scenario page${ledger.docs.length === 1 ? "" : "s"} and ${frozen} frozen version page${frozen === 1 ? "" : "s"} into ${outDir}/\n`);
   return 0;
+}
+
+const alive = (pid: number) => {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (e) {
+    return (e as NodeJS.ErrnoException).code === "EPERM";
+  }
+};
+
+/** Folders left by builds that were killed (their process is gone): unfinished sites go; a displaced previous site is restored. */
+function removeAbandonedBuilds(out: string): void {
+  const parent = dirname(out);
+  if (!existsSync(parent)) return;
+  const pattern = new RegExp(`^${basename(out).replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}\\.(building|previous)-(\\d+)-\\d+$`);
+  for (const name of readdirSync(parent)) {
+    const m = pattern.exec(name);
+    if (!m || Number(m[2]) === process.pid || alive(Number(m[2]))) continue;
+    // A build killed between its two renames left the previous site under .previous-*: put it back.
+    if (m[1] === "previous" && !existsSync(out)) renameSync(join(parent, name), out);
+    else rmSync(join(parent, name), { recursive: true, force: true });
+  }
 }

@@ -9,12 +9,17 @@ Commands:
   check FILE...             validate scenario files only
   compute FILE... [--out DIR] [--json]
                             write DIR/<id>/tables.json and one CSV per table (default DIR: out/tables)
-  build [--scenarios DIR] [--out DIR]
-                            check and compute every scenario, then render the comparison site
-                            (defaults: scenarios/ and _site/)
+  build [--scenarios DIR] [--out DIR] [--archive DIR]
+                            check and compute every scenario, then render the comparison site with every
+                            frozen version (defaults: scenarios/, _site/ and scenarios/archive/)
+  freeze FILE [-m MESSAGE] [--archive DIR]
+                            record the scenario as its next frozen version (default archive: beside FILE)
+  verify [--archive DIR] [--strict] [--json]
+                            check the archive's hashes and chains, and recompute every version
 
 Run "cosmoledger <command> --help" for a command's options.
-Exit status: 0 success, 2 invalid input (nothing written), 1 unexpected failure.`,
+Exit status: 0 success, 2 invalid input or a damaged archive (nothing written), 3 archived numbers drift
+(verify --strict), 1 unexpected failure.`,
   check: `Usage: cosmoledger check FILE...
 
 Validates each scenario file (YAML syntax, keys, types, ranges, inheritance, physics such as a missing big bang)
@@ -29,11 +34,36 @@ Options:
   --out DIR   output folder (default out/tables)
   --json      print the tables document of a single file to stdout instead of writing files
   --quiet     no progress messages on stderr`,
-  build: `Usage: cosmoledger build [--scenarios DIR] [--out DIR] [--quiet]
+  build: `Usage: cosmoledger build [--scenarios DIR] [--out DIR] [--archive DIR] [--quiet]
 
-Checks and computes every *.yaml scenario in DIR (default scenarios/), then renders the static comparison site
-with Eleventy into the output folder (default _site/). The site is built in a temporary folder and swapped in,
-so an invalid scenario or a failed build leaves the previous site untouched.`,
+Checks and computes every *.yaml scenario in DIR (default scenarios/), checks every frozen version in the
+archive (default: the folder "archive" inside the scenarios folder), then renders the static comparison site
+with Eleventy into the output folder (default _site/): a page per scenario, a page per frozen version at
+<id>/vN/, a history page and diff pages. The site is built in a temporary folder and swapped in, so an invalid
+scenario, a damaged archive or a failed build leaves the previous site untouched. The same inputs and archive
+give byte-identical output.`,
+  freeze: `Usage: cosmoledger freeze FILE [-m MESSAGE] [--archive DIR]
+
+Validates and computes FILE, then records it as the next version of its scenario in DIR/<id>/vN.json
+(default DIR: the folder "archive" beside FILE; commit it with git). A version holds the source text, the
+resolved inputs, the full tables document, the engine version and constants, the time, the message, its own
+SHA-256 and the SHA-256 of the version before it. Versions are never rewritten. Freezing inputs identical to
+the latest version writes nothing and names that version.
+
+Options:
+  -m, --message TEXT  why this version was frozen (shown on the history page)
+  --archive DIR       archive folder`,
+  verify: `Usage: cosmoledger verify [--archive DIR] [--strict] [--json] [--quiet]
+
+Checks every version in the archive (default scenarios/archive): its own SHA-256, its number and the hash chain.
+A tampered, missing or reordered version is an error naming the file (exit 2). Then recomputes every version
+from its frozen source with the current code and reports the largest relative drift of each quantity; drift
+above the engine tolerance is reported, and with --strict fails with exit 3.
+
+Options:
+  --strict  fail (exit 3) when an archived number would not reproduce
+  --json    print the report as JSON
+  --quiet   print only the summary and the problems`,
 };
 
 export async function main(argv: string[]): Promise<number> {
@@ -51,7 +81,10 @@ export async function main(argv: string[]): Promise<number> {
   try {
     parsed = parseArgs({
       args: rest, allowPositionals: true, strict: true,
-      options: { help: { type: "boolean", short: "h" }, out: { type: "string" }, json: { type: "boolean" }, quiet: { type: "boolean" }, scenarios: { type: "string" } },
+      options: {
+        help: { type: "boolean", short: "h" }, out: { type: "string" }, json: { type: "boolean" }, quiet: { type: "boolean" }, scenarios: { type: "string" },
+        archive: { type: "string" }, message: { type: "string", short: "m" }, strict: { type: "boolean" },
+      },
     });
   } catch (e) {
     process.stderr.write(`cosmoledger ${command}: ${(e as Error).message}\n\n${HELP[command]}\n`);
@@ -67,7 +100,25 @@ export async function main(argv: string[]): Promise<number> {
       return 2;
     }
     const { buildSite } = await import("./buildSite.js");
-    return buildSite(parsed.values.scenarios ?? "scenarios", parsed.values.out ?? "_site", parsed.values.quiet ?? false);
+    return buildSite(parsed.values.scenarios ?? "scenarios", parsed.values.out ?? "_site", parsed.values.quiet ?? false, parsed.values.archive);
+  }
+  const known: Record<string, string[]> = { check: ["quiet"], compute: ["out", "json", "quiet"], freeze: ["archive", "message"], verify: ["archive", "strict", "json", "quiet"] };
+  const stray = Object.keys(parsed.values).filter((k) => k !== "help" && !known[command].includes(k));
+  if (stray.length > 0) {
+    process.stderr.write(`cosmoledger ${command}: option --${stray[0]} does not apply to this command\n\n${HELP[command]}\n`);
+    return 2;
+  }
+  if (command === "freeze") {
+    const { freezeCommand } = await import("./freezeCommand.js");
+    return freezeCommand(parsed.positionals, parsed.values);
+  }
+  if (command === "verify") {
+    if (parsed.positionals.length > 0) {
+      process.stderr.write(`cosmoledger verify: takes no file names; use --archive DIR\n`);
+      return 2;
+    }
+    const { verifyCommand } = await import("./verifyCommand.js");
+    return verifyCommand(parsed.values);
   }
   const { runCommand } = await import("./runCommand.js");
   return runCommand(command as "check" | "compute", parsed.positionals, parsed.values);

@@ -11,12 +11,18 @@ export const TEXT_FILTERS = {
   exact: (x: number | null) => formatExact(x),
   /** A relative difference as a signed percentage. */
   pct: (x: number | null) => formatPercent(x),
+  /** The size of a relative change as a percentage without sign ("1.23 %"). */
+  pctAbs: (x: number | null) => formatPercent(x === null ? null : Math.abs(x)).replace(/^\+/, ""),
   /** Whether a relative difference is above 1 % (such cells stand out). */
   notable: (x: number | null) => typeof x === "number" && Math.abs(x) > 0.01,
   /** The first 12 hex digits of a hash. */
   short: (hash: string) => hash.slice(0, 12),
   /** Units as written in keys (Gpc^3) with real superscripts. */
   unit: (u: string) => u.replace(/\^3/g, "\u00b3").replace(/\^2/g, "\u00b2"),
+  /** A version's creation time (ISO 8601, UTC) as "2026-03-14 09:30 UTC"; times come from the versions, never from the build. */
+  when: (iso: string) => (/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(iso) ? `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC` : iso),
+  /** A version message, or a placeholder when it was frozen without one. */
+  message: (m: string) => (m && m.trim() ? m : "(no message)"),
   /** Source text split into lines, for a numbered listing. */
   lines: (text: string) => text.replace(/\n$/, "").split("\n"),
 };

@@ -3,16 +3,18 @@ import { join } from "node:path";
 import { displayPath } from "../cli/displayPath.js";
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError, type ScenarioIssue } from "../scenario/scenarioIssue.js";
+import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
 import type { TablesDocument } from "../tables/tablesDocument.js";
-import { tablesCsv } from "../tables/tablesCsv.js";
+import { readArchive } from "../archive/readArchive.js";
+import { sitePages, type SitePages } from "./sitePages.js";
 
-/** What the site is built from: every scenario's tables document and the files offered for download. */
-export interface SiteLedger {
+/** What the site is built from: every page's tables document (live or frozen), the archive's pages and the downloads. */
+export interface SiteLedger extends SitePages {
+  /** Tables documents of the live pages, in id order (the index's overview charts). */
   docs: TablesDocument[];
-  /** Source text of each scenario by id, shown verbatim on its page. */
-  sources: Record<string, string>;
-  downloads: { path: string; text: string }[];
+  /** The archive folder, as shown to users. */
+  archive: string;
 }
 
 /** Scenario files in a folder: *.yaml and *.yml, sorted so builds are deterministic. */
@@ -20,11 +22,16 @@ export function scenarioFiles(dir: string): string[] {
   return readdirSync(dir).filter((f) => /\.ya?ml$/i.test(f)).sort().map((f) => join(dir, f));
 }
 
-/** Reads, validates and computes every scenario of a folder; either a ledger or the issues that stop the build. */
-export function readLedger(dir: string): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
+/** The archive that belongs to a scenarios folder when none is named: a folder "archive" inside it. */
+export const defaultArchive = (scenariosDir: string) => join(scenariosDir, "archive");
+
+/**
+ * Reads, validates and computes every scenario of a folder and reads the archive (checking every hash and the
+ * chains); either a ledger or the issues that stop the build.
+ */
+export function readLedger(dir: string, archiveDir: string = defaultArchive(dir)): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
   const issues: ScenarioIssue[] = [];
-  const docs: TablesDocument[] = [];
-  const sources: Record<string, string> = {};
+  const files: { scenario: ResolvedScenario; doc: TablesDocument }[] = [];
   const seen = new Map<string, string>();
   for (const file of scenarioFiles(dir)) {
     const shown = displayPath(file);
@@ -36,19 +43,17 @@ export function readLedger(dir: string): { ledger: SiteLedger | null; issues: Sc
         continue;
       }
       seen.set(scenario.id, shown);
-      docs.push(buildTablesDocument(scenario));
-      sources[scenario.id] = text;
+      files.push({ scenario, doc: buildTablesDocument(scenario) });
     } catch (e) {
       if (e instanceof ScenarioInputError) issues.push(...e.issues);
       else throw e;
     }
   }
+  const archive = readArchive(archiveDir);
+  for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
   if (issues.length > 0) return { ledger: null, issues };
-  const downloads = docs.flatMap((doc) => [
-    { path: `${doc.scenario.id}/tables.json`, text: JSON.stringify(doc) + "\n" },
-    ...Object.entries(tablesCsv(doc)).map(([name, text]) => ({ path: `${doc.scenario.id}/${name}`, text })),
-  ]);
-  return { ledger: { docs, sources, downloads }, issues: [] };
+  const pages = sitePages(files, archive.archives);
+  return { ledger: { ...pages, docs: pages.live.map((p) => p.doc), archive: displayPath(archiveDir) }, issues: [] };
 }
 
 let current: SiteLedger | null = null;

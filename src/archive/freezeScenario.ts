@@ -1,0 +1,62 @@
+import { closeSync, fsyncSync, linkSync, mkdirSync, openSync, rmSync, writeFileSync } from "node:fs";
+import { join } from "node:path";
+import { randomBytes } from "node:crypto";
+import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
+import type { TablesDocument } from "../tables/tablesDocument.js";
+import { readScenarioArchive } from "./readArchive.js";
+import type { ArchiveIssue } from "./checkVersionChain.js";
+import { frozenInputs, holdsSameInputs, sealVersion, versionFileName, type VersionRecord } from "./versionRecord.js";
+
+export type FreezeOutcome =
+  | { kind: "frozen"; record: VersionRecord; file: string }
+  | { kind: "unchanged"; record: VersionRecord; file: string }
+  | { kind: "broken"; issues: ArchiveIssue[] };
+
+const RETRIES = 50;
+
+function fsyncPath(path: string, flags: string): void {
+  const fd = openSync(path, flags);
+  try {
+    fsyncSync(fd);
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/**
+ * Freezes the next version of a scenario into `archiveDir/<id>/vN.json`.
+ * The record is written to a temporary file, flushed, then published with link(2), which fails if vN.json already
+ * exists: two freezes at once can never share a number or leave a torn file; the loser re-reads the chain and tries N+1.
+ * Existing versions are never rewritten. Unchanged inputs (same source text and inputs hash as the latest) are a no-op.
+ */
+export function freezeScenario(archiveDir: string, scenario: ResolvedScenario, doc: TablesDocument, message: string, now: () => Date = () => new Date()): FreezeOutcome {
+  const folder = join(archiveDir, scenario.id);
+  mkdirSync(folder, { recursive: true });
+  for (let attempt = 0; attempt < RETRIES; attempt++) {
+    const issues: ArchiveIssue[] = [];
+    const { versions } = readScenarioArchive(folder, scenario.id, issues);
+    if (issues.length > 0) return { kind: "broken", issues };
+    const latest = versions.at(-1);
+    if (latest && holdsSameInputs(latest, scenario.source.text, doc)) return { kind: "unchanged", record: latest, file: join(folder, versionFileName(latest.version)) };
+    const record = sealVersion({
+      scenario_id: scenario.id, version: (latest?.version ?? 0) + 1, created: now().toISOString(), message,
+      previous_sha256: latest?.sha256 ?? null, source: { path: scenario.source.path, text: scenario.source.text },
+      inputs: frozenInputs(scenario), tables: doc,
+    });
+    const final = join(folder, versionFileName(record.version));
+    const tmp = join(folder, `.freeze-${process.pid}-${randomBytes(6).toString("hex")}.tmp`);
+    writeFileSync(tmp, JSON.stringify(record) + "\n", { flag: "wx" });
+    try {
+      fsyncPath(tmp, "r+");
+      linkSync(tmp, final);
+    } catch (e) {
+      if ((e as NodeJS.ErrnoException).code === "EEXIST") continue; // another freeze took this number first
+      throw e;
+    } finally {
+      rmSync(tmp, { force: true });
+    }
+    fsyncPath(folder, "r");
+    return { kind: "frozen", record, file: final };
+  }
+  throw new Error(`could not take a version number in ${folder} after ${RETRIES} attempts`);
+}

@@ -1,0 +1,35 @@
+import { existsSync, readFileSync, readdirSync, statSync } from "node:fs";
+import { join } from "node:path";
+import { displayPath } from "../cli/displayPath.js";
+import { checkVersionChain, type ArchiveIssue } from "./checkVersionChain.js";
+import type { VersionRecord } from "./versionRecord.js";
+
+export interface ScenarioArchive { id: string; folder: string; versions: VersionRecord[] }
+
+/** Scenario ids are folder names in the archive; dotfiles (a freeze's temporary files) are skipped. */
+const visible = (name: string) => !name.startsWith(".");
+
+/** Reads and checks every scenario's version chain in an archive folder. A folder that does not exist is an empty archive. */
+export function readArchive(archiveDir: string): { archives: ScenarioArchive[]; issues: ArchiveIssue[] } {
+  const archives: ScenarioArchive[] = [];
+  const issues: ArchiveIssue[] = [];
+  if (!existsSync(archiveDir)) return { archives, issues };
+  for (const id of readdirSync(archiveDir).filter(visible).sort()) {
+    const folder = join(archiveDir, id);
+    if (!statSync(folder).isDirectory()) {
+      if (id.toLowerCase() !== "readme.md") issues.push({ file: displayPath(folder), message: "unexpected file in the archive (expected one folder per scenario id)" });
+      continue;
+    }
+    archives.push(readScenarioArchive(folder, id, issues));
+  }
+  return { archives, issues };
+}
+
+/** One scenario's folder: its checked versions, oldest first; problems are added to `issues`. */
+export function readScenarioArchive(folder: string, id: string, issues: ArchiveIssue[]): ScenarioArchive {
+  const names = existsSync(folder) ? readdirSync(folder).filter(visible) : [];
+  const files = names.map((name) => ({ name, text: readFileSync(join(folder, name), "utf8") }));
+  const checked = checkVersionChain(displayPath(folder), id, files);
+  issues.push(...checked.issues);
+  return { id, folder, versions: checked.versions };
+}

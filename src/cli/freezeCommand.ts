@@ -1,0 +1,49 @@
+import { readFileSync } from "node:fs";
+import { dirname, join } from "node:path";
+import { displayPath } from "./displayPath.js";
+import { loadScenario } from "../scenario/loadScenario.js";
+import { ScenarioInputError, formatIssue } from "../scenario/scenarioIssue.js";
+import { buildTablesDocument } from "../tables/buildTablesDocument.js";
+import { freezeScenario } from "../archive/freezeScenario.js";
+
+/**
+ * `cosmoledger freeze FILE [-m MESSAGE] [--archive DIR]`: validates and computes the scenario, then records it as the
+ * next version in DIR/<id>/ (default: the folder "archive" beside the file). Exit 0 when frozen or already frozen,
+ * 2 on invalid input or a broken archive (nothing written).
+ */
+export function freezeCommand(files: string[], options: { message?: string; archive?: string }): number {
+  if (files.length !== 1) {
+    process.stderr.write("cosmoledger freeze: name exactly one scenario file, e.g. cosmoledger freeze scenarios/lantern-deep-field.yaml -m \"why\"\n");
+    return 2;
+  }
+  const file = files[0];
+  const shown = displayPath(file);
+  let text: string;
+  try {
+    text = readFileSync(file, "utf8");
+  } catch (e) {
+    process.stderr.write(`error: ${shown}:1:1: cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})\n`);
+    return 2;
+  }
+  let scenario;
+  try {
+    scenario = loadScenario(text, shown);
+  } catch (e) {
+    if (!(e instanceof ScenarioInputError)) throw e;
+    for (const i of e.issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
+    process.stderr.write(`${e.issues.length} problem${e.issues.length === 1 ? "" : "s"} found; nothing was frozen.\n`);
+    return 2;
+  }
+  const archive = options.archive ?? join(dirname(file), "archive");
+  const outcome = freezeScenario(archive, scenario, buildTablesDocument(scenario), options.message ?? "");
+  if (outcome.kind === "broken") {
+    for (const i of outcome.issues) process.stderr.write(`error: ${i.file}: ${i.message}\n`);
+    process.stderr.write(`the archive of ${scenario.id} is damaged; nothing was frozen. Restore the files (for example from git) and run cosmoledger verify.\n`);
+    return 2;
+  }
+  const where = displayPath(outcome.file);
+  const hash = outcome.record.sha256.slice(0, 12);
+  if (outcome.kind === "unchanged") process.stdout.write(`unchanged: ${scenario.id} version ${outcome.record.version} already holds these inputs (${where}, sha256 ${hash}); nothing written\n`);
+  else process.stdout.write(`froze ${scenario.id} version ${outcome.record.version} (sha256 ${hash}) into ${where}\n`);
+  return 0;
+}

@@ -1,0 +1,145 @@
+import { frozenInputs, holdsSameInputs, VERSION_FORMAT, type VersionRecord } from "../archive/versionRecord.js";
+import { versionDiff, type VersionDiff } from "../archive/versionDiff.js";
+import type { ScenarioArchive } from "../archive/readArchive.js";
+import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
+import type { TablesDocument } from "../tables/tablesDocument.js";
+import { tablesCsv } from "../tables/tablesCsv.js";
+
+/** A frozen version as pages show it. */
+export interface VersionInfo { n: number; created: string; message: string; sha256: string; previous_sha256: string | null; engine: string; path: string }
+
+/**
+ * What a scenario page shows:
+ * - "unarchived": the scenario file, never frozen;
+ * - "latest": the scenario file, identical to its latest frozen version;
+ * - "draft": the scenario file, which differs from its latest frozen version;
+ * - "frozen": one frozen version, exactly as frozen (address <id>/vN/);
+ * - "archived-only": the latest frozen version of a scenario whose file is gone.
+ */
+export type PageStatus = "unarchived" | "latest" | "draft" | "frozen" | "archived-only";
+
+export interface ScenarioPage {
+  id: string; path: string; root: string; status: PageStatus;
+  doc: TablesDocument; source: string;
+  /** The version this page shows (frozen, latest, archived-only), else null. */
+  version: VersionInfo | null;
+  latest: VersionInfo | null;
+  versionCount: number;
+  /** File names offered for download beside the page. */
+  downloads: string[];
+  /** For a draft: the page comparing the latest version with the draft. */
+  draftDiffPath: string | null;
+}
+
+export interface HistoryEntry extends VersionInfo { diffPath: string | null; summary: string }
+export interface HistoryPage { id: string; title: string; path: string; root: string; entries: HistoryEntry[]; draft: boolean; draftDiffPath: string | null; pairs: { from: number | "draft"; to: number | "draft"; path: string }[] }
+export interface DiffPage { id: string; title: string; path: string; root: string; from: VersionInfo | null; to: VersionInfo | null; fromLabel: string; toLabel: string; diff: VersionDiff }
+
+export interface SitePages {
+  pages: ScenarioPage[];
+  /** The page of each scenario at /<id>/, in id order (the index lists these). */
+  live: ScenarioPage[];
+  histories: HistoryPage[];
+  diffs: DiffPage[];
+  downloads: { path: string; text: string }[];
+}
+
+/** Above this many versions a scenario gets diff pages for consecutive versions and for each version against the latest only. */
+export const ALL_PAIRS_LIMIT = 30;
+
+const info = (r: VersionRecord): VersionInfo => ({ n: r.version, created: r.created, message: r.message, sha256: r.sha256, previous_sha256: r.previous_sha256, engine: r.engine.version, path: `${r.scenario_id}/v${r.version}/` });
+const diffPath = (id: string, a: number | "draft", b: number | "draft") => `${id}/diff/${a === "draft" ? "draft" : `v${a}`}-${b === "draft" ? "draft" : `v${b}`}/`;
+
+/** The draft as an unsealed record, so that it can be compared with versions. */
+function draftRecord(scenario: ResolvedScenario, doc: TablesDocument, n: number): VersionRecord {
+  return { format: VERSION_FORMAT, scenario_id: scenario.id, version: n, created: "", message: "", previous_sha256: null, source: scenario.source, inputs: frozenInputs(scenario), engine: doc.engine, tables: doc, sha256: "" };
+}
+
+function summarise(d: VersionDiff): string {
+  const parts: string[] = [];
+  const models = new Set(d.inputs.filter((c) => c.model !== null).map((c) => c.model));
+  const scenarioKeys = d.inputs.filter((c) => c.model === null).map((c) => c.key);
+  if (models.size > 0) parts.push(`inputs changed in ${models.size} model${models.size === 1 ? "" : "s"}`);
+  if (scenarioKeys.length > 0) parts.push(`scenario ${scenarioKeys.join(", ")} changed`);
+  if (d.modelsAdded.length) parts.push(`added ${d.modelsAdded.join(", ")}`);
+  if (d.modelsRemoved.length) parts.push(`removed ${d.modelsRemoved.join(", ")}`);
+  if (d.engine.changed) parts.push(`engine ${d.engine.before} \u2192 ${d.engine.after}`);
+  if (parts.length === 0) parts.push(d.source.length ? "source text only (comments or layout)" : "no change");
+  return parts.join("; ");
+}
+
+function downloadsOf(path: string, doc: TablesDocument, record: VersionRecord | null): { path: string; text: string }[] {
+  const files = [{ path: `${path}tables.json`, text: JSON.stringify(doc) + "\n" }, ...Object.entries(tablesCsv(doc)).map(([name, text]) => ({ path: path + name, text }))];
+  if (record) files.push({ path: `${path}version.json`, text: JSON.stringify(record) + "\n" });
+  return files;
+}
+
+/**
+ * Every page of the site from the scenario files (already computed) and the checked archive: the live page of each
+ * scenario, one page per frozen version, a history page and diff pages per archived scenario, and the downloads.
+ * Frozen versions are shown from their stored tables, never recomputed.
+ */
+export function sitePages(files: { scenario: ResolvedScenario; doc: TablesDocument }[], archives: ScenarioArchive[]): SitePages {
+  const pages: ScenarioPage[] = [];
+  const live: ScenarioPage[] = [];
+  const histories: HistoryPage[] = [];
+  const diffs: DiffPage[] = [];
+  const downloads: { path: string; text: string }[] = [];
+  const ids = [...new Set([...files.map((f) => f.scenario.id), ...archives.filter((a) => a.versions.length > 0).map((a) => a.id)])].sort();
+  for (const id of ids) {
+    const file = files.find((f) => f.scenario.id === id);
+    const versions = archives.find((a) => a.id === id)?.versions ?? [];
+    const latest = versions.at(-1) ?? null;
+    const isDraft = !!(file && latest && !holdsSameInputs(latest, file.scenario.source.text, file.doc));
+    const draftDiffPath = isDraft && latest ? diffPath(id, latest.version, "draft") : null;
+    for (const r of versions) {
+      const page: ScenarioPage = {
+        id, path: `${id}/v${r.version}/`, root: "../../", status: "frozen", doc: r.tables, source: r.source.text,
+        version: info(r), latest: info(latest!), versionCount: versions.length, downloads: [], draftDiffPath: null,
+      };
+      const files = downloadsOf(page.path, r.tables, r);
+      page.downloads = files.map((f) => f.path.slice(page.path.length));
+      downloads.push(...files);
+      pages.push(page);
+    }
+    const status: PageStatus = !file ? "archived-only" : !latest ? "unarchived" : isDraft ? "draft" : "latest";
+    const doc = file ? file.doc : latest!.tables;
+    const livePage: ScenarioPage = {
+      id, path: `${id}/`, root: "../", status, doc, source: file ? file.scenario.source.text : latest!.source.text,
+      version: status === "latest" || status === "archived-only" ? info(latest!) : null, latest: latest ? info(latest) : null,
+      versionCount: versions.length, downloads: [], draftDiffPath,
+    };
+    const liveFiles = downloadsOf(livePage.path, doc, null);
+    livePage.downloads = liveFiles.map((f) => f.path.slice(livePage.path.length));
+    downloads.push(...liveFiles);
+    pages.push(livePage);
+    live.push(livePage);
+    if (versions.length === 0) continue;
+
+    const title = doc.scenario.title;
+    const points: { label: number | "draft"; record: VersionRecord }[] = versions.map((r) => ({ label: r.version, record: r }));
+    if (isDraft && file) points.push({ label: "draft", record: draftRecord(file.scenario, file.doc, latest!.version + 1) });
+    const pairs: HistoryPage["pairs"] = [];
+    const all = points.length <= ALL_PAIRS_LIMIT;
+    for (let i = 0; i < points.length; i++) for (let j = i + 1; j < points.length; j++) {
+      if (!all && j !== i + 1 && j !== points.length - 1) continue;
+      const a = points[i];
+      const b = points[j];
+      const path = diffPath(id, a.label, b.label);
+      pairs.push({ from: a.label, to: b.label, path });
+      diffs.push({
+        id, title, path, root: "../../../",
+        from: info(a.record), to: b.label === "draft" ? null : info(b.record),
+        fromLabel: `version ${a.label}`, toLabel: b.label === "draft" ? "unfrozen draft" : `version ${b.label}`,
+        diff: versionDiff(a.record, b.record),
+      });
+    }
+    const entries: HistoryEntry[] = versions.map((r, i) => {
+      if (i === 0) return { ...info(r), diffPath: null, summary: "first version" };
+      const d = diffs.find((x) => x.id === id && x.path === diffPath(id, versions[i - 1].version, r.version))!;
+      return { ...info(r), diffPath: d.path, summary: summarise(d.diff) };
+    });
+    histories.push({ id, title, path: `${id}/history/`, root: "../../", entries: entries.reverse(), draft: isDraft, draftDiffPath, pairs });
+  }
+  return { pages, live, histories, diffs, downloads };
+}
