@@ -2,6 +2,7 @@
 import { runEngineBench } from "./engine.js";
 import { runComputeBench } from "./compute.js";
 import { runSiteBench } from "./site.js";
+import { runArchiveBench } from "./archive.js";
 
 const engine = runEngineBench();
 console.log(`engine: ${engine.points} points (8 models x 2000 redshifts, z 0..20, all per-redshift quantities)`);
@@ -15,8 +16,12 @@ console.log(`  compute, 8 models x (2000 grid + 20 table redshifts): ${cli.compu
 const site = runSiteBench();
 site.sizes.forEach((n, i) => console.log(`site: ${n} generated scenarios x 4 models: ${site.seconds[i].toFixed(2)} s (${(1000 * site.seconds[i] / n).toFixed(1)} ms per scenario page)`));
 console.log(`  largest demo scenario page (HTML with inline chart data, without Chart.js): ${site.maxPageKB.toFixed(0)} KB`);
+const archive = runArchiveBench();
+console.log(`archive: freeze (whole process) median ${archive.freezeMedianMs.toFixed(0)} ms; record ${archive.recordKB.toFixed(0)} KB each`);
+console.log(`  verify ${archive.versions} versions (hashes, chain, recompute): ${archive.verifyMs.toFixed(0)} ms; build with ${archive.versions} version pages and every diff pair: ${(archive.buildMs / 1000).toFixed(2)} s`);
 console.log(JSON.stringify({
   points: engine.points, ms: Number(engine.ms.toFixed(3)), ms_with_neutrinos: Number(engine.nuMs.toFixed(3)), max_rel_error: engine.maxRelError,
   help_ms_beyond_node: Number((cli.helpMs - cli.nodeStartMs).toFixed(1)), compute_ms_beyond_node: Number((cli.computeMs - cli.nodeStartMs).toFixed(1)),
   site_200_s: Number(site.seconds[2].toFixed(2)), max_page_kb: Number(site.maxPageKB.toFixed(1)),
+  freeze_ms: Number(archive.freezeMedianMs.toFixed(1)), verify_20_ms: Number(archive.verifyMs.toFixed(1)), build_20_versions_s: Number((archive.buildMs / 1000).toFixed(2)),
 }));

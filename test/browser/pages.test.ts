@@ -101,6 +101,16 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     }
   }, 120_000);
 
+  it("version, history and diff pages of the demo archive load cleanly; a version page draws its frozen charts", async () => {
+    for (const path of ["/lantern-deep-field/v1/index.html", "/lantern-deep-field/history/index.html", "/lantern-deep-field/diff/v1-v2/index.html"]) {
+      const { page, problems } = await open(base + path);
+      expect(problems, path).toEqual([]);
+      if (path.includes("/v1/")) for (const n of await drawnPixels(page)) expect(n, path).toBeGreaterThan(2000);
+      await page.screenshot({ path: join(SHOTS, path.replace(/\//g, "_").replace(/^_/, "") + ".png") });
+      await page.close();
+    }
+  }, 120_000);
+
   it("the log/linear control changes the chart", async () => {
     const { page, problems } = await open(base + "/lantern-deep-field/index.html");
     const figure = page.locator('figure[data-chart="distances"]');
