@@ -7,8 +7,8 @@ import { CLOSURE_TEX, FRIEDMANN_TEX } from "./dist/site/renderMath.js";
 import { formatIssue } from "./dist/scenario/scenarioIssue.js";
 import { ENGINE_VERSION } from "./dist/engine/engineVersion.js";
 import { SITE_MARKER } from "./dist/cli/siteMarker.js";
-import { writeFileSync } from "node:fs";
-import { join } from "node:path";
+import { mkdirSync, writeFileSync } from "node:fs";
+import { dirname, join } from "node:path";
 
 export default function (eleventyConfig) {
   const scenariosDir = process.env.COSMOLEDGER_SCENARIOS ?? "scenarios";
@@ -17,12 +17,13 @@ export default function (eleventyConfig) {
   for (const [name, fn] of Object.entries({ ...TEXT_FILTERS, ...HTML_FILTERS })) eleventyConfig.addFilter(name, fn);
 
   // `cosmoledger build` hands over the ledger it checked; `npm start` recomputes it on every rebuild.
+  let current = null;
   eleventyConfig.addGlobalData("ledger", () => {
-    const ready = getSiteLedger();
-    if (ready) return ready;
+    current = getSiteLedger();
+    if (current) return current;
     const { ledger, issues } = readLedger(scenariosDir, archiveDir);
     if (!ledger) throw new Error(issues.map(formatIssue).join("\n"));
-    return ledger;
+    return (current = ledger);
   });
   eleventyConfig.addGlobalData("catalog", { ...catalog });
   eleventyConfig.addGlobalData("tex", { friedmann: FRIEDMANN_TEX, closure: CLOSURE_TEX });
@@ -30,7 +31,13 @@ export default function (eleventyConfig) {
   eleventyConfig.addWatchTarget(scenariosDir);
   eleventyConfig.addWatchTarget(archiveDir);
   // Mark the output as ours, so that `cosmoledger build` may replace a folder that `npm start` wrote.
+  // Exports (tables in five formats, chart images) are files, not pages: they are written beside the pages, then the marker.
   eleventyConfig.on("eleventy.after", ({ dir }) => {
+    for (const f of current?.exportFiles ?? []) {
+      const target = join(dir.output, f.path);
+      mkdirSync(dirname(target), { recursive: true });
+      writeFileSync(target, f.content);
+    }
     writeFileSync(join(dir.output, SITE_MARKER), "Built by cosmoledger; this folder is replaced by the next build.\n");
   });
 

@@ -1,13 +1,12 @@
 import { existsSync, mkdirSync, readdirSync, renameSync, rmSync } from "node:fs";
 import { basename, dirname, join, resolve } from "node:path";
-import { fileURLToPath } from "node:url";
+import { PACKAGE_ROOT } from "./toolVersion.js";
 import { defaultArchive, readLedger, setSiteLedger } from "../site/siteLedger.js";
 import { formatIssue } from "../scenario/scenarioIssue.js";
 
 import { SITE_MARKER } from "./siteMarker.js";
 
-/** The package root (where .eleventy.js and content/ live), from dist/cli/. */
-const PACKAGE_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), "../..");
+
 
 /**
  * Check and compute every scenario of `scenariosDir`, render them with Eleventy into a temporary folder beside

@@ -3,22 +3,47 @@ export const DISPLAY_DIGITS = 6;
 
 const SUPERSCRIPT: Record<string, string> = { "-": "\u207b", "0": "\u2070", "1": "\u00b9", "2": "\u00b2", "3": "\u00b3", "4": "\u2074", "5": "\u2075", "6": "\u2076", "7": "\u2077", "8": "\u2078", "9": "\u2079" };
 
+/** A number's printed parts: sign, digits and (for scientific notation) the power of ten; null for no number. */
+export interface NumberParts { negative: boolean; mantissa: string; exponent: number | null }
+
+/**
+ * The digits a page prints for `x` rounded to `digits` significant figures: fixed notation for 1e-3 <= |x| < 1e6,
+ * otherwise mantissa and power of ten. Every output format (HTML, Markdown, LaTeX) is built from these parts.
+ */
+export function numberParts(x: number | null | undefined, digits = DISPLAY_DIGITS): NumberParts | null {
+  if (x === null || x === undefined || !Number.isFinite(x)) return null;
+  if (x === 0) return { negative: false, mantissa: "0", exponent: null };
+  const ax = Math.abs(x);
+  if (ax >= 1e-3 && ax < 1e6) {
+    const s = ax.toPrecision(digits);
+    return { negative: x < 0, mantissa: s.includes("e") ? Number(s).toString() : s, exponent: null };
+  }
+  const [mantissa, exponent] = ax.toExponential(digits - 1).split("e");
+  return { negative: x < 0, mantissa, exponent: Number(exponent) };
+}
+
+/** The parts of an input exactly as given (shortest round-trip form). */
+export function exactParts(x: number | null | undefined): NumberParts | null {
+  if (x === null || x === undefined || !Number.isFinite(x)) return null;
+  const [mantissa, exponent] = String(Math.abs(x)).split("e");
+  return { negative: x < 0, mantissa, exponent: exponent === undefined ? null : Number(exponent) };
+}
+
+/** Parts as page text: true minus sign, "m × 10" and a superscript exponent; no number is an em dash. */
+export function partsText(p: NumberParts | null): string {
+  if (p === null) return "\u2014";
+  const sign = p.negative ? "\u2212" : "";
+  if (p.exponent === null) return sign + p.mantissa;
+  const e = String(p.exponent).split("").map((c) => SUPERSCRIPT[c] ?? c).join("");
+  return `${sign}${p.mantissa} \u00d7 10${e}`;
+}
+
 /**
  * A number rounded to `digits` significant figures, as plain text: fixed notation for 1e-3 <= |x| < 1e6,
  * otherwise m x 10^e with a superscript exponent. null (an infinite or undefined quantity) prints as an em dash.
  */
 export function formatNumber(x: number | null | undefined, digits = DISPLAY_DIGITS): string {
-  if (x === null || x === undefined || !Number.isFinite(x)) return "\u2014";
-  if (x === 0) return "0";
-  const ax = Math.abs(x);
-  const sign = x < 0 ? "\u2212" : "";
-  if (ax >= 1e-3 && ax < 1e6) {
-    const s = ax.toPrecision(digits);
-    return sign + (s.includes("e") ? Number(s).toString() : s);
-  }
-  const [mantissa, exponent] = ax.toExponential(digits - 1).split("e");
-  const e = String(Number(exponent)).split("").map((c) => SUPERSCRIPT[c] ?? c).join("");
-  return `${sign}${mantissa} \u00d7 10${e}`;
+  return partsText(numberParts(x, digits));
 }
 
 /** A relative difference as a signed percentage with three significant figures ("+1.23 %"); null prints as an em dash. */
@@ -32,10 +57,5 @@ export function formatPercent(relative: number | null | undefined): string {
 
 /** An input value exactly as given (shortest round-trip form), with a true minus sign and a superscript exponent. */
 export function formatExact(x: number | null | undefined): string {
-  if (x === null || x === undefined || !Number.isFinite(x)) return "\u2014";
-  const [mantissa, exponent] = String(Math.abs(x)).split("e");
-  const sign = x < 0 ? "\u2212" : "";
-  if (exponent === undefined) return sign + mantissa;
-  const e = String(Number(exponent)).split("").map((c) => SUPERSCRIPT[c] ?? c).join("");
-  return `${sign}${mantissa} \u00d7 10${e}`;
+  return partsText(exactParts(x));
 }

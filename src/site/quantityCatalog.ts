@@ -118,3 +118,13 @@ export const CHART_SERIES: QuantityInfo[] = [
   { key: "D_H_over_r_drag", label: "D_H / r_drag", unit: "" },
   { key: "D_V_over_r_drag", label: "D_V / r_drag", unit: "" },
 ];
+
+/** The charts of a scenario page; each offers the listed grid series (the first is shown by default). "bao" needs a baryon density. */
+export const CHARTS: { id: string; title: string; keys: string[] }[] = [
+  { id: "distances", title: "Distances", keys: ["comoving_distance_Mpc", "transverse_comoving_distance_Mpc", "angular_diameter_distance_Mpc", "luminosity_distance_Mpc"] },
+  { id: "expansion", title: "Expansion rate H(z)/(1+z)", keys: ["H_over_1pz_km_s_Mpc"] },
+  { id: "times", title: "Age and lookback time", keys: ["age_Gyr", "lookback_time_Gyr"] },
+  { id: "scale", title: "Proper scale", keys: ["kpc_per_arcsec_proper"] },
+  { id: "volume", title: "Comoving volume inside z", keys: ["comoving_volume_Gpc3"] },
+  { id: "bao", title: "BAO distance ratios", keys: ["D_V_over_r_drag", "D_M_over_r_drag", "D_H_over_r_drag"] },
+];

@@ -7,7 +7,10 @@ import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
 import type { TablesDocument } from "../tables/tablesDocument.js";
 import { readArchive } from "../archive/readArchive.js";
-import { sitePages, type SitePages } from "./sitePages.js";
+import { sitePages, type PageExporter, type SitePages } from "./sitePages.js";
+import { EXPORT_FORMATS, exportFiles } from "../exports/exportFiles.js";
+import { cachedRenderers } from "./imageCache.js";
+import { TOOL_VERSION } from "../cli/toolVersion.js";
 
 /** What the site is built from: every page's tables document (live or frozen), the archive's pages and the downloads. */
 export interface SiteLedger extends SitePages {
@@ -29,7 +32,7 @@ export const defaultArchive = (scenariosDir: string) => join(scenariosDir, "arch
  * Reads, validates and computes every scenario of a folder and reads the archive (checking every hash and the
  * chains); either a ledger or the issues that stop the build.
  */
-export function readLedger(dir: string, archiveDir: string = defaultArchive(dir)): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
+export function readLedger(dir: string, archiveDir: string = defaultArchive(dir), options: { exports?: boolean } = {}): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
   const issues: ScenarioIssue[] = [];
   const files: { scenario: ResolvedScenario; doc: TablesDocument }[] = [];
   const seen = new Map<string, string>();
@@ -52,7 +55,9 @@ export function readLedger(dir: string, archiveDir: string = defaultArchive(dir)
   const archive = readArchive(archiveDir);
   for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
   if (issues.length > 0) return { ledger: null, issues };
-  const pages = sitePages(files, archive.archives);
+  const renderers = cachedRenderers();
+  const exporter: PageExporter = (doc, base, page) => exportFiles(doc, base, page, EXPORT_FORMATS, renderers);
+  const pages = sitePages(files, archive.archives, options.exports === false ? null : exporter, TOOL_VERSION);
   return { ledger: { ...pages, docs: pages.live.map((p) => p.doc), archive: displayPath(archiveDir) }, issues: [] };
 }
 

@@ -4,6 +4,11 @@ import type { ScenarioArchive } from "../archive/readArchive.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import type { TablesDocument } from "../tables/tablesDocument.js";
 import { tablesCsv } from "../tables/tablesCsv.js";
+import type { ExportIndex } from "../exports/exportFiles.js";
+import type { ExportProvenance } from "../exports/exportProvenance.js";
+
+/** Makes the exports of one page (the site passes exportFiles with cached chart renderers). */
+export type PageExporter = (doc: TablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string) => { files: { name: string; content: string | Buffer }[]; index: ExportIndex };
 
 /** A frozen version as pages show it. */
 export interface VersionInfo { n: number; created: string; message: string; sha256: string; previous_sha256: string | null; engine: string; path: string }
@@ -29,6 +34,8 @@ export interface ScenarioPage {
   downloads: string[];
   /** For a draft: the page comparing the latest version with the draft. */
   draftDiffPath: string | null;
+  /** The page's exports (files under <path>exports/) and the text behind its copy buttons; null when exports are off. */
+  exports: ExportIndex | null;
 }
 
 export interface HistoryEntry extends VersionInfo { diffPath: string | null; summary: string }
@@ -42,6 +49,8 @@ export interface SitePages {
   histories: HistoryPage[];
   diffs: DiffPage[];
   downloads: { path: string; text: string }[];
+  /** Export files (text and images), written beside the pages after Eleventy has run. */
+  exportFiles: { path: string; content: string | Buffer }[];
 }
 
 /** Above this many versions a scenario gets diff pages for consecutive versions and for each version against the latest only. */
@@ -79,7 +88,20 @@ function downloadsOf(path: string, doc: TablesDocument, record: VersionRecord | 
  * scenario, one page per frozen version, a history page and diff pages per archived scenario, and the downloads.
  * Frozen versions are shown from their stored tables, never recomputed.
  */
-export function sitePages(files: { scenario: ResolvedScenario; doc: TablesDocument }[], archives: ScenarioArchive[]): SitePages {
+export function sitePages(files: { scenario: ResolvedScenario; doc: TablesDocument }[], archives: ScenarioArchive[], exporter: PageExporter | null = null, toolVersion = ""): SitePages {
+  const exportFiles: SitePages["exportFiles"] = [];
+  const attachExports = (page: ScenarioPage) => {
+    if (!exporter) return;
+    const v = page.version;
+    const base = {
+      tool: "cosmoledger", tool_version: toolVersion, scenario_id: page.id, scenario_title: page.doc.scenario.title,
+      version: v ? v.n : null, version_sha256: v ? v.sha256 : null, inputs_sha256: page.doc.scenario.inputs_sha256, engine_version: page.doc.engine.version,
+    };
+    const made = exporter(page.doc, base, `${page.path}index.html`);
+    page.exports = made.index;
+    exportFiles.push(...made.files.map((f) => ({ path: `${page.path}exports/${f.name}`, content: f.content })));
+    exportFiles.push({ path: `${page.path}exports/copy.js`, content: copyScript(made.index) });
+  };
   const pages: ScenarioPage[] = [];
   const live: ScenarioPage[] = [];
   const histories: HistoryPage[] = [];
@@ -95,8 +117,9 @@ export function sitePages(files: { scenario: ResolvedScenario; doc: TablesDocume
     for (const r of versions) {
       const page: ScenarioPage = {
         id, path: `${id}/v${r.version}/`, root: "../../", status: "frozen", doc: r.tables, source: r.source.text,
-        version: info(r), latest: info(latest!), versionCount: versions.length, downloads: [], draftDiffPath: null,
+        version: info(r), latest: info(latest!), versionCount: versions.length, downloads: [], draftDiffPath: null, exports: null,
       };
+      attachExports(page);
       const files = downloadsOf(page.path, r.tables, r);
       page.downloads = files.map((f) => f.path.slice(page.path.length));
       downloads.push(...files);
@@ -107,8 +130,9 @@ export function sitePages(files: { scenario: ResolvedScenario; doc: TablesDocume
     const livePage: ScenarioPage = {
       id, path: `${id}/`, root: "../", status, doc, source: file ? file.scenario.source.text : latest!.source.text,
       version: status === "latest" || status === "archived-only" ? info(latest!) : null, latest: latest ? info(latest) : null,
-      versionCount: versions.length, downloads: [], draftDiffPath,
+      versionCount: versions.length, downloads: [], draftDiffPath, exports: null,
     };
+    attachExports(livePage);
     const liveFiles = downloadsOf(livePage.path, doc, null);
     livePage.downloads = liveFiles.map((f) => f.path.slice(livePage.path.length));
     downloads.push(...liveFiles);
@@ -141,5 +165,11 @@ export function sitePages(files: { scenario: ResolvedScenario; doc: TablesDocume
     });
     histories.push({ id, title, path: `${id}/history/`, root: "../../", entries: entries.reverse(), draft: isDraft, draftDiffPath, pairs });
   }
-  return { pages, live, histories, diffs, downloads };
+  return { pages, live, histories, diffs, downloads, exportFiles };
+}
+
+/** The copy-to-clipboard texts of a page as a script that only assigns data (loaded with a script element, so it works from file://). */
+function copyScript(index: ExportIndex): string {
+  const data = { tables: index.copy, assumptions: { md: index.assumptions.plain, tex: index.assumptions.latex } };
+  return `// Generated by cosmoledger: the Markdown and LaTeX behind this page's copy buttons. Data only.\nwindow.cosmoledgerCopy = ${JSON.stringify(data).replace(/</g, "\\u003c")};\n`;
 }

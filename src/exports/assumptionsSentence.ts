@@ -1,0 +1,99 @@
+import type { ModelTables, TablesDocument } from "../tables/tablesDocument.js";
+import { escapeLatex } from "./exportFormats.js";
+import { versionLabel, type ExportProvenance } from "./exportProvenance.js";
+
+/** How a parameter is written in prose and in LaTeX (trade notation). */
+const SYMBOL: Record<string, { plain: string; tex: string; unit?: string; texUnit?: string }> = {
+  H0: { plain: "H0", tex: "H_0", unit: "km/s/Mpc", texUnit: "\\,\\mathrm{km\\,s^{-1}\\,Mpc^{-1}}" },
+  Omega_m: { plain: "Omega_m", tex: "\\Omega_\\mathrm{m}" },
+  Omega_k: { plain: "Omega_k", tex: "\\Omega_k" },
+  Omega_de: { plain: "Omega_de", tex: "\\Omega_\\mathrm{DE}" },
+  Omega_Lambda: { plain: "Omega_Lambda", tex: "\\Omega_\\Lambda" },
+  w0: { plain: "w0", tex: "w_0" },
+  wa: { plain: "wa", tex: "w_a" },
+  Omega_b: { plain: "Omega_b", tex: "\\Omega_\\mathrm{b}" },
+  omega_b: { plain: "omega_b", tex: "\\omega_\\mathrm{b}" },
+  T_cmb: { plain: "T_cmb", tex: "T_\\mathrm{CMB}", unit: "K", texUnit: "\\,\\mathrm{K}" },
+  N_eff: { plain: "N_eff", tex: "N_\\mathrm{eff}" },
+};
+
+interface Piece { plain: string; tex: string }
+const texNumber = (x: number) => {
+  const [m, e] = String(x).split("e");
+  return e === undefined ? m : `${m}\\times10^{${Number(e)}}`;
+};
+const assign = (key: string, x: number): Piece => {
+  const s = SYMBOL[key];
+  return { plain: `${s.plain} = ${x}${s.unit ? ` ${s.unit}` : ""}`, tex: `$${s.tex} = ${texNumber(x)}${s.texUnit ?? ""}$` };
+};
+
+/** The inputs of one model that have the given provenance, in a fixed order. */
+function inputs(m: ModelTables, provenance: "set" | "default" | "inherited"): Piece[] {
+  const out: Piece[] = [];
+  const pv = m.provenance;
+  const p = m.parameters;
+  if (pv.H0 === provenance) out.push(assign("H0", p.H0));
+  if (pv.Omega_m === provenance) out.push(assign("Omega_m", p.Omega_m));
+  if (pv.curvature_from === provenance) {
+    if (p.curvature_from === "flat") out.push({ plain: "spatially flat", tex: "spatially flat" });
+    else if (p.curvature_from === "Omega_k") out.push(assign("Omega_k", p.Omega_k));
+    else out.push(assign(p.curvature_from, p.Omega_de));
+  }
+  if (pv.w0 === provenance) out.push(assign("w0", p.w0));
+  if (pv.wa === provenance) out.push(assign("wa", p.wa));
+  if (pv.Omega_b === provenance && p.Omega_b !== null) out.push(assign("Omega_b", p.Omega_b));
+  if (pv.omega_b === provenance && p.omega_b !== null) out.push(assign("omega_b", p.omega_b));
+  if (pv.m_nu_eV === provenance) {
+    const ms = p.m_nu_eV;
+    out.push(ms.length === 0 ? { plain: "massless neutrinos", tex: "massless neutrinos" }
+      : { plain: `massive neutrino${ms.length === 1 ? "" : "s"} of ${ms.join(", ")} eV`, tex: `massive neutrino${ms.length === 1 ? "" : "s"} of $${ms.join(", ")}\\,\\mathrm{eV}$` });
+  }
+  if (pv.radiation === provenance) out.push(p.radiation === "none" ? { plain: "no radiation", tex: "no radiation" } : { plain: "thermal radiation", tex: "thermal radiation" });
+  if (pv.T_cmb === provenance && p.T_cmb !== null) out.push(assign("T_cmb", p.T_cmb));
+  if (pv.N_eff === provenance && p.N_eff !== null) out.push(assign("N_eff", p.N_eff));
+  return out;
+}
+
+const join = (xs: Piece[], sep = ", "): Piece => ({ plain: xs.map((x) => x.plain).join(sep), tex: xs.map((x) => x.tex).join(sep) });
+
+/**
+ * The assumptions behind a page, as one paragraph for the methods section of a proposal or paper, in plain text and
+ * in LaTeX: every model with the parameters set in it, the defaults that were applied, the methods, the tool and
+ * engine versions, and the scenario's version and hash.
+ */
+export function assumptionsSentence(doc: TablesDocument, p: ExportProvenance): { plain: string; tex: string } {
+  const labelOf = (id: string) => doc.models.find((m) => m.id === id)?.label ?? id;
+  const models = doc.models.map((m) => {
+    const set = inputs(m, "set");
+    const base = m.extends ? { plain: `as ${labelOf(m.extends)} but `, tex: `as ${escapeLatex(labelOf(m.extends))} but ` } : { plain: "", tex: "" };
+    const body = set.length ? join(set) : { plain: "no parameter of its own", tex: "no parameter of its own" };
+    const baseline = m.id === doc.scenario.baseline ? " (baseline)" : "";
+    return { plain: `${m.label}${baseline}: ${base.plain}${body.plain}`, tex: `${escapeLatex(m.label)}${baseline}: ${base.tex}${body.tex}` };
+  });
+  // Defaults: the same default in every model is said once.
+  const perModel = doc.models.map((m) => inputs(m, "default"));
+  const common = perModel[0].filter((d) => perModel.every((ds) => ds.some((x) => x.plain === d.plain)));
+  const special = doc.models.map((m, i) => ({ m, ds: perModel[i].filter((d) => !common.some((c) => c.plain === d.plain)) })).filter((x) => x.ds.length);
+  const defaults: Piece[] = [];
+  if (common.length) defaults.push({ plain: `${join(common).plain}${doc.models.length > 1 ? " in every model" : ""}`, tex: `${join(common).tex}${doc.models.length > 1 ? " in every model" : ""}` });
+  for (const s of special) defaults.push({ plain: `${join(s.ds).plain} in ${s.m.label}`, tex: `${join(s.ds).tex} in ${escapeLatex(s.m.label)}` });
+  const early = doc.models.some((m) => m.parameters.Omega_b !== null);
+  const version = p.version === null ? `an unfrozen draft (inputs SHA-256 ${p.inputs_sha256})` : `${versionLabel(p)} (SHA-256 ${p.version_sha256})`;
+  const plain = [
+    `Background quantities were computed for ${doc.models.length} FLRW model${doc.models.length === 1 ? "" : "s"} of the scenario "${doc.scenario.title}": ${models.map((m) => m.plain).join("; ")}.`,
+    defaults.length ? `Defaults applied: ${defaults.map((d) => d.plain).join("; ")}.` : "No defaults were applied.",
+    `Curvature follows from the closure relation; integrals were evaluated by adaptive Gauss-Kronrod quadrature to a relative tolerance of ${doc.engine.tolerance}.`,
+    early ? "Recombination and drag redshifts come from the fitting formulas of Hu & Sugiyama (1996) and Eisenstein & Hu (1998), and r_drag from the calibrated formula of Aubourg et al. (2015)." : "",
+    "The model is the homogeneous background only: perturbations, lensing and peculiar velocities are not included.",
+    `Computed with cosmoledger ${p.tool_version} (engine ${doc.engine.version}); scenario ${doc.scenario.id}, ${version}.`,
+  ].filter(Boolean).join(" ");
+  const tex = [
+    `Background quantities were computed for ${doc.models.length} FLRW model${doc.models.length === 1 ? "" : "s"} of the scenario \`\`${escapeLatex(doc.scenario.title)}'': ${models.map((m) => m.tex).join("; ")}.`,
+    defaults.length ? `Defaults applied: ${defaults.map((d) => d.tex).join("; ")}.` : "No defaults were applied.",
+    `Curvature follows from the closure relation; integrals were evaluated by adaptive Gauss--Kronrod quadrature to a relative tolerance of $${texNumber(doc.engine.tolerance)}$.`,
+    early ? "Recombination and drag redshifts come from the fitting formulas of Hu \\& Sugiyama (1996) and Eisenstein \\& Hu (1998), and $r_\\mathrm{drag}$ from the calibrated formula of Aubourg et al.\\ (2015)." : "",
+    "The model is the homogeneous background only: perturbations, lensing and peculiar velocities are not included.",
+    `Computed with cosmoledger ${escapeLatex(p.tool_version)} (engine ${escapeLatex(doc.engine.version)}); scenario \\texttt{${escapeLatex(doc.scenario.id)}}, ${escapeLatex(version)}.`,
+  ].filter(Boolean).join("\n");
+  return { plain: plain + "\n", tex: `% source: scenario ${doc.scenario.id}, ${versionLabel(p)}; page ${p.page}\n${tex}\n` };
+}

@@ -1,0 +1,72 @@
+import type { TablesDocument } from "../tables/tablesDocument.js";
+import { exportTables, type ExportTable } from "./exportTables.js";
+import { tableCsv, tableHtml, tableJson, tableLatex, tableMarkdown } from "./exportFormats.js";
+import { assumptionsSentence } from "./assumptionsSentence.js";
+import { chartPng, chartSpecs, chartSvg, type ChartSpec } from "./chartImage.js";
+import { escapeHtml, escapeMarkdown } from "./exportFormats.js";
+import { provenanceLine } from "./exportProvenance.js";
+import type { ExportProvenance } from "./exportProvenance.js";
+
+export const TABLE_FORMATS = ["csv", "json", "md", "tex", "html"] as const;
+export const CHART_FORMATS = ["png", "svg"] as const;
+export const EXPORT_FORMATS = [...TABLE_FORMATS, ...CHART_FORMATS] as const;
+export type ExportFormat = (typeof EXPORT_FORMATS)[number];
+
+const RENDER = { csv: tableCsv, json: tableJson, md: tableMarkdown, tex: tableLatex, html: tableHtml } as const;
+
+/** What a page needs to know about its exports: file names per table and chart, and the text behind the copy buttons. */
+export interface ExportIndex {
+  tables: { id: string; title: string; files: Partial<Record<ExportFormat, string>> }[];
+  charts: { id: string; key: string; title: string; alt: string; files: Partial<Record<ExportFormat, string>> }[];
+  assumptions: { txt: string; tex: string; plain: string; latex: string };
+  /** Markdown and LaTeX of each table, for copy-to-clipboard. */
+  copy: Record<string, { md: string; tex: string }>;
+}
+
+/**
+ * Every export of one page (names relative to the page's exports folder): each table in each table format, each
+ * chart series as PNG and SVG, and the assumptions paragraph as text and LaTeX. `pageAddress` is the page relative to
+ * the site root; each table's provenance points at its section.
+ */
+/** How chart images are made; the site passes a cached version of the same functions. */
+export interface ChartRenderers { png: (spec: ChartSpec, p: ExportProvenance) => Buffer; svg: (spec: ChartSpec, p: ExportProvenance) => string }
+
+export function exportFiles(doc: TablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string, formats: readonly ExportFormat[] = EXPORT_FORMATS, render: ChartRenderers = { png: chartPng, svg: chartSvg }): { files: { name: string; content: string | Buffer }[]; index: ExportIndex } {
+  const files: { name: string; content: string | Buffer }[] = [];
+  const provenance = (anchor: string): ExportProvenance => ({ ...base, page: `${pageAddress}#${anchor}` });
+  const index: ExportIndex = { tables: [], charts: [], assumptions: { txt: "assumptions.txt", tex: "assumptions.tex", plain: "", latex: "" }, copy: {} };
+  const tables: ExportTable[] = exportTables(doc);
+  for (const t of tables) {
+    const p = provenance(t.anchor);
+    const entry: ExportIndex["tables"][number] = { id: t.id, title: t.title, files: {} };
+    for (const f of TABLE_FORMATS) {
+      if (!formats.includes(f)) continue;
+      const name = `${t.id}.${f}`;
+      files.push({ name, content: RENDER[f](t, p) });
+      entry.files[f] = name;
+    }
+    index.copy[t.id] = { md: tableMarkdown(t, p), tex: tableLatex(t, p) };
+    index.tables.push(entry);
+  }
+  const wantCharts = CHART_FORMATS.filter((f) => formats.includes(f));
+  if (wantCharts.length > 0) {
+    for (const spec of chartSpecs(doc)) {
+      const p = provenance("charts");
+      const entry: ExportIndex["charts"][number] = { id: spec.id, key: spec.key, title: spec.title, alt: spec.alt, files: {} };
+      const stem = `chart-${spec.id}-${spec.key}`;
+      if (wantCharts.includes("png")) files.push({ name: (entry.files.png = `${stem}.png`), content: render.png(spec, p) });
+      if (wantCharts.includes("svg")) files.push({ name: (entry.files.svg = `${stem}.svg`), content: render.svg(spec, p) });
+      index.charts.push(entry);
+    }
+    // Ready-made image references with their alt text, for a wiki page (Markdown) or any HTML page.
+    const image = (c: ExportIndex["charts"][number]) => c.files.png ?? c.files.svg!;
+    const source = provenanceLine(provenance("charts"));
+    files.push({ name: "charts.md", content: [...index.charts.map((c) => `![${escapeMarkdown(c.alt)}](${image(c)})`), "", `Source: ${escapeMarkdown(source)}`, ""].join("\n\n") });
+    files.push({ name: "charts.html", content: [...index.charts.map((c) => `<figure class="cosmoledger-export"><img src="${escapeHtml(image(c))}" alt="${escapeHtml(c.alt)}" width="600" height="340"><figcaption>${escapeHtml(c.title)}. Source: ${escapeHtml(source)}</figcaption></figure>`), ""].join("\n") });
+  }
+  const sentence = assumptionsSentence(doc, provenance("assumptions"));
+  files.push({ name: "assumptions.txt", content: sentence.plain }, { name: "assumptions.tex", content: sentence.tex });
+  index.assumptions.plain = sentence.plain;
+  index.assumptions.latex = sentence.tex;
+  return { files, index };
+}

@@ -1,0 +1,101 @@
+import { stringify } from "csv-stringify/sync";
+import type { NumberParts } from "../site/formatNumber.js";
+import type { ExportCell, ExportTable } from "./exportTables.js";
+import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
+
+export const EXPORT_FORMAT = "cosmoledger.export/1";
+
+/** Units as the page writes them (Gpc^3 -> Gpc³). */
+export const unitText = (u: string) => u.replace(/\^3/g, "\u00b3").replace(/\^2/g, "\u00b2");
+const labelWithUnit = (label: string, unit: string) => (unit ? `${label} [${unitText(unit)}]` : label);
+const header = (t: ExportTable) => [t.stub, ...t.columns.map((c) => labelWithUnit(c.label, c.unit))];
+const quantityText = (t: ExportTable) => (t.quantity ? labelWithUnit(t.quantity.label, t.quantity.unit) : null);
+
+/** RFC 4180 CSV (csv-stringify) at full precision, empty cell = null; provenance in leading "#" comment lines. */
+export function tableCsv(t: ExportTable, p: ExportProvenance): string {
+  const comments = [`# ${t.title}${t.quantity ? ` (${quantityText(t)})` : ""}`, `# source: ${provenanceLine(p)}`, "# numbers at full precision; an empty cell is an infinite or undefined quantity"];
+  const value = (c: ExportCell) => (c.value === null ? "" : String(c.value));
+  const body = stringify([header(t), ...t.rows.map((r) => [labelWithUnit(r.label, r.unit), ...r.cells.map(value)])], { record_delimiter: "\r\n" });
+  return comments.join("\r\n") + "\r\n" + body;
+}
+
+/** JSON: provenance, then the table with raw values (full precision) and the page's text for every cell. */
+export function tableJson(t: ExportTable, p: ExportProvenance): string {
+  return JSON.stringify({
+    format: EXPORT_FORMAT, provenance: p,
+    table: {
+      id: t.id, title: t.title, quantity: t.quantity, stub: t.stub, columns: t.columns,
+      rows: t.rows.map((r) => ({ label: r.label, unit: r.unit, values: r.cells.map((c) => c.value), text: r.cells.map((c) => c.text) })),
+    },
+  }, null, 2) + "\n";
+}
+
+/** Characters that Markdown (CommonMark with GFM tables) could read as markup; each is backslash-escaped. */
+const MARKDOWN_SPECIAL = /[\\`*_[\]<>|~&!#$^{}]/g;
+export const escapeMarkdown = (s: string) => s.replace(MARKDOWN_SPECIAL, (c) => `\\${c}`).replace(/\r?\n/g, " ");
+
+/** A GFM pipe table as wiki engines read it, cells as the page prints them, with a title line and a source line. */
+export function tableMarkdown(t: ExportTable, p: ExportProvenance): string {
+  const row = (cells: string[]) => `| ${cells.map(escapeMarkdown).join(" | ")} |`;
+  const align = `| ${["---", ...t.columns.map(() => "---:")].join(" | ")} |`;
+  const lines = [`**${escapeMarkdown(t.title)}**${t.quantity ? ` (${escapeMarkdown(quantityText(t)!)})` : ""}`, "", row(header(t)), align,
+    ...t.rows.map((r) => row([labelWithUnit(r.label, r.unit), ...r.cells.map((c) => c.text)])), "", `Source: ${escapeMarkdown(provenanceLine(p))}`, ""];
+  return lines.join("\n");
+}
+
+const LATEX_SPECIAL: Record<string, string> = {
+  "\\": "\\textbackslash{}", "&": "\\&", "%": "\\%", "$": "\\$", "#": "\\#", "_": "\\_", "{": "\\{", "}": "\\}",
+  "~": "\\textasciitilde{}", "^": "\\textasciicircum{}", "|": "\\textbar{}", "<": "\\textless{}", ">": "\\textgreater{}",
+  "\u2212": "$-$", "\u00d7": "$\\times$", "\u00b2": "\\textsuperscript{2}", "\u00b3": "\\textsuperscript{3}", "\u03c0": "$\\pi$",
+  "\u2264": "$\\le$", "\u2265": "$\\ge$", "\u2013": "--", "\u2014": "---", "\u00b7": "\\textperiodcentered{}", "\u2192": "$\\rightarrow$",
+};
+/** Text for LaTeX: the ten special characters, | < > and the few non-ASCII symbols our labels use. */
+export const escapeLatex = (s: string) => s.replace(/[\\&%$#_{}~^|<>\u2212\u00d7\u00b2\u00b3\u03c0\u2264\u2265\u2013\u2014\u00b7\u2192]/g, (c) => LATEX_SPECIAL[c]).replace(/\r?\n/g, " ");
+
+/** A number in LaTeX with the digits the page shows: 0.306, $-0.015$, $7.76720\times10^{-5}$; no number is ---. */
+export function latexNumber(p: NumberParts | null): string {
+  if (p === null) return "---";
+  if (p.exponent === null) return p.negative ? `$-${p.mantissa}$` : p.mantissa;
+  return `$${p.negative ? "-" : ""}${p.mantissa}\\times10^{${p.exponent}}$`;
+}
+const latexUnit = (u: string) => escapeLatex(u).replace(/\\textasciicircum\{\}(\d)/g, "\\textsuperscript{$1}");
+const latexLabel = (label: string, unit: string) => (unit ? `${escapeLatex(label)} [${latexUnit(unit)}]` : escapeLatex(label));
+
+/** A tabular with booktabs rules (\usepackage{booktabs}); units in the header; provenance in % comments above it. */
+export function tableLatex(t: ExportTable, p: ExportProvenance): string {
+  const n = t.columns.length;
+  const cell = (c: ExportCell) => (c.parts !== null || c.value === null || typeof c.value === "number" ? latexNumber(c.parts) : escapeLatex(c.text));
+  const lines = [
+    `% ${t.title}${t.quantity ? ` (${quantityText(t)})` : ""}`,
+    `% source: ${provenanceLine(p)}`,
+    "% needs \\usepackage{booktabs}",
+    `\\begin{tabular}{l${"r".repeat(n)}}`,
+    "\\toprule",
+  ];
+  if (t.quantity) lines.push(` & \\multicolumn{${n}}{c}{${latexLabel(t.quantity.label, t.quantity.unit)}} \\\\`, `\\cmidrule(lr){2-${n + 1}}`);
+  lines.push(`${escapeLatex(t.stub)} & ${t.columns.map((c) => latexLabel(c.label, c.unit)).join(" & ")} \\\\`, "\\midrule");
+  for (const r of t.rows) lines.push(`${latexLabel(r.label, r.unit)} & ${r.cells.map(cell).join(" & ")} \\\\`);
+  lines.push("\\bottomrule", "\\end{tabular}", "");
+  return lines.join("\n");
+}
+
+export const escapeHtml = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
+
+/** A self-contained HTML fragment for a wiki: one figure with the table, inline styles only, the source as its caption. */
+export function tableHtml(t: ExportTable, p: ExportProvenance): string {
+  const th = "padding:2px 8px;border-bottom:1px solid #888;text-align:left";
+  const td = "padding:2px 8px;text-align:right;font-variant-numeric:tabular-nums";
+  const out = [
+    `<figure class="cosmoledger-export" data-scenario="${escapeHtml(p.scenario_id)}" data-version="${escapeHtml(versionLabel(p))}" data-table="${escapeHtml(t.id)}">`,
+    `<table style="border-collapse:collapse">`,
+    `<caption style="text-align:left;font-weight:bold">${escapeHtml(t.title)}</caption>`,
+    "<thead>",
+  ];
+  if (t.quantity) out.push(`<tr><th></th><th scope="colgroup" colspan="${t.columns.length}" style="${th};text-align:center">${escapeHtml(quantityText(t)!)}</th></tr>`);
+  out.push(`<tr>${header(t).map((h) => `<th scope="col" style="${th}">${escapeHtml(h)}</th>`).join("")}</tr>`, "</thead>", "<tbody>");
+  for (const r of t.rows) {
+    out.push(`<tr><th scope="row" style="${th};border-bottom:0">${escapeHtml(labelWithUnit(r.label, r.unit))}</th>${r.cells.map((c) => `<td style="${typeof c.value === "number" || c.parts ? td : "padding:2px 8px"}">${escapeHtml(c.text)}</td>`).join("")}</tr>`);
+  }
+  out.push("</tbody>", "</table>", `<figcaption style="font-size:smaller">Source: ${escapeHtml(provenanceLine(p))}</figcaption>`, "</figure>", "");
+  return out.join("\n");
+}

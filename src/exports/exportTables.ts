@@ -1,0 +1,97 @@
+import type { ModelTables, TablesDocument } from "../tables/tablesDocument.js";
+import { EARLY_QUANTITIES, PARAMETERS, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES } from "../site/quantityCatalog.js";
+import { exactParts, numberParts, partsText, type NumberParts } from "../site/formatNumber.js";
+
+/** One cell: the raw value (full precision, for CSV and JSON) and what the page prints (number parts or text). */
+export interface ExportCell { value: number | string | null; parts: NumberParts | null; text: string }
+export interface ExportRow { label: string; unit: string; cells: ExportCell[] }
+
+/** A table as the page shows it, ready for every export format. Units sit in the row labels or in `quantity`. */
+export interface ExportTable {
+  id: string;
+  title: string;
+  /** The page section the table sits in (for the provenance address). */
+  anchor: string;
+  /** For tables of one quantity (redshift tables): its label and unit, shown above the model columns. */
+  quantity: { label: string; unit: string } | null;
+  stub: string;
+  columns: { label: string; unit: string }[];
+  rows: ExportRow[];
+}
+
+const num = (x: number | null | undefined): ExportCell => {
+  const parts = numberParts(x);
+  return { value: x ?? null, parts, text: partsText(parts) };
+};
+const exact = (x: number | null | undefined): ExportCell => {
+  const parts = exactParts(x);
+  return { value: x ?? null, parts, text: partsText(parts) };
+};
+const text = (s: string | null | undefined): ExportCell => ({ value: s ?? null, parts: null, text: s ?? "" });
+const hasEarly = (doc: TablesDocument) => doc.models.some((m) => m.parameters.Omega_b !== null);
+
+/** Every table of a scenario page in page order: models, at a glance, each redshift table, early universe, targets, surveys. */
+export function exportTables(doc: TablesDocument): ExportTable[] {
+  const models = doc.models;
+  const columns = models.map((m) => ({ label: m.label, unit: "" }));
+  const perModel = (label: string, unit: string, f: (m: ModelTables) => ExportCell): ExportRow => ({ label, unit, cells: models.map(f) });
+  const tables: ExportTable[] = [];
+  tables.push({
+    id: "models", title: "Models side by side", anchor: "models", quantity: null, stub: "Parameter", columns,
+    rows: [
+      ...PARAMETERS.map((p) => perModel(p.label, p.unit, (m) => {
+        const v = (m.parameters as unknown as Record<string, number | null>)[p.key];
+        return (m.provenance[p.key] ?? "derived") === "derived" ? num(v) : exact(v);
+      })),
+      perModel("Massive neutrinos", "eV", (m) => text(m.parameters.m_nu_eV.length ? m.parameters.m_nu_eV.join(", ") : "none")),
+      perModel("Radiation", "", (m) => text(m.parameters.radiation)),
+      perModel("Curvature fixed by", "", (m) => text(m.parameters.curvature_from)),
+      perModel("Notes", "", (m) => text(m.notes)),
+    ],
+  });
+  tables.push({
+    id: "glance", title: "At a glance", anchor: "glance", quantity: null, stub: "Quantity", columns,
+    rows: [
+      perModel("Geometry", "", (m) => text(m.summary.geometry as string)),
+      perModel("Fate", "", (m) => text(m.summary.fate === "recollapses" ? "recollapses" : "expands forever")),
+      ...SUMMARY_QUANTITIES.map((q) => perModel(q.label, q.unit, (m) => num(m.summary[q.key] as number | null))),
+    ],
+  });
+  for (const g of REDSHIFT_GROUPS) {
+    if (g.id === "bao" && !hasEarly(doc)) continue;
+    for (const q of g.quantities) {
+      tables.push({
+        id: `z-${q.key}`, title: `${g.title}: ${q.label}`, anchor: `group-${g.id}`, quantity: { label: q.label, unit: q.unit }, stub: "z", columns,
+        rows: models[0].redshifts.map((r, i) => ({ label: exact(r.z).text, unit: "", cells: models.map((m) => num(m.redshifts[i][q.key])) })),
+      });
+    }
+  }
+  if (hasEarly(doc)) {
+    tables.push({
+      id: "early", title: "Early universe", anchor: "early", quantity: null, stub: "Quantity",
+      columns: [{ label: "Method", unit: "" }, ...columns],
+      rows: EARLY_QUANTITIES.map((q) => ({ label: q.label, unit: q.unit, cells: [text(q.method), ...models.map((m) => num(m.summary[q.key] as number | null))] })),
+    });
+  }
+  models[0].targets.forEach((t, ti) => {
+    tables.push({
+      id: `target-${ti + 1}`, title: `Target: ${t.name} (placed by ${t.placed_by})`, anchor: "targets", quantity: null, stub: "Quantity", columns,
+      rows: [
+        ...TARGET_QUANTITIES.map((q) => perModel(q.label, q.unit, (m) => num((m.targets[ti] as unknown as Record<string, number | null>)[q.key]))),
+        perModel("Note", "", (m) => text(m.targets[ti].note)),
+      ],
+    });
+  });
+  if (models[0].surveys.length > 0) {
+    tables.push({
+      id: "surveys", title: "Survey shells", anchor: "surveys", quantity: null, stub: "Shell",
+      columns: [{ label: "Area", unit: "deg^2" }, { label: "z min", unit: "" }, { label: "z max", unit: "" },
+        ...models.flatMap((m) => [{ label: `${m.label}: volume`, unit: "Gpc^3" }, { label: `${m.label}: expected count`, unit: "" }])],
+      rows: models[0].surveys.map((s, si) => ({
+        label: s.name, unit: "",
+        cells: [exact(s.area_deg2), exact(s.z_min), exact(s.z_max), ...models.flatMap((m) => [num(m.surveys[si].volume_Gpc3), num(m.surveys[si].expected_count)])],
+      })),
+    });
+  }
+  return tables;
+}

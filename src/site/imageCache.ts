@@ -1,0 +1,48 @@
+import { createHash } from "node:crypto";
+import { createRequire } from "node:module";
+import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from "node:fs";
+import { dirname, join } from "node:path";
+import { Chart } from "chart.js";
+import { chartPng, chartSvg, type ChartSpec } from "../exports/chartImage.js";
+import type { ChartRenderers } from "../exports/exportFiles.js";
+import type { ExportProvenance } from "../exports/exportProvenance.js";
+import { PACKAGE_ROOT } from "../cli/toolVersion.js";
+
+/** Bump when the drawing code changes, so that cached images are redrawn. */
+const RENDER_REVISION = 1;
+
+function canvasVersion(): string {
+  const require = createRequire(import.meta.url);
+  const main = require.resolve("@napi-rs/canvas");
+  const pkg = join(dirname(main), "package.json");
+  return existsSync(pkg) ? JSON.parse(readFileSync(pkg, "utf8")).version : "unknown";
+}
+
+/**
+ * Chart renderers that keep each image in a content-addressed cache (default node_modules/.cache/cosmoledger/images;
+ * COSMOLEDGER_CACHE=DIR moves it, COSMOLEDGER_CACHE=off turns it off). The key covers the chart's data and labels,
+ * the provenance, the drawing revision and the Chart.js and canvas versions, so a cached image is the one that
+ * would be drawn now. Frozen versions therefore cost nothing after their first build.
+ */
+export function cachedRenderers(): ChartRenderers {
+  const setting = process.env.COSMOLEDGER_CACHE;
+  if (setting === "off") return { png: chartPng, svg: chartSvg };
+  const dir = setting ?? join(PACKAGE_ROOT, "node_modules", ".cache", "cosmoledger", "images");
+  const salt = JSON.stringify({ RENDER_REVISION, chart: Chart.version, canvas: canvasVersion() });
+  const cached = <T extends string | Buffer>(ext: string, draw: (s: ChartSpec, p: ExportProvenance) => T, decode: (b: Buffer) => T) => (spec: ChartSpec, p: ExportProvenance): T => {
+    const key = createHash("sha256").update(salt).update(JSON.stringify(spec)).update(JSON.stringify(p)).digest("hex");
+    const file = join(dir, key.slice(0, 2), `${key}.${ext}`);
+    if (existsSync(file)) return decode(readFileSync(file));
+    const out = draw(spec, p);
+    try {
+      mkdirSync(dirname(file), { recursive: true });
+      const tmp = `${file}.${process.pid}.tmp`;
+      writeFileSync(tmp, out);
+      renameSync(tmp, file);
+    } catch {
+      // A read-only or full cache only costs time.
+    }
+    return out;
+  };
+  return { png: cached("png", chartPng, (b) => b), svg: cached("svg", chartSvg, (b) => b.toString("utf8")) };
+}
