@@ -1,5 +1,5 @@
 // Copy-to-clipboard for the Markdown and LaTeX exports. The texts come from exports/copy.js (written at build time);
-// nothing is computed here. Buttons stay hidden when there is nothing to copy.
+// nothing is computed here. The buttons are made here, since they need script anyway.
 (function () {
   "use strict";
   var data = window.cosmoledgerCopy;
@@ -29,10 +29,24 @@
     button.textContent = message;
     setTimeout(function () { button.textContent = label; }, 1500);
   }
+  // One pair of buttons per export paragraph that has copy texts: Markdown (plain text for the assumptions) and LaTeX.
+  document.querySelectorAll("p.exports[data-export]").forEach(function (p) {
+    var id = p.getAttribute("data-export");
+    if (id !== "assumptions" && !data.tables[id]) return;
+    [["md", id === "assumptions" ? "Copy text" : "Copy Markdown"], ["tex", "Copy LaTeX"]].forEach(function (pair) {
+      var button = document.createElement("button");
+      button.type = "button";
+      button.className = "copy";
+      button.setAttribute("data-copy", id);
+      button.setAttribute("data-copy-format", pair[0]);
+      button.textContent = pair[1];
+      p.appendChild(document.createTextNode(" "));
+      p.appendChild(button);
+    });
+  });
   document.querySelectorAll("button.copy").forEach(function (button) {
     var text = textFor(button);
     if (text === null || text === undefined) return;
-    button.hidden = false;
     button.addEventListener("click", function () {
       var done = function () { button.setAttribute("data-copied", "true"); say(button, "Copied"); };
       var fail = function () { if (fallbackCopy(text)) done(); else say(button, "Copy failed: use the download"); };

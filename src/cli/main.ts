@@ -16,6 +16,9 @@ Commands:
                             record the scenario as its next frozen version (default archive: beside FILE)
   verify [--archive DIR] [--strict] [--json]
                             check the archive's hashes and chains, and recompute every version
+  export FILE [--version N] [--format F,...] [--out DIR]
+                            write every table (csv json md tex html), chart (png svg) and the
+                            assumptions paragraph of a scenario or of one frozen version
 
 Run "cosmoledger <command> --help" for a command's options.
 Exit status: 0 success, 2 invalid input or a damaged archive (nothing written), 3 archived numbers drift
@@ -53,6 +56,19 @@ the latest version writes nothing and names that version.
 Options:
   -m, --message TEXT  why this version was frozen (shown on the history page)
   --archive DIR       archive folder`,
+  export: `Usage: cosmoledger export FILE [--version N] [--format F[,F...]] [--out DIR] [--archive DIR]
+
+Writes the files offered beside each table and chart of the scenario's page: every table (models, at a glance,
+each redshift table, early universe, targets, survey shells) as csv, json, md (pipe table), tex (tabular with
+booktabs rules) and html (self-contained fragment); every chart as png (1800 x 1020 px, 300 dpi at 6 inches)
+and svg; and the assumptions paragraph for a methods section (assumptions.txt, assumptions.tex). Every file
+names its scenario, version (or "unfrozen draft"), hash, engine version and page address.
+
+Options:
+  --version N   export frozen version N from the archive (its stored tables; nothing is recomputed)
+  --format F    only these formats, comma-separated or repeated: csv, json, md, tex, html, png, svg
+  --out DIR     output folder (default out/exports); files go to DIR/<id>/vN/ or DIR/<id>/draft/
+  --archive DIR archive folder (default: the folder "archive" beside FILE)`,
   verify: `Usage: cosmoledger verify [--archive DIR] [--strict] [--json] [--quiet]
 
 Checks every version in the archive (default scenarios/archive): its own SHA-256, its number and the hash chain.
@@ -84,6 +100,7 @@ export async function main(argv: string[]): Promise<number> {
       options: {
         help: { type: "boolean", short: "h" }, out: { type: "string" }, json: { type: "boolean" }, quiet: { type: "boolean" }, scenarios: { type: "string" },
         archive: { type: "string" }, message: { type: "string", short: "m" }, strict: { type: "boolean" },
+        version: { type: "string" }, format: { type: "string", multiple: true },
       },
     });
   } catch (e) {
@@ -102,7 +119,7 @@ export async function main(argv: string[]): Promise<number> {
     const { buildSite } = await import("./buildSite.js");
     return buildSite(parsed.values.scenarios ?? "scenarios", parsed.values.out ?? "_site", parsed.values.quiet ?? false, parsed.values.archive);
   }
-  const known: Record<string, string[]> = { check: ["quiet"], compute: ["out", "json", "quiet"], freeze: ["archive", "message"], verify: ["archive", "strict", "json", "quiet"] };
+  const known: Record<string, string[]> = { check: ["quiet"], compute: ["out", "json", "quiet"], freeze: ["archive", "message"], verify: ["archive", "strict", "json", "quiet"], export: ["version", "format", "out", "archive"] };
   const stray = Object.keys(parsed.values).filter((k) => k !== "help" && !known[command].includes(k));
   if (stray.length > 0) {
     process.stderr.write(`cosmoledger ${command}: option --${stray[0]} does not apply to this command\n\n${HELP[command]}\n`);
@@ -111,6 +128,10 @@ export async function main(argv: string[]): Promise<number> {
   if (command === "freeze") {
     const { freezeCommand } = await import("./freezeCommand.js");
     return freezeCommand(parsed.positionals, parsed.values);
+  }
+  if (command === "export") {
+    const { exportCommand } = await import("./exportCommand.js");
+    return exportCommand(parsed.positionals, parsed.values);
   }
   if (command === "verify") {
     if (parsed.positionals.length > 0) {

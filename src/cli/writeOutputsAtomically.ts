@@ -10,7 +10,7 @@ export class OutputRefusedError extends Error {}
  * Writes every folder's files or none: first each file to a temporary name (flushed), then all renames.
  * A folder that exists, is not empty and lacks the marker was not made by us: refuse rather than overwrite.
  */
-export function writeOutputsAtomically(folders: { dir: string; files: Record<string, string> }[]): void {
+export function writeOutputsAtomically(folders: { dir: string; files: Record<string, string | Buffer> }[]): void {
   for (const f of folders) {
     if (existsSync(f.dir) && !existsSync(join(f.dir, OUTPUT_MARKER)) && readdirSync(f.dir).length > 0) {
       throw new OutputRefusedError(`refusing to write into ${f.dir}: it exists, is not empty and was not created by cosmoledger (no ${OUTPUT_MARKER} file); choose another --out`);
@@ -21,7 +21,7 @@ export function writeOutputsAtomically(folders: { dir: string; files: Record<str
   try {
     for (const f of folders) {
       mkdirSync(f.dir, { recursive: true });
-      for (const [name, text] of Object.entries({ ...f.files, [OUTPUT_MARKER]: "Written by cosmoledger compute; files here are regenerated.\n" })) {
+      for (const [name, text] of Object.entries({ ...f.files, [OUTPUT_MARKER]: "Written by cosmoledger; files here are regenerated.\n" })) {
         const final = join(f.dir, name);
         const tmp = final + suffix;
         writeFileSync(tmp, text, { flag: "wx" });

@@ -54,6 +54,8 @@ function inputs(m: ModelTables, provenance: "set" | "default" | "inherited"): Pi
   return out;
 }
 
+/** Model labels are quoted, since they may hold commas. */
+const quoted = (label: string): Piece => ({ plain: `"${label}"`, tex: `\`\`${escapeLatex(label)}''` });
 const join = (xs: Piece[], sep = ", "): Piece => ({ plain: xs.map((x) => x.plain).join(sep), tex: xs.map((x) => x.tex).join(sep) });
 
 /**
@@ -65,18 +67,30 @@ export function assumptionsSentence(doc: TablesDocument, p: ExportProvenance): {
   const labelOf = (id: string) => doc.models.find((m) => m.id === id)?.label ?? id;
   const models = doc.models.map((m) => {
     const set = inputs(m, "set");
-    const base = m.extends ? { plain: `as ${labelOf(m.extends)} but `, tex: `as ${escapeLatex(labelOf(m.extends))} but ` } : { plain: "", tex: "" };
+    const base = m.extends ? { plain: `as ${quoted(labelOf(m.extends)).plain} but `, tex: `as ${quoted(labelOf(m.extends)).tex} but ` } : { plain: "", tex: "" };
     const body = set.length ? join(set) : { plain: "no parameter of its own", tex: "no parameter of its own" };
     const baseline = m.id === doc.scenario.baseline ? " (baseline)" : "";
-    return { plain: `${m.label}${baseline}: ${base.plain}${body.plain}`, tex: `${escapeLatex(m.label)}${baseline}: ${base.tex}${body.tex}` };
+    return { plain: `${quoted(m.label).plain}${baseline}: ${base.plain}${body.plain}`, tex: `${quoted(m.label).tex}${baseline}: ${base.tex}${body.tex}` };
   });
-  // Defaults: the same default in every model is said once.
-  const perModel = doc.models.map((m) => inputs(m, "default"));
-  const common = perModel[0].filter((d) => perModel.every((ds) => ds.some((x) => x.plain === d.plain)));
-  const special = doc.models.map((m, i) => ({ m, ds: perModel[i].filter((d) => !common.some((c) => c.plain === d.plain)) })).filter((x) => x.ds.length);
-  const defaults: Piece[] = [];
-  if (common.length) defaults.push({ plain: `${join(common).plain}${doc.models.length > 1 ? " in every model" : ""}`, tex: `${join(common).tex}${doc.models.length > 1 ? " in every model" : ""}` });
-  for (const s of special) defaults.push({ plain: `${join(s.ds).plain} in ${s.m.label}`, tex: `${join(s.ds).tex} in ${escapeLatex(s.m.label)}` });
+  // Defaults: each default once, with the models it applies to; defaults shared by the same models go together.
+  const byPiece = new Map<string, { piece: Piece; models: string[] }>();
+  doc.models.forEach((m) => inputs(m, "default").forEach((d) => {
+    const entry = byPiece.get(d.plain) ?? { piece: d, models: [] };
+    entry.models.push(m.label);
+    byPiece.set(d.plain, entry);
+  }));
+  const groups = new Map<string, { pieces: Piece[]; models: string[] }>();
+  for (const { piece, models } of byPiece.values()) {
+    const key = models.join("\u0000");
+    const g = groups.get(key) ?? { pieces: [], models };
+    g.pieces.push(piece);
+    groups.set(key, g);
+  }
+  const defaults: Piece[] = [...groups.values()].map((g) => {
+    const where = doc.models.length === 1 ? "" : g.models.length === doc.models.length ? " in every model" : ` in ${g.models.map((l) => quoted(l).plain).join(", ")}`;
+    const texWhere = doc.models.length === 1 ? "" : g.models.length === doc.models.length ? " in every model" : ` in ${g.models.map((l) => quoted(l).tex).join(", ")}`;
+    return { plain: `${join(g.pieces).plain}${where}`, tex: `${join(g.pieces).tex}${texWhere}` };
+  });
   const early = doc.models.some((m) => m.parameters.Omega_b !== null);
   const version = p.version === null ? `an unfrozen draft (inputs SHA-256 ${p.inputs_sha256})` : `${versionLabel(p)} (SHA-256 ${p.version_sha256})`;
   const plain = [

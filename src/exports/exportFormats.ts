@@ -10,10 +10,12 @@ export const unitText = (u: string) => u.replace(/\^3/g, "\u00b3").replace(/\^2/
 const labelWithUnit = (label: string, unit: string) => (unit ? `${label} [${unitText(unit)}]` : label);
 const header = (t: ExportTable) => [t.stub, ...t.columns.map((c) => labelWithUnit(c.label, c.unit))];
 const quantityText = (t: ExportTable) => (t.quantity ? labelWithUnit(t.quantity.label, t.quantity.unit) : null);
+/** The table's heading: its title, with the unit of a one-quantity table. */
+const heading = (t: ExportTable) => (t.quantity?.unit ? `${t.title} [${unitText(t.quantity.unit)}]` : t.title);
 
 /** RFC 4180 CSV (csv-stringify) at full precision, empty cell = null; provenance in leading "#" comment lines. */
 export function tableCsv(t: ExportTable, p: ExportProvenance): string {
-  const comments = [`# ${t.title}${t.quantity ? ` (${quantityText(t)})` : ""}`, `# source: ${provenanceLine(p)}`, "# numbers at full precision; an empty cell is an infinite or undefined quantity"];
+  const comments = [`# ${heading(t)}`, `# source: ${provenanceLine(p)}`, "# numbers at full precision; an empty cell is an infinite or undefined quantity"];
   const value = (c: ExportCell) => (c.value === null ? "" : String(c.value));
   const body = stringify([header(t), ...t.rows.map((r) => [labelWithUnit(r.label, r.unit), ...r.cells.map(value)])], { record_delimiter: "\r\n" });
   return comments.join("\r\n") + "\r\n" + body;
@@ -38,7 +40,7 @@ export const escapeMarkdown = (s: string) => s.replace(MARKDOWN_SPECIAL, (c) => 
 export function tableMarkdown(t: ExportTable, p: ExportProvenance): string {
   const row = (cells: string[]) => `| ${cells.map(escapeMarkdown).join(" | ")} |`;
   const align = `| ${["---", ...t.columns.map(() => "---:")].join(" | ")} |`;
-  const lines = [`**${escapeMarkdown(t.title)}**${t.quantity ? ` (${escapeMarkdown(quantityText(t)!)})` : ""}`, "", row(header(t)), align,
+  const lines = [`**${escapeMarkdown(heading(t))}**`, "", row(header(t)), align,
     ...t.rows.map((r) => row([labelWithUnit(r.label, r.unit), ...r.cells.map((c) => c.text)])), "", `Source: ${escapeMarkdown(provenanceLine(p))}`, ""];
   return lines.join("\n");
 }
@@ -66,7 +68,7 @@ export function tableLatex(t: ExportTable, p: ExportProvenance): string {
   const n = t.columns.length;
   const cell = (c: ExportCell) => (c.parts !== null || c.value === null || typeof c.value === "number" ? latexNumber(c.parts) : escapeLatex(c.text));
   const lines = [
-    `% ${t.title}${t.quantity ? ` (${quantityText(t)})` : ""}`,
+    `% ${heading(t)}`,
     `% source: ${provenanceLine(p)}`,
     "% needs \\usepackage{booktabs}",
     `\\begin{tabular}{l${"r".repeat(n)}}`,
@@ -88,7 +90,7 @@ export function tableHtml(t: ExportTable, p: ExportProvenance): string {
   const out = [
     `<figure class="cosmoledger-export" data-scenario="${escapeHtml(p.scenario_id)}" data-version="${escapeHtml(versionLabel(p))}" data-table="${escapeHtml(t.id)}">`,
     `<table style="border-collapse:collapse">`,
-    `<caption style="text-align:left;font-weight:bold">${escapeHtml(t.title)}</caption>`,
+    `<caption style="text-align:left;font-weight:bold">${escapeHtml(heading(t))}</caption>`,
     "<thead>",
   ];
   if (t.quantity) out.push(`<tr><th></th><th scope="colgroup" colspan="${t.columns.length}" style="${th};text-align:center">${escapeHtml(quantityText(t)!)}</th></tr>`);

@@ -1,0 +1,87 @@
+import { readFileSync } from "node:fs";
+import { dirname, join } from "node:path";
+import { displayPath } from "./displayPath.js";
+import { TOOL_VERSION } from "./toolVersion.js";
+import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
+import { loadScenario } from "../scenario/loadScenario.js";
+import { ScenarioInputError, formatIssue } from "../scenario/scenarioIssue.js";
+import { buildTablesDocument } from "../tables/buildTablesDocument.js";
+import type { TablesDocument } from "../tables/tablesDocument.js";
+import { readScenarioArchive } from "../archive/readArchive.js";
+import type { ArchiveIssue } from "../archive/checkVersionChain.js";
+import { holdsSameInputs, type VersionRecord } from "../archive/versionRecord.js";
+import { EXPORT_FORMATS, exportFiles, type ExportFormat } from "../exports/exportFiles.js";
+
+const fail = (message: string) => {
+  process.stderr.write(`error: ${message}\n`);
+  return 2;
+};
+
+/**
+ * `cosmoledger export FILE [--version N] [--format F[,F...]] [--out DIR] [--archive DIR]`: writes the same export
+ * files as the site (tables as csv, json, md, tex, html; charts as png, svg; the assumptions paragraph) for the
+ * scenario file, or for its frozen version N, into DIR/<id>/<vN|draft>/ (default DIR out/exports).
+ */
+export function exportCommand(files: string[], options: { version?: string; format?: string[]; out?: string; archive?: string }): number {
+  if (files.length !== 1) return fail("cosmoledger export: name exactly one scenario file, e.g. cosmoledger export scenarios/lantern-deep-field.yaml --format tex");
+  const formats = (options.format ?? [EXPORT_FORMATS.join(",")]).flatMap((f) => f.split(",")).map((f) => f.trim()).filter(Boolean);
+  const unknown = formats.filter((f) => !(EXPORT_FORMATS as readonly string[]).includes(f));
+  if (unknown.length > 0) return fail(`--format ${unknown[0]}: not a format; choose from ${EXPORT_FORMATS.join(", ")}`);
+  let wanted: number | null = null;
+  if (options.version !== undefined) {
+    if (!/^[1-9][0-9]*$/.test(options.version)) return fail(`--version ${options.version}: expected a version number 1, 2, 3 ...`);
+    wanted = Number(options.version);
+  }
+  const file = files[0];
+  const shown = displayPath(file);
+  let text: string;
+  try {
+    text = readFileSync(file, "utf8");
+  } catch (e) {
+    return fail(`${shown}:1:1: cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  let scenario;
+  try {
+    scenario = loadScenario(text, shown);
+  } catch (e) {
+    if (!(e instanceof ScenarioInputError)) throw e;
+    for (const i of e.issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
+    process.stderr.write(`${e.issues.length} problem${e.issues.length === 1 ? "" : "s"} found; nothing was written.\n`);
+    return 2;
+  }
+  const archive = options.archive ?? join(dirname(file), "archive");
+  const issues: ArchiveIssue[] = [];
+  const { versions } = readScenarioArchive(join(archive, scenario.id), scenario.id, issues);
+  if (issues.length > 0) {
+    for (const i of issues) process.stderr.write(`error: ${i.file}: ${i.message}\n`);
+    return fail(`the archive of ${scenario.id} is damaged; nothing was written`);
+  }
+  let doc: TablesDocument;
+  let record: VersionRecord | null;
+  let page: string;
+  if (wanted !== null) {
+    record = versions.find((v) => v.version === wanted) ?? null;
+    if (!record) return fail(`${scenario.id} has no version ${wanted} in ${displayPath(archive)} (${versions.length ? `versions 1 to ${versions.length}` : "no versions yet"})`);
+    doc = record.tables;
+    page = `${scenario.id}/v${wanted}/index.html`;
+  } else {
+    doc = buildTablesDocument(scenario);
+    const latest = versions.at(-1);
+    record = latest && holdsSameInputs(latest, text, doc) ? latest : null;
+    page = `${scenario.id}/index.html`;
+  }
+  const base = {
+    tool: "cosmoledger", tool_version: TOOL_VERSION, scenario_id: scenario.id, scenario_title: doc.scenario.title,
+    version: record ? record.version : null, version_sha256: record ? record.sha256 : null, inputs_sha256: doc.scenario.inputs_sha256, engine_version: doc.engine.version,
+  };
+  const made = exportFiles(doc, base, page, formats as ExportFormat[]);
+  const dir = join(options.out ?? join("out", "exports"), scenario.id, record ? `v${record.version}` : "draft");
+  try {
+    writeOutputsAtomically([{ dir, files: Object.fromEntries(made.files.map((f) => [f.name, f.content])) }]);
+  } catch (e) {
+    if (e instanceof OutputRefusedError) return fail(e.message);
+    throw e;
+  }
+  process.stdout.write(`wrote ${made.files.length} files for ${scenario.id} ${record ? `version ${record.version}` : "(unfrozen draft)"} into ${displayPath(dir)}/\n`);
+  return 0;
+}
