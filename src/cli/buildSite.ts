@@ -13,7 +13,7 @@ import { SITE_MARKER } from "./siteMarker.js";
  * `outDir`, then swap it in. An invalid scenario stops the build (exit 2) before anything is written; a failed or
  * killed build leaves the previous site whole. A non-empty `outDir` that cosmoledger did not create is refused.
  */
-export async function buildSite(scenariosDir: string, outDir: string, quiet: boolean, archiveDir?: string): Promise<number> {
+export async function buildSite(scenariosDir: string, outDir: string, quiet: boolean, archiveDir?: string, options: { images?: boolean } = {}): Promise<number> {
   const scenarios = resolve(scenariosDir);
   const archive = resolve(archiveDir ?? defaultArchive(scenariosDir));
   const out = resolve(outDir);
@@ -25,7 +25,7 @@ export async function buildSite(scenariosDir: string, outDir: string, quiet: boo
     process.stderr.write(`error: refusing to replace ${outDir}: it is not empty and was not built by cosmoledger (no ${SITE_MARKER}); choose another --out\n`);
     return 2;
   }
-  const { ledger, issues } = readLedger(scenarios, archive);
+  const { ledger, issues } = readLedger(scenarios, archive, { images: options.images });
   if (!ledger) {
     for (const i of issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
     process.stderr.write(`${issues.length} problem${issues.length === 1 ? "" : "s"} found; the site was not built and ${outDir} is untouched.\n`);

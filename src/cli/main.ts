@@ -9,7 +9,7 @@ Commands:
   check FILE...             validate scenario files only
   compute FILE... [--out DIR] [--json]
                             write DIR/<id>/tables.json and one CSV per table (default DIR: out/tables)
-  build [--scenarios DIR] [--out DIR] [--archive DIR]
+  build [--scenarios DIR] [--out DIR] [--archive DIR] [--skip-images]
                             check and compute every scenario, then render the comparison site with every
                             frozen version (defaults: scenarios/, _site/ and scenarios/archive/)
   freeze FILE [-m MESSAGE] [--archive DIR]
@@ -37,14 +37,18 @@ Options:
   --out DIR   output folder (default out/tables)
   --json      print the tables document of a single file to stdout instead of writing files
   --quiet     no progress messages on stderr`,
-  build: `Usage: cosmoledger build [--scenarios DIR] [--out DIR] [--archive DIR] [--quiet]
+  build: `Usage: cosmoledger build [--scenarios DIR] [--out DIR] [--archive DIR] [--skip-images] [--quiet]
 
 Checks and computes every *.yaml scenario in DIR (default scenarios/), checks every frozen version in the
 archive (default: the folder "archive" inside the scenarios folder), then renders the static comparison site
 with Eleventy into the output folder (default _site/): a page per scenario, a page per frozen version at
 <id>/vN/, a history page and diff pages. The site is built in a temporary folder and swapped in, so an invalid
 scenario, a damaged archive or a failed build leaves the previous site untouched. The same inputs and archive
-give byte-identical output.`,
+give byte-identical output.
+
+Beside every table the pages offer CSV, JSON, Markdown, LaTeX and HTML exports, and beside every chart PNG and
+SVG images (drawn at build time, about 1 s per page; kept in node_modules/.cache/cosmoledger/images, so a
+frozen version is drawn once). --skip-images leaves the chart images out (the tables' exports stay).`,
   freeze: `Usage: cosmoledger freeze FILE [-m MESSAGE] [--archive DIR]
 
 Validates and computes FILE, then records it as the next version of its scenario in DIR/<id>/vN.json
@@ -100,7 +104,7 @@ export async function main(argv: string[]): Promise<number> {
       options: {
         help: { type: "boolean", short: "h" }, out: { type: "string" }, json: { type: "boolean" }, quiet: { type: "boolean" }, scenarios: { type: "string" },
         archive: { type: "string" }, message: { type: "string", short: "m" }, strict: { type: "boolean" },
-        version: { type: "string" }, format: { type: "string", multiple: true },
+        version: { type: "string" }, format: { type: "string", multiple: true }, "skip-images": { type: "boolean" },
       },
     });
   } catch (e) {
@@ -117,7 +121,7 @@ export async function main(argv: string[]): Promise<number> {
       return 2;
     }
     const { buildSite } = await import("./buildSite.js");
-    return buildSite(parsed.values.scenarios ?? "scenarios", parsed.values.out ?? "_site", parsed.values.quiet ?? false, parsed.values.archive);
+    return buildSite(parsed.values.scenarios ?? "scenarios", parsed.values.out ?? "_site", parsed.values.quiet ?? false, parsed.values.archive, { images: !parsed.values["skip-images"] });
   }
   const known: Record<string, string[]> = { check: ["quiet"], compute: ["out", "json", "quiet"], freeze: ["archive", "message"], verify: ["archive", "strict", "json", "quiet"], export: ["version", "format", "out", "archive"] };
   const stray = Object.keys(parsed.values).filter((k) => k !== "help" && !known[command].includes(k));

@@ -1,6 +1,6 @@
 import type { ModelTables, TablesDocument } from "../tables/tablesDocument.js";
 import { escapeLatex } from "./exportFormats.js";
-import { versionLabel, type ExportProvenance } from "./exportProvenance.js";
+import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
 
 /** How a parameter is written in prose and in LaTeX (trade notation). */
 const SYMBOL: Record<string, { plain: string; tex: string; unit?: string; texUnit?: string }> = {
@@ -109,5 +109,5 @@ export function assumptionsSentence(doc: TablesDocument, p: ExportProvenance): {
     "The model is the homogeneous background only: perturbations, lensing and peculiar velocities are not included.",
     `Computed with cosmoledger ${escapeLatex(p.tool_version)} (engine ${escapeLatex(doc.engine.version)}); scenario \\texttt{${escapeLatex(doc.scenario.id)}}, ${escapeLatex(version)}.`,
   ].filter(Boolean).join("\n");
-  return { plain: plain + "\n", tex: `% source: scenario ${doc.scenario.id}, ${versionLabel(p)}; page ${p.page}\n${tex}\n` };
+  return { plain: `${plain}\n\nSource: ${provenanceLine(p)}\n`, tex: `% source: scenario ${doc.scenario.id}, ${versionLabel(p)}; page ${p.page}\n${tex}\n` };
 }

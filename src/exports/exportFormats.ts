@@ -13,18 +13,21 @@ const quantityText = (t: ExportTable) => (t.quantity ? labelWithUnit(t.quantity.
 /** The table's heading: its title, with the unit of a one-quantity table. */
 const heading = (t: ExportTable) => (t.quantity?.unit ? `${t.title} [${unitText(t.quantity.unit)}]` : t.title);
 
-/** RFC 4180 CSV (csv-stringify) at full precision, empty cell = null; provenance in leading "#" comment lines. */
+/**
+ * RFC 4180 CSV (csv-stringify) at full precision, empty cell = null; provenance in leading "#" comment lines.
+ * Any field holding "#" is quoted, so that readers that treat "#" as a comment anywhere on a line keep it.
+ */
 export function tableCsv(t: ExportTable, p: ExportProvenance): string {
   const comments = [`# ${heading(t)}`, `# source: ${provenanceLine(p)}`, "# numbers at full precision; an empty cell is an infinite or undefined quantity"];
   const value = (c: ExportCell) => (c.value === null ? "" : String(c.value));
-  const body = stringify([header(t), ...t.rows.map((r) => [labelWithUnit(r.label, r.unit), ...r.cells.map(value)])], { record_delimiter: "\r\n" });
+  const body = stringify([header(t), ...t.rows.map((r) => [labelWithUnit(r.label, r.unit), ...r.cells.map(value)])], { record_delimiter: "\r\n", quoted_match: /#/ });
   return comments.join("\r\n") + "\r\n" + body;
 }
 
 /** JSON: provenance, then the table with raw values (full precision) and the page's text for every cell. */
 export function tableJson(t: ExportTable, p: ExportProvenance): string {
   return JSON.stringify({
-    format: EXPORT_FORMAT, provenance: p,
+    format: EXPORT_FORMAT, provenance: { ...p, version_label: versionLabel(p), line: provenanceLine(p) },
     table: {
       id: t.id, title: t.title, quantity: t.quantity, stub: t.stub, columns: t.columns,
       rows: t.rows.map((r) => ({ label: r.label, unit: r.unit, values: r.cells.map((c) => c.value), text: r.cells.map((c) => c.text) })),
@@ -66,7 +69,7 @@ const latexLabel = (label: string, unit: string) => (unit ? `${escapeLatex(label
 /** A tabular with booktabs rules (\usepackage{booktabs}); units in the header; provenance in % comments above it. */
 export function tableLatex(t: ExportTable, p: ExportProvenance): string {
   const n = t.columns.length;
-  const cell = (c: ExportCell) => (c.parts !== null || c.value === null || typeof c.value === "number" ? latexNumber(c.parts) : escapeLatex(c.text));
+  const cell = (c: ExportCell) => (c.kind === "number" ? latexNumber(c.parts) : escapeLatex(c.text));
   const lines = [
     `% ${heading(t)}`,
     `% source: ${provenanceLine(p)}`,
@@ -96,7 +99,7 @@ export function tableHtml(t: ExportTable, p: ExportProvenance): string {
   if (t.quantity) out.push(`<tr><th></th><th scope="colgroup" colspan="${t.columns.length}" style="${th};text-align:center">${escapeHtml(quantityText(t)!)}</th></tr>`);
   out.push(`<tr>${header(t).map((h) => `<th scope="col" style="${th}">${escapeHtml(h)}</th>`).join("")}</tr>`, "</thead>", "<tbody>");
   for (const r of t.rows) {
-    out.push(`<tr><th scope="row" style="${th};border-bottom:0">${escapeHtml(labelWithUnit(r.label, r.unit))}</th>${r.cells.map((c) => `<td style="${typeof c.value === "number" || c.parts ? td : "padding:2px 8px"}">${escapeHtml(c.text)}</td>`).join("")}</tr>`);
+    out.push(`<tr><th scope="row" style="${th};border-bottom:0">${escapeHtml(labelWithUnit(r.label, r.unit))}</th>${r.cells.map((c) => `<td style="${c.kind === "number" ? td : "padding:2px 8px"}">${escapeHtml(c.text)}</td>`).join("")}</tr>`);
   }
   out.push("</tbody>", "</table>", `<figcaption style="font-size:smaller">Source: ${escapeHtml(provenanceLine(p))}</figcaption>`, "</figure>", "");
   return out.join("\n");

@@ -3,7 +3,7 @@ import { EARLY_QUANTITIES, PARAMETERS, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARG
 import { exactParts, numberParts, partsText, type NumberParts } from "../site/formatNumber.js";
 
 /** One cell: the raw value (full precision, for CSV and JSON) and what the page prints (number parts or text). */
-export interface ExportCell { value: number | string | null; parts: NumberParts | null; text: string }
+export interface ExportCell { kind: "number" | "text"; value: number | string | null; parts: NumberParts | null; text: string }
 export interface ExportRow { label: string; unit: string; cells: ExportCell[] }
 
 /** A table as the page shows it, ready for every export format. Units sit in the row labels or in `quantity`. */
@@ -21,13 +21,13 @@ export interface ExportTable {
 
 const num = (x: number | null | undefined): ExportCell => {
   const parts = numberParts(x);
-  return { value: x ?? null, parts, text: partsText(parts) };
+  return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
 };
 const exact = (x: number | null | undefined): ExportCell => {
   const parts = exactParts(x);
-  return { value: x ?? null, parts, text: partsText(parts) };
+  return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
 };
-const text = (s: string | null | undefined): ExportCell => ({ value: s ?? null, parts: null, text: s ?? "" });
+const text = (s: string | null | undefined): ExportCell => ({ kind: "text", value: s ?? null, parts: null, text: s ?? "" });
 const hasEarly = (doc: TablesDocument) => doc.models.some((m) => m.parameters.Omega_b !== null);
 
 /** Every table of a scenario page in page order: models, at a glance, each redshift table, early universe, targets, surveys. */
@@ -70,7 +70,10 @@ export function exportTables(doc: TablesDocument): ExportTable[] {
     tables.push({
       id: "early", title: "Early universe", anchor: "early", quantity: null, stub: "Quantity",
       columns: [{ label: "Method", unit: "" }, ...columns],
-      rows: EARLY_QUANTITIES.map((q) => ({ label: q.label, unit: q.unit, cells: [text(q.method), ...models.map((m) => num(m.summary[q.key] as number | null))] })),
+      rows: [
+        ...EARLY_QUANTITIES.map((q) => ({ label: q.label, unit: q.unit, cells: [text(q.method), ...models.map((m) => num(m.summary[q.key] as number | null))] })),
+        { label: "Note", unit: "", cells: [text(""), ...models.map((m) => text(m.summary.early_universe_note as string | null))] },
+      ],
     });
   }
   models[0].targets.forEach((t, ti) => {

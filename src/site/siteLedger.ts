@@ -32,7 +32,7 @@ export const defaultArchive = (scenariosDir: string) => join(scenariosDir, "arch
  * Reads, validates and computes every scenario of a folder and reads the archive (checking every hash and the
  * chains); either a ledger or the issues that stop the build.
  */
-export function readLedger(dir: string, archiveDir: string = defaultArchive(dir), options: { exports?: boolean } = {}): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
+export function readLedger(dir: string, archiveDir: string = defaultArchive(dir), options: { exports?: boolean; images?: boolean } = {}): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
   const issues: ScenarioIssue[] = [];
   const files: { scenario: ResolvedScenario; doc: TablesDocument }[] = [];
   const seen = new Map<string, string>();
@@ -56,7 +56,8 @@ export function readLedger(dir: string, archiveDir: string = defaultArchive(dir)
   for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
   if (issues.length > 0) return { ledger: null, issues };
   const renderers = cachedRenderers();
-  const exporter: PageExporter = (doc, base, page) => exportFiles(doc, base, page, EXPORT_FORMATS, renderers);
+  const formats = options.images === false ? EXPORT_FORMATS.filter((f) => f !== "png" && f !== "svg") : EXPORT_FORMATS;
+  const exporter: PageExporter = (doc, base, page) => exportFiles(doc, base, page, formats, renderers);
   const pages = sitePages(files, archive.archives, options.exports === false ? null : exporter, TOOL_VERSION);
   return { ledger: { ...pages, docs: pages.live.map((p) => p.doc), archive: displayPath(archiveDir) }, issues: [] };
 }

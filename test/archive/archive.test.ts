@@ -84,7 +84,7 @@ describe("freeze, history, diff and verify", () => {
 
   it("renders version pages, the history, the diff and marks the edited file as an unfrozen draft", () => {
     writeFileSync(join(work, "scenarios/shelf.yaml"), scenario(65));
-    const b = cli("build", "--scenarios", "scenarios", "--out", "site");
+    const b = runCli(["build", "--scenarios", "scenarios", "--out", "site"], work, { COSMOLEDGER_CACHE: join(work, "cache-a") });
     expect(b.code, b.stderr).toBe(0);
     const v1 = page(join(work, "site/shelf-test/v1/index.html"));
     const v2 = page(join(work, "site/shelf-test/v2/index.html"));
@@ -121,12 +121,14 @@ describe("freeze, history, diff and verify", () => {
     expect(existsSync(join(work, "site/shelf-test/diff/v2-draft/index.html"))).toBe(true);
   });
 
-  it("two builds of the same inputs and archive are byte-identical", () => {
-    const r = cli("build", "--scenarios", "scenarios", "--out", "site-again");
+  it("two builds of the same inputs and archive are byte-identical, chart images included", () => {
+    // Each build draws its images afresh (its own empty image cache), so the comparison covers the drawing too.
+    const r = runCli(["build", "--scenarios", "scenarios", "--out", "site-again"], work, { COSMOLEDGER_CACHE: join(work, "cache-b") });
     expect(r.code, r.stderr).toBe(0);
     const a = listFiles(join(work, "site"));
     const b = listFiles(join(work, "site-again"));
     expect(b).toEqual(a);
+    expect(a.filter((f) => f.endsWith(".png")).length).toBeGreaterThan(0);
     for (const f of a) expect(readFileSync(join(work, "site-again", f)).equals(readFileSync(join(work, "site", f))), f).toBe(true);
   });
 

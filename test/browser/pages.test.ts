@@ -111,6 +111,22 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     }
   }, 120_000);
 
+  it("the copy buttons put the Markdown and LaTeX exports on the clipboard, exactly as the downloads", async () => {
+    await context.grantPermissions(["clipboard-read", "clipboard-write"], { origin: base });
+    const { page, problems } = await open(base + "/lantern-deep-field/index.html");
+    for (const [format, file] of [["md", "glance.md"], ["tex", "glance.tex"]]) {
+      await page.click(`p.exports[data-export="glance"] button[data-copy-format="${format}"]`);
+      await page.waitForSelector(`p.exports[data-export="glance"] button[data-copy-format="${format}"][data-copied="true"]`);
+      const copied = await page.evaluate(() => navigator.clipboard.readText());
+      expect(copied).toBe(readFileSync(join(site, "lantern-deep-field/exports", file), "utf8"));
+    }
+    await page.click('p.exports[data-export="assumptions"] button[data-copy-format="md"]');
+    await page.waitForSelector('p.exports[data-export="assumptions"] button[data-copy-format="md"][data-copied="true"]');
+    expect(await page.evaluate(() => navigator.clipboard.readText())).toBe(readFileSync(join(site, "lantern-deep-field/exports/assumptions.txt"), "utf8"));
+    expect(problems).toEqual([]);
+    await page.close();
+  }, 60_000);
+
   it("the log/linear control changes the chart", async () => {
     const { page, problems } = await open(base + "/lantern-deep-field/index.html");
     const figure = page.locator('figure[data-chart="distances"]');

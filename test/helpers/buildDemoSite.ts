@@ -6,8 +6,8 @@ import { join, resolve } from "node:path";
 export const ROOT = resolve(import.meta.dirname, "../..");
 export const BIN = join(ROOT, "bin/cosmoledger.js");
 
-export function runCli(args: string[], cwd = ROOT) {
-  const r = spawnSync(process.execPath, [BIN, ...args], { cwd, encoding: "utf8", maxBuffer: 256 * 1024 * 1024 });
+export function runCli(args: string[], cwd = ROOT, env: Record<string, string> = {}) {
+  const r = spawnSync(process.execPath, [BIN, ...args], { cwd, encoding: "utf8", maxBuffer: 256 * 1024 * 1024, env: { ...process.env, ...env } });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 

@@ -1,3 +1,4 @@
+import { runInNewContext } from "node:vm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { existsSync, readFileSync, readdirSync, statSync, writeFileSync, mkdirSync, copyFileSync } from "node:fs";
 import { dirname, join, resolve } from "node:path";
@@ -98,7 +99,12 @@ describe("hostile strings from a scenario are shown as text and run nothing", ()
     const html = readFileSync(join(out, "hostile", "index.html"), "utf8");
     const page = parseHTML(html).document;
     const scripts = [...page.querySelectorAll("script")].map((s) => s.getAttribute("src") ?? s.getAttribute("type"));
-    expect(scripts).toEqual(["application/json", "../assets/chart.umd.min.js", "../assets/charts.js"]);
+    expect(scripts).toEqual(["application/json", "../assets/chart.umd.min.js", "../assets/charts.js", "exports/copy.js", "../assets/copy-buttons.js"]);
+    // The copy texts are data: run in an empty sandbox, the file only assigns window.cosmoledgerCopy, and the labels survive as text.
+    const sandbox: { window: Record<string, unknown> } = { window: {} };
+    runInNewContext(readFileSync(join(out, "hostile", "exports", "copy.js"), "utf8"), sandbox);
+    expect(Object.keys(sandbox.window)).toEqual(["cosmoledgerCopy"]);
+    expect(JSON.stringify(sandbox.window.cosmoledgerCopy)).toContain("svg onload=window.__pwned=8");
     for (const el of [...page.querySelectorAll("*")]) {
       for (const attr of [...el.attributes]) expect(attr.name, `${el.tagName} ${attr.name}`).not.toMatch(/^on/i);
     }
