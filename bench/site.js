@@ -16,12 +16,14 @@ function generated(i) {
     `targets:\n  - { name: arc, z: 2, size_kpc: 5 }\nsurveys:\n  - { name: shell, area_deg2: 1000, z_min: 0.5, z_max: 1 }\n`;
 }
 
-function buildSeconds(n) {
+/** Wall time of one build of n generated scenarios; `images` draws the chart images into a fresh, empty cache (cold). */
+function buildSeconds(n, images = false) {
   const dir = mkdtempSync(join(tmpdir(), "cosmoledger-sitebench-"));
   mkdirSync(join(dir, "scenarios"));
   for (let i = 0; i < n; i++) writeFileSync(join(dir, "scenarios", `gen-${i}.yaml`), generated(i));
   const t0 = process.hrtime.bigint();
-  const r = spawnSync(process.execPath, [BIN, "build", "--scenarios", join(dir, "scenarios"), "--out", join(dir, "site"), "--quiet"], { encoding: "utf8" });
+  const args = [BIN, "build", "--scenarios", join(dir, "scenarios"), "--out", join(dir, "site"), "--quiet", ...(images ? [] : ["--skip-images"])];
+  const r = spawnSync(process.execPath, args, { encoding: "utf8", env: { ...process.env, COSMOLEDGER_CACHE: join(dir, "cache") } });
   const s = Number(process.hrtime.bigint() - t0) / 1e9;
   if (r.status !== 0) throw new Error(r.stderr);
   rmSync(dir, { recursive: true, force: true });
@@ -30,11 +32,13 @@ function buildSeconds(n) {
 
 export function runSiteBench() {
   const sizes = [50, 100, 200];
-  const seconds = sizes.map(buildSeconds);
+  const seconds = sizes.map((n) => buildSeconds(n));
+  const imagesN = 10;
+  const imageSeconds = buildSeconds(imagesN, true);
   const dir = mkdtempSync(join(tmpdir(), "cosmoledger-sitebench-"));
   const r = spawnSync(process.execPath, [BIN, "build", "--out", join(dir, "site"), "--quiet"], { cwd: ROOT, encoding: "utf8" });
   if (r.status !== 0) throw new Error(r.stderr);
   const weights = ["lantern-deep-field", "harbor-lights-census", "tidewater-geometry"].map((id) => statSync(join(dir, "site", id, "index.html")).size);
   rmSync(dir, { recursive: true, force: true });
-  return { sizes, seconds, maxPageKB: Math.max(...weights) / 1024 };
+  return { sizes, seconds, imagesN, imageSeconds, maxPageKB: Math.max(...weights) / 1024 };
 }
