@@ -19,7 +19,7 @@ console.log(`  ${site.imagesN} scenarios with chart images drawn into an empty c
 console.log(`  largest demo scenario page (HTML with inline chart data, without Chart.js): ${site.maxPageKB.toFixed(0)} KB`);
 const archive = runArchiveBench();
 console.log(`archive: freeze (whole process) median ${archive.freezeMedianMs.toFixed(0)} ms; record ${archive.recordKB.toFixed(0)} KB each`);
-console.log(`  verify ${archive.versions} versions (hashes, chain, recompute): ${archive.verifyMs.toFixed(0)} ms; build with ${archive.versions} version pages and every diff pair: ${(archive.buildMs / 1000).toFixed(2)} s`);
+console.log(`  verify ${archive.versions} versions (hashes, chain, recompute): ${archive.verifyMs.toFixed(0)} ms; build with ${archive.versions} version pages and every diff pair (--skip-images): ${(archive.buildMs / 1000).toFixed(2)} s`);
 console.log(JSON.stringify({
   points: engine.points, ms: Number(engine.ms.toFixed(3)), ms_with_neutrinos: Number(engine.nuMs.toFixed(3)), max_rel_error: engine.maxRelError,
   help_ms_beyond_node: Number((cli.helpMs - cli.nodeStartMs).toFixed(1)), compute_ms_beyond_node: Number((cli.computeMs - cli.nodeStartMs).toFixed(1)),
