@@ -38,7 +38,8 @@ function listFiles(dir: string, prefix = ""): string[] {
   });
 }
 
-describe("freeze, history, diff and verify", () => {
+// Builds draw chart images into empty caches here, so each test gets a generous time limit.
+describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   let work: string;
   const cli = (...args: string[]) => runCli(args, work);
   beforeAll(() => {
@@ -222,7 +223,7 @@ describe("freeze, history, diff and verify", () => {
     const many = join(work, "many");
     mkdirSync(many);
     for (let i = 0; i < 40; i++) writeFileSync(join(many, `s${i}.yaml`), scenario(60 + i / 10).replace("id: shelf-test", `id: s${i}`));
-    const p = spawn(process.execPath, [BIN, "build", "--scenarios", many, "--out", out], { cwd: work });
+    const p = spawn(process.execPath, [BIN, "build", "--scenarios", many, "--out", out, "--skip-images"], { cwd: work });
     const killedWhileBuilding = await new Promise<boolean>((done) => {
       const poll = setInterval(() => {
         const building = readdirSync(work).find((n) => n.startsWith("site.building-"));

@@ -195,7 +195,7 @@ describe("exports of the demo site", () => {
   });
 });
 
-describe("special characters in labels", () => {
+describe("special characters in labels", { timeout: 60_000 }, () => {
   const NASTY = "A&B 5% $x$ #1 a_b {c} ~d ^e \\f |g";
   let out: string;
   beforeAll(() => {
@@ -239,7 +239,7 @@ describe("special characters in labels", () => {
   });
 });
 
-describe("hostile strings in exports", () => {
+describe("hostile strings in exports", { timeout: 60_000 }, () => {
   it("HTML fragments and Markdown rendered by markdown-it (raw HTML on, as some wikis allow) carry no element or handler from a label", () => {
     compileProject();
     const dir = tempDir();
@@ -258,7 +258,7 @@ describe("hostile strings in exports", () => {
   });
 });
 
-describe("cosmoledger export", () => {
+describe("cosmoledger export", { timeout: 60_000 }, () => {
   it("exports a frozen version's stored tables, only the formats asked for, and refuses bad options with exit 2", () => {
     compileProject();
     const dir = tempDir();

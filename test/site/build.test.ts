@@ -21,7 +21,7 @@ beforeAll(() => {
   if (r.code !== 0) throw new Error(r.stderr);
 }, 120_000);
 
-describe("the demo site", () => {
+describe("the demo site", { timeout: 120_000 }, () => {
   it("has an index and one page per demo scenario, with downloads beside each", () => {
     expect(existsSync(join(site, "index.html"))).toBe(true);
     for (const id of ["lantern-deep-field", "harbor-lights-census", "tidewater-geometry"]) {
@@ -88,7 +88,7 @@ describe("the demo site", () => {
   });
 });
 
-describe("hostile strings from a scenario are shown as text and run nothing", () => {
+describe("hostile strings from a scenario are shown as text and run nothing", { timeout: 120_000 }, () => {
   it("no injected element, event handler or javascript: link reaches the page", () => {
     const dir = tempDir();
     mkdirSync(join(dir, "scenarios"));
@@ -116,7 +116,7 @@ describe("hostile strings from a scenario are shown as text and run nothing", ()
   });
 });
 
-describe("builds that must not touch the previous site", () => {
+describe("builds that must not touch the previous site", { timeout: 120_000 }, () => {
   it("an invalid scenario stops the build with the compute error, exit 2, and the old site stays", () => {
     const dir = tempDir();
     mkdirSync(join(dir, "scenarios"));
