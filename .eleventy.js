@@ -7,6 +7,7 @@ import { CLOSURE_TEX, FRIEDMANN_TEX } from "./dist/site/renderMath.js";
 import { formatIssue } from "./dist/scenario/scenarioIssue.js";
 import { ENGINE_VERSION } from "./dist/engine/engineVersion.js";
 import { SITE_MARKER } from "./dist/cli/siteMarker.js";
+import { writeExportFiles } from "./dist/exports/exportFiles.js";
 import { mkdirSync, writeFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 
@@ -32,12 +33,12 @@ export default function (eleventyConfig) {
   eleventyConfig.addWatchTarget(archiveDir);
   // Mark the output as ours, so that `cosmoledger build` may replace a folder that `npm start` wrote.
   // Exports (tables in five formats, chart images) are files, not pages: they are written beside the pages, then the marker.
-  eleventyConfig.on("eleventy.after", ({ dir }) => {
-    for (const f of current?.exportFiles ?? []) {
+  eleventyConfig.on("eleventy.after", async ({ dir }) => {
+    await writeExportFiles(current?.exportFiles ?? [], (f, content) => {
       const target = join(dir.output, f.path);
       mkdirSync(dirname(target), { recursive: true });
-      writeFileSync(target, f.content);
-    }
+      writeFileSync(target, content);
+    });
     writeFileSync(join(dir.output, SITE_MARKER), "Built by cosmoledger; this folder is replaced by the next build.\n");
   });
 

@@ -10,7 +10,7 @@ import type { TablesDocument } from "../tables/tablesDocument.js";
 import { readScenarioArchive } from "../archive/readArchive.js";
 import type { ArchiveIssue } from "../archive/checkVersionChain.js";
 import { holdsSameInputs, type VersionRecord } from "../archive/versionRecord.js";
-import { EXPORT_FORMATS, exportFiles, type ExportFormat } from "../exports/exportFiles.js";
+import { EXPORT_FORMATS, exportFiles, writeExportFiles, type ExportFormat } from "../exports/exportFiles.js";
 
 const fail = (message: string) => {
   process.stderr.write(`error: ${message}\n`);
@@ -22,7 +22,7 @@ const fail = (message: string) => {
  * files as the site (tables as csv, json, md, tex, html; charts as png, svg; the assumptions paragraph) for the
  * scenario file, or for its frozen version N, into DIR/<id>/<vN|draft>/ (default DIR out/exports).
  */
-export function exportCommand(files: string[], options: { version?: string; format?: string[]; out?: string; archive?: string }): number {
+export async function exportCommand(files: string[], options: { version?: string; format?: string[]; out?: string; archive?: string }): Promise<number> {
   if (files.length !== 1) return fail("cosmoledger export: name exactly one scenario file, e.g. cosmoledger export scenarios/lantern-deep-field.yaml --format tex");
   const formats = (options.format ?? [EXPORT_FORMATS.join(",")]).flatMap((f) => f.split(",")).map((f) => f.trim()).filter(Boolean);
   const unknown = formats.filter((f) => !(EXPORT_FORMATS as readonly string[]).includes(f));
@@ -77,7 +77,9 @@ export function exportCommand(files: string[], options: { version?: string; form
   const made = exportFiles(doc, base, page, formats as ExportFormat[]);
   const dir = join(options.out ?? join("out", "exports"), scenario.id, record ? `v${record.version}` : "draft");
   try {
-    writeOutputsAtomically([{ dir, files: Object.fromEntries(made.files.map((f) => [f.name, f.content])) }]);
+    const contents: Record<string, string | Buffer> = {};
+    await writeExportFiles(made.files, (f, content) => (contents[f.name] = content));
+    writeOutputsAtomically([{ dir, files: contents }]);
   } catch (e) {
     if (e instanceof OutputRefusedError) return fail(e.message);
     throw e;

@@ -135,12 +135,15 @@ function drawThen<T>(ctx: SKRSContext2D, spec: ChartSpec, p: ExportProvenance, s
   }
 }
 
-/** The chart as PNG at print resolution, provenance drawn along its foot. */
-export function chartPng(spec: ChartSpec, p: ExportProvenance): Buffer {
+/**
+ * The chart as PNG at print resolution, provenance drawn along its foot. Drawing is synchronous; the PNG encoder runs
+ * on libuv's thread pool from a snapshot taken at the call, so several charts encode while the next one is drawn.
+ */
+export async function chartPng(spec: ChartSpec, p: ExportProvenance): Promise<Buffer> {
   registerFont();
   const canvas = createCanvas(CHART_WIDTH, CHART_HEIGHT);
-  const png = drawThen(canvas.getContext("2d"), spec, p, PNG_SCALE, () => canvas.toBuffer("image/png"));
-  return withPngText(png, { Title: spec.title, Description: spec.alt, Source: provenanceLine(p), Software: `${p.tool} ${p.tool_version}` });
+  const encoding = drawThen(canvas.getContext("2d"), spec, p, PNG_SCALE, () => canvas.encode("png"));
+  return withPngText(await encoding, { Title: spec.title, Description: spec.alt, Source: provenanceLine(p), Software: `${p.tool} ${p.tool_version}` });
 }
 
 /** The same drawing as SVG (Skia's SVG back end: true vector paths, text as outlines), with title and description for screen readers. */

@@ -29,10 +29,13 @@ export interface ExportIndex {
  * the site root; each table's provenance points at its section.
  */
 /** How chart images are made; the site passes a cached version of the same functions. */
-export interface ChartRenderers { png: (spec: ChartSpec, p: ExportProvenance) => Buffer; svg: (spec: ChartSpec, p: ExportProvenance) => string }
+export interface ChartRenderers { png: (spec: ChartSpec, p: ExportProvenance) => Promise<Buffer>; svg: (spec: ChartSpec, p: ExportProvenance) => string }
 
-export function exportFiles(doc: TablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string, formats: readonly ExportFormat[] = EXPORT_FORMATS, render: ChartRenderers = { png: chartPng, svg: chartSvg }): { files: { name: string; content: string | Buffer }[]; index: ExportIndex } {
-  const files: { name: string; content: string | Buffer }[] = [];
+/** A file's content, or for an image a function that draws it when the file is written (see writeExportFiles). */
+export type ExportContent = string | Buffer | (() => Promise<Buffer>);
+
+export function exportFiles(doc: TablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string, formats: readonly ExportFormat[] = EXPORT_FORMATS, render: ChartRenderers = { png: chartPng, svg: chartSvg }): { files: { name: string; content: ExportContent }[]; index: ExportIndex } {
+  const files: { name: string; content: ExportContent }[] = [];
   const provenance = (anchor: string): ExportProvenance => ({ ...base, page: `${pageAddress}#${anchor}` });
   const index: ExportIndex = { tables: [], charts: [], assumptions: { txt: "assumptions.txt", tex: "assumptions.tex", plain: "", latex: "" }, copy: {} };
   const tables: ExportTable[] = exportTables(doc);
@@ -54,8 +57,8 @@ export function exportFiles(doc: TablesDocument, base: Omit<ExportProvenance, "p
       const p = provenance("charts");
       const entry: ExportIndex["charts"][number] = { id: spec.id, key: spec.key, title: spec.title, alt: spec.alt, files: {} };
       const stem = `chart-${spec.id}-${spec.key}`;
-      if (wantCharts.includes("png")) files.push({ name: (entry.files.png = `${stem}.png`), content: render.png(spec, p) });
-      if (wantCharts.includes("svg")) files.push({ name: (entry.files.svg = `${stem}.svg`), content: render.svg(spec, p) });
+      if (wantCharts.includes("png")) files.push({ name: (entry.files.png = `${stem}.png`), content: () => render.png(spec, p) });
+      if (wantCharts.includes("svg")) files.push({ name: (entry.files.svg = `${stem}.svg`), content: () => Promise.resolve(Buffer.from(render.svg(spec, p), "utf8")) });
       index.charts.push(entry);
     }
     // Ready-made image references with their alt text, for a wiki page (Markdown) or any HTML page.
@@ -69,4 +72,25 @@ export function exportFiles(doc: TablesDocument, base: Omit<ExportProvenance, "p
   index.assumptions.plain = sentence.plain;
   index.assumptions.latex = sentence.tex;
   return { files, index };
+}
+
+/**
+ * Resolves every file's content (drawing images) with at most `inFlight` images pending at once, handing each to
+ * `write` as soon as it is ready, in any order. Bounded so that a large site never holds many bitmaps in memory.
+ */
+export async function writeExportFiles<T extends { content: ExportContent }>(files: T[], write: (file: T, content: string | Buffer) => void, inFlight = 4): Promise<void> {
+  const pending = new Set<Promise<void>>();
+  for (const f of files) {
+    if (typeof f.content !== "function") {
+      write(f, f.content);
+      continue;
+    }
+    const job: Promise<void> = f.content().then((content) => {
+      write(f, content);
+      pending.delete(job);
+    });
+    pending.add(job);
+    if (pending.size >= inFlight) await Promise.race(pending);
+  }
+  await Promise.all(pending);
 }

@@ -29,20 +29,34 @@ export function cachedRenderers(): ChartRenderers {
   if (setting === "off") return { png: chartPng, svg: chartSvg };
   const dir = setting ?? join(PACKAGE_ROOT, "node_modules", ".cache", "cosmoledger", "images");
   const salt = JSON.stringify({ RENDER_REVISION, chart: Chart.version, canvas: canvasVersion() });
-  const cached = <T extends string | Buffer>(ext: string, draw: (s: ChartSpec, p: ExportProvenance) => T, decode: (b: Buffer) => T) => (spec: ChartSpec, p: ExportProvenance): T => {
+  const fileOf = (ext: string, spec: ChartSpec, p: ExportProvenance) => {
     const key = createHash("sha256").update(salt).update(JSON.stringify(spec)).update(JSON.stringify(p)).digest("hex");
-    const file = join(dir, key.slice(0, 2), `${key}.${ext}`);
-    if (existsSync(file)) return decode(readFileSync(file));
-    const out = draw(spec, p);
+    return join(dir, key.slice(0, 2), `${key}.${ext}`);
+  };
+  const keep = (file: string, content: string | Buffer) => {
     try {
       mkdirSync(dirname(file), { recursive: true });
       const tmp = `${file}.${process.pid}.tmp`;
-      writeFileSync(tmp, out);
+      writeFileSync(tmp, content);
       renameSync(tmp, file);
     } catch {
       // A read-only or full cache only costs time.
     }
-    return out;
   };
-  return { png: cached("png", chartPng, (b) => b), svg: cached("svg", chartSvg, (b) => b.toString("utf8")) };
+  return {
+    png: async (spec, p) => {
+      const file = fileOf("png", spec, p);
+      if (existsSync(file)) return readFileSync(file);
+      const out = await chartPng(spec, p);
+      keep(file, out);
+      return out;
+    },
+    svg: (spec, p) => {
+      const file = fileOf("svg", spec, p);
+      if (existsSync(file)) return readFileSync(file, "utf8");
+      const out = chartSvg(spec, p);
+      keep(file, out);
+      return out;
+    },
+  };
 }

@@ -4,11 +4,11 @@ import type { ScenarioArchive } from "../archive/readArchive.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import type { TablesDocument } from "../tables/tablesDocument.js";
 import { tablesCsv } from "../tables/tablesCsv.js";
-import type { ExportIndex } from "../exports/exportFiles.js";
+import type { ExportContent, ExportIndex } from "../exports/exportFiles.js";
 import type { ExportProvenance } from "../exports/exportProvenance.js";
 
 /** Makes the exports of one page (the site passes exportFiles with cached chart renderers). */
-export type PageExporter = (doc: TablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string) => { files: { name: string; content: string | Buffer }[]; index: ExportIndex };
+export type PageExporter = (doc: TablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string) => { files: { name: string; content: ExportContent }[]; index: ExportIndex };
 
 /** A frozen version as pages show it. */
 export interface VersionInfo { n: number; created: string; message: string; sha256: string; previous_sha256: string | null; engine: string; path: string }
@@ -49,8 +49,8 @@ export interface SitePages {
   histories: HistoryPage[];
   diffs: DiffPage[];
   downloads: { path: string; text: string }[];
-  /** Export files (text and images), written beside the pages after Eleventy has run. */
-  exportFiles: { path: string; content: string | Buffer }[];
+  /** Export files (text, and images drawn when written), written beside the pages after Eleventy has run. */
+  exportFiles: { path: string; content: ExportContent }[];
 }
 
 /** Above this many versions a scenario gets diff pages for consecutive versions and for each version against the latest only. */
