@@ -47,7 +47,7 @@ scenario, a damaged archive or a failed build leaves the previous site untouched
 give byte-identical output.
 
 Beside every table the pages offer CSV, JSON, Markdown, LaTeX and HTML exports, and beside every chart PNG and
-SVG images (drawn at build time, about 1 s per page; kept in node_modules/.cache/cosmoledger/images, so a
+SVG images (drawn at build time, about 0.5 s per page; kept in node_modules/.cache/cosmoledger/images, so a
 frozen version is drawn once). --skip-images leaves the chart images out (the tables' exports stay).`,
   freeze: `Usage: cosmoledger freeze FILE [-m MESSAGE] [--archive DIR]
 
