@@ -8,10 +8,24 @@ export const EXPORT_FORMAT = "cosmoledger.export/1";
 /** Units as the page writes them (Gpc^3 -> Gpc³). */
 export const unitText = (u: string) => u.replace(/\^3/g, "\u00b3").replace(/\^2/g, "\u00b2");
 const labelWithUnit = (label: string, unit: string) => (unit ? `${label} [${unitText(unit)}]` : label);
-const header = (t: ExportTable) => [t.stub, ...t.columns.map((c) => labelWithUnit(c.label, c.unit))];
-const quantityText = (t: ExportTable) => (t.quantity ? labelWithUnit(t.quantity.label, t.quantity.unit) : null);
-/** The table's heading: its title, with the unit of a one-quantity table. */
-const heading = (t: ExportTable) => (t.quantity?.unit ? `${t.title} [${unitText(t.quantity.unit)}]` : t.title);
+/** Which span each column sits under (null when the table has no spans). */
+const spanOf = (t: ExportTable, column: number) => {
+  if (!t.spans) return null;
+  let end = 0;
+  for (const s of t.spans) if (column < (end += s.columns)) return s;
+  return null;
+};
+/**
+ * The header as one row of cells: the stub, then each column; under several spans a column is named after its
+ * quantity too ("Comoving distance D_C [Mpc]: Flat"), since CSV and Markdown have a single header row.
+ */
+const header = (t: ExportTable) => [t.stub, ...t.columns.map((c, i) => {
+  const own = labelWithUnit(c.label, c.unit);
+  const span = t.spans && t.spans.length > 1 ? spanOf(t, i) : null;
+  return span ? `${labelWithUnit(span.label, span.unit)}: ${own}` : own;
+})];
+/** The table's heading: its title, with the quantity's unit for a table of one quantity. */
+const heading = (t: ExportTable) => (t.spans?.length === 1 && t.spans[0].unit ? `${t.title} [${unitText(t.spans[0].unit)}]` : t.title);
 
 /**
  * RFC 4180 CSV (csv-stringify) at full precision, empty cell = null; provenance in leading "#" comment lines.
@@ -29,7 +43,7 @@ export function tableJson(t: ExportTable, p: ExportProvenance): string {
   return JSON.stringify({
     format: EXPORT_FORMAT, provenance: { ...p, version_label: versionLabel(p), line: provenanceLine(p) },
     table: {
-      id: t.id, title: t.title, quantity: t.quantity, stub: t.stub, columns: t.columns,
+      id: t.id, title: t.title, spans: t.spans, stub: t.stub, columns: t.columns,
       rows: t.rows.map((r) => ({ label: r.label, unit: r.unit, values: r.cells.map((c) => c.value), text: r.cells.map((c) => c.text) })),
     },
   }, null, 2) + "\n";
@@ -77,7 +91,17 @@ export function tableLatex(t: ExportTable, p: ExportProvenance): string {
     `\\begin{tabular}{l${"r".repeat(n)}}`,
     "\\toprule",
   ];
-  if (t.quantity) lines.push(` & \\multicolumn{${n}}{c}{${latexLabel(t.quantity.label, t.quantity.unit)}} \\\\`, `\\cmidrule(lr){2-${n + 1}}`);
+  if (t.spans) {
+    // One \multicolumn per quantity over its model columns, each underlined by its own \cmidrule.
+    let first = 2;
+    const rules: string[] = [];
+    const cells = t.spans.map((s) => {
+      rules.push(`\\cmidrule(lr){${first}-${first + s.columns - 1}}`);
+      first += s.columns;
+      return `\\multicolumn{${s.columns}}{c}{${latexLabel(s.label, s.unit)}}`;
+    });
+    lines.push(` & ${cells.join(" & ")} \\\\`, rules.join(" "));
+  }
   lines.push(`${escapeLatex(t.stub)} & ${t.columns.map((c) => latexLabel(c.label, c.unit)).join(" & ")} \\\\`, "\\midrule");
   for (const r of t.rows) lines.push(`${latexLabel(r.label, r.unit)} & ${r.cells.map(cell).join(" & ")} \\\\`);
   lines.push("\\bottomrule", "\\end{tabular}", "");
@@ -96,8 +120,9 @@ export function tableHtml(t: ExportTable, p: ExportProvenance): string {
     `<caption style="text-align:left;font-weight:bold">${escapeHtml(heading(t))}</caption>`,
     "<thead>",
   ];
-  if (t.quantity) out.push(`<tr><th></th><th scope="colgroup" colspan="${t.columns.length}" style="${th};text-align:center">${escapeHtml(quantityText(t)!)}</th></tr>`);
-  out.push(`<tr>${header(t).map((h) => `<th scope="col" style="${th}">${escapeHtml(h)}</th>`).join("")}</tr>`, "</thead>", "<tbody>");
+  if (t.spans) out.push(`<tr><th></th>${t.spans.map((s) => `<th scope="colgroup" colspan="${s.columns}" style="${th};text-align:center">${escapeHtml(labelWithUnit(s.label, s.unit))}</th>`).join("")}</tr>`);
+  const own = [t.stub, ...t.columns.map((c) => labelWithUnit(c.label, c.unit))];
+  out.push(`<tr>${own.map((h) => `<th scope="col" style="${th}">${escapeHtml(h)}</th>`).join("")}</tr>`, "</thead>", "<tbody>");
   for (const r of t.rows) {
     out.push(`<tr><th scope="row" style="${th};border-bottom:0">${escapeHtml(labelWithUnit(r.label, r.unit))}</th>${r.cells.map((c) => `<td style="${c.kind === "number" ? td : "padding:2px 8px"}">${escapeHtml(c.text)}</td>`).join("")}</tr>`);
   }

@@ -6,14 +6,17 @@ import { exactParts, numberParts, partsText, type NumberParts } from "../site/fo
 export interface ExportCell { kind: "number" | "text"; value: number | string | null; parts: NumberParts | null; text: string }
 export interface ExportRow { label: string; unit: string; cells: ExportCell[] }
 
-/** A table as the page shows it, ready for every export format. Units sit in the row labels or in `quantity`. */
+/** A table as the page shows it, ready for every export format. Units sit in the row labels or in `spans`. */
 export interface ExportTable {
   id: string;
   title: string;
   /** The page section the table sits in (for the provenance address). */
   anchor: string;
-  /** For tables of one quantity (redshift tables): its label and unit, shown above the model columns. */
-  quantity: { label: string; unit: string } | null;
+  /**
+   * Header cells spanning the columns of one quantity (redshift tables): one span over the models for a table of one
+   * quantity, one per quantity for a whole group. null for tables whose rows are quantities.
+   */
+  spans: { label: string; unit: string; columns: number }[] | null;
   stub: string;
   columns: { label: string; unit: string }[];
   rows: ExportRow[];
@@ -37,7 +40,7 @@ export function exportTables(doc: TablesDocument): ExportTable[] {
   const perModel = (label: string, unit: string, f: (m: ModelTables) => ExportCell): ExportRow => ({ label, unit, cells: models.map(f) });
   const tables: ExportTable[] = [];
   tables.push({
-    id: "models", title: "Models side by side", anchor: "models", quantity: null, stub: "Parameter", columns,
+    id: "models", title: "Models side by side", anchor: "models", spans: null, stub: "Parameter", columns,
     rows: [
       ...PARAMETERS.map((p) => perModel(p.label, p.unit, (m) => {
         const v = (m.parameters as unknown as Record<string, number | null>)[p.key];
@@ -50,7 +53,7 @@ export function exportTables(doc: TablesDocument): ExportTable[] {
     ],
   });
   tables.push({
-    id: "glance", title: "At a glance", anchor: "glance", quantity: null, stub: "Quantity", columns,
+    id: "glance", title: "At a glance", anchor: "glance", spans: null, stub: "Quantity", columns,
     rows: [
       perModel("Geometry", "", (m) => text(m.summary.geometry as string)),
       perModel("Fate", "", (m) => text(m.summary.fate === "recollapses" ? "recollapses" : "expands forever")),
@@ -59,16 +62,22 @@ export function exportTables(doc: TablesDocument): ExportTable[] {
   });
   for (const g of REDSHIFT_GROUPS) {
     if (g.id === "bao" && !hasEarly(doc)) continue;
+    // The whole group in one table (a column block per quantity), then each quantity's table as the page shows it.
+    tables.push({
+      id: `group-${g.id}`, title: g.title, anchor: `group-${g.id}`, spans: g.quantities.map((q) => ({ label: q.label, unit: q.unit, columns: models.length })), stub: "z",
+      columns: g.quantities.flatMap(() => columns),
+      rows: models[0].redshifts.map((r, i) => ({ label: exact(r.z).text, unit: "", cells: g.quantities.flatMap((q) => models.map((m) => num(m.redshifts[i][q.key]))) })),
+    });
     for (const q of g.quantities) {
       tables.push({
-        id: `z-${q.key}`, title: `${g.title}: ${q.label}`, anchor: `group-${g.id}`, quantity: { label: q.label, unit: q.unit }, stub: "z", columns,
+        id: `z-${q.key}`, title: `${g.title}: ${q.label}`, anchor: `group-${g.id}`, spans: [{ label: q.label, unit: q.unit, columns: models.length }], stub: "z", columns,
         rows: models[0].redshifts.map((r, i) => ({ label: exact(r.z).text, unit: "", cells: models.map((m) => num(m.redshifts[i][q.key])) })),
       });
     }
   }
   if (hasEarly(doc)) {
     tables.push({
-      id: "early", title: "Early universe", anchor: "early", quantity: null, stub: "Quantity",
+      id: "early", title: "Early universe", anchor: "early", spans: null, stub: "Quantity",
       columns: [{ label: "Method", unit: "" }, ...columns],
       rows: [
         ...EARLY_QUANTITIES.map((q) => ({ label: q.label, unit: q.unit, cells: [text(q.method), ...models.map((m) => num(m.summary[q.key] as number | null))] })),
@@ -78,7 +87,7 @@ export function exportTables(doc: TablesDocument): ExportTable[] {
   }
   models[0].targets.forEach((t, ti) => {
     tables.push({
-      id: `target-${ti + 1}`, title: `Target: ${t.name} (placed by ${t.placed_by})`, anchor: "targets", quantity: null, stub: "Quantity", columns,
+      id: `target-${ti + 1}`, title: `Target: ${t.name} (placed by ${t.placed_by})`, anchor: "targets", spans: null, stub: "Quantity", columns,
       rows: [
         ...TARGET_QUANTITIES.map((q) => perModel(q.label, q.unit, (m) => num((m.targets[ti] as unknown as Record<string, number | null>)[q.key]))),
         perModel("Note", "", (m) => text(m.targets[ti].note)),
@@ -87,7 +96,7 @@ export function exportTables(doc: TablesDocument): ExportTable[] {
   });
   if (models[0].surveys.length > 0) {
     tables.push({
-      id: "surveys", title: "Survey shells", anchor: "surveys", quantity: null, stub: "Shell",
+      id: "surveys", title: "Survey shells", anchor: "surveys", spans: null, stub: "Shell",
       columns: [{ label: "Area", unit: "deg^2" }, { label: "z min", unit: "" }, { label: "z max", unit: "" },
         ...models.flatMap((m) => [{ label: `${m.label}: volume`, unit: "Gpc^3" }, { label: `${m.label}: expected count`, unit: "" }])],
       rows: models[0].surveys.map((s, si) => ({

@@ -130,6 +130,21 @@ describe("exports of the demo site", () => {
     expect(readFileSync(join(exportsDir(), "z-luminosity_distance_Mpc.tex"), "utf8")).toContain("\\multicolumn{5}{c}{Luminosity distance D\\_L [Mpc]}");
   });
 
+  it("a whole redshift group exports as one table: a column block per quantity, \\multicolumn headers in LaTeX", () => {
+    expect(page.querySelector('p.exports[data-export="group-distances"] a')?.getAttribute("href")).toBe("exports/group-distances.csv");
+    const keys = ["comoving_distance_Mpc", "transverse_comoving_distance_Mpc", "angular_diameter_distance_Mpc", "luminosity_distance_Mpc", "distance_modulus_mag"];
+    const rows: string[][] = parseCsv(readFileSync(join(exportsDir(), "group-distances.csv"), "utf8"), { comment: "#" });
+    expect(rows[0][1]).toBe("Comoving distance D_C [Mpc]: Flat reference (demo values)");
+    expect(rows[0].length).toBe(1 + keys.length * tables.models.length);
+    rows.slice(1).forEach((r, i) => keys.forEach((k, qi) => tables.models.forEach((m, j) => expect(Number(r[1 + qi * tables.models.length + j])).toBe(m.redshifts[i][k]))));
+    const tex = readFileSync(join(exportsDir(), "group-distances.tex"), "utf8");
+    expect(latexBalanced(tex)).toBe(true);
+    expect(tex.match(/\\multicolumn\{5\}\{c\}/g)?.length).toBe(5);
+    expect(tex).toContain("\\cmidrule(lr){2-6} \\cmidrule(lr){7-11} \\cmidrule(lr){12-16} \\cmidrule(lr){17-21} \\cmidrule(lr){22-26}");
+    const mdRows = markdownTable(readFileSync(join(exportsDir(), "group-distances.md"), "utf8"));
+    expect(mdRows[0]).toEqual(rows[0]);
+  });
+
   it("the HTML fragment is self-contained (no script, no outside link) and holds the page's cells", () => {
     const html = readFileSync(join(exportsDir(), "glance.html"), "utf8");
     const { document } = parseHTML(`<body>${html}</body>`);
