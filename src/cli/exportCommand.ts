@@ -1,10 +1,8 @@
-import { readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { displayPath } from "./displayPath.js";
 import { TOOL_VERSION } from "./toolVersion.js";
 import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
-import { loadScenario } from "../scenario/loadScenario.js";
-import { ScenarioInputError, formatIssue } from "../scenario/scenarioIssue.js";
+import { readScenarioFile } from "./readScenarioFile.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
 import type { TablesDocument } from "../tables/tablesDocument.js";
 import { readScenarioArchive } from "../archive/readArchive.js";
@@ -33,22 +31,9 @@ export async function exportCommand(files: string[], options: { version?: string
     wanted = Number(options.version);
   }
   const file = files[0];
-  const shown = displayPath(file);
-  let text: string;
-  try {
-    text = readFileSync(file, "utf8");
-  } catch (e) {
-    return fail(`${shown}:1:1: cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
-  }
-  let scenario;
-  try {
-    scenario = loadScenario(text, shown);
-  } catch (e) {
-    if (!(e instanceof ScenarioInputError)) throw e;
-    for (const i of e.issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
-    process.stderr.write(`${e.issues.length} problem${e.issues.length === 1 ? "" : "s"} found; nothing was written.\n`);
-    return 2;
-  }
+  const scenario = readScenarioFile(file, "nothing was written");
+  if (!scenario) return 2;
+  const text = scenario.source.text;
   const archive = options.archive ?? join(dirname(file), "archive");
   const issues: ArchiveIssue[] = [];
   const { versions } = readScenarioArchive(join(archive, scenario.id), scenario.id, issues);

@@ -1,8 +1,6 @@
-import { readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { displayPath } from "./displayPath.js";
-import { loadScenario } from "../scenario/loadScenario.js";
-import { ScenarioInputError, formatIssue } from "../scenario/scenarioIssue.js";
+import { readScenarioFile } from "./readScenarioFile.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
 import { freezeScenario } from "../archive/freezeScenario.js";
 
@@ -17,23 +15,8 @@ export function freezeCommand(files: string[], options: { message?: string; arch
     return 2;
   }
   const file = files[0];
-  const shown = displayPath(file);
-  let text: string;
-  try {
-    text = readFileSync(file, "utf8");
-  } catch (e) {
-    process.stderr.write(`error: ${shown}:1:1: cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})\n`);
-    return 2;
-  }
-  let scenario;
-  try {
-    scenario = loadScenario(text, shown);
-  } catch (e) {
-    if (!(e instanceof ScenarioInputError)) throw e;
-    for (const i of e.issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
-    process.stderr.write(`${e.issues.length} problem${e.issues.length === 1 ? "" : "s"} found; nothing was frozen.\n`);
-    return 2;
-  }
+  const scenario = readScenarioFile(file, "nothing was frozen");
+  if (!scenario) return 2;
   const archive = options.archive ?? join(dirname(file), "archive");
   const outcome = freezeScenario(archive, scenario, buildTablesDocument(scenario), options.message ?? "");
   if (outcome.kind === "broken") {
