@@ -21,6 +21,10 @@ export async function buildSite(scenariosDir: string, outDir: string, quiet: boo
     process.stderr.write(`error: scenarios folder ${scenariosDir} does not exist\n`);
     return 2;
   }
+  if (archiveDir !== undefined && !existsSync(archive)) {
+    process.stderr.write(`error: archive folder ${archiveDir} does not exist\n`);
+    return 2;
+  }
   if (existsSync(out) && !existsSync(join(out, SITE_MARKER)) && readdirSync(out).length > 0) {
     process.stderr.write(`error: refusing to replace ${outDir}: it is not empty and was not built by cosmoledger (no ${SITE_MARKER}); choose another --out\n`);
     return 2;

@@ -1,4 +1,5 @@
 import canonicalize from "canonicalize";
+import { existsSync } from "node:fs";
 import { displayPath } from "./displayPath.js";
 import { readArchive } from "../archive/readArchive.js";
 import { tablesDrift, type QuantityDrift } from "../archive/tablesDrift.js";
@@ -23,6 +24,10 @@ const shownDrift = (r: number) => (r === Infinity ? "changed (not a number, or s
  */
 export function verifyCommand(options: { archive?: string; strict?: boolean; json?: boolean; quiet?: boolean }): number {
   const dir = options.archive ?? "scenarios/archive";
+  if (!existsSync(dir)) {
+    process.stderr.write(`error: no archive at ${displayPath(dir)} (name one with --archive DIR; cosmoledger freeze creates it)\n`);
+    return 2;
+  }
   const { archives, issues } = readArchive(dir);
   if (issues.length > 0) {
     for (const i of issues) process.stderr.write(`error: ${i.file}: ${i.message}\n`);

@@ -194,6 +194,22 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
     expect(readdirSync(join(tampered, "shelf-test")).sort()).toEqual(["v1.json", "v2.json"]);
   });
 
+  it("bad input to freeze, verify, build and export: exit 2, a located message, nothing written", () => {
+    const bad = join(work, "bad.yaml");
+    writeFileSync(bad, scenario(70).replace("    Omega_m: 0.3\n", "    Omega_m: -0.3\n"));
+    const f = cli("freeze", "bad.yaml", "--archive", "bad-archive");
+    expect(f.code).toBe(2);
+    expect(f.stderr).toMatch(/bad\.yaml:\d+:\d+: models\[0\]\.Omega_m: .*\n1 problem found; nothing was frozen\./);
+    expect(existsSync(join(work, "bad-archive"))).toBe(false);
+    const none = cli("verify", "--archive", "no-such-archive");
+    expect(none.code).toBe(2);
+    expect(none.stderr).toMatch(/no archive at no-such-archive/);
+    expect(cli("build", "--scenarios", "scenarios", "--archive", "no-such-archive", "--out", "site-none").code).toBe(2);
+    expect(existsSync(join(work, "site-none"))).toBe(false);
+    expect(cli("freeze", "scenarios/shelf.yaml", "--strict").code).toBe(2); // an option of another command
+    expect(cli("freeze").code).toBe(2);
+  });
+
   it("concurrent freezes of different edits take distinct numbers and leave an intact chain", async () => {
     const dir = join(work, "race");
     mkdirSync(dir);
