@@ -8,7 +8,7 @@ import type { ArchiveIssue } from "./checkVersionChain.js";
 import { frozenInputs, holdsSameInputs, sealVersion, versionFileName, type VersionRecord } from "./versionRecord.js";
 
 export type FreezeOutcome =
-  | { kind: "frozen"; record: VersionRecord; file: string }
+  | { kind: "frozen"; record: VersionRecord; file: string; sameInputsAs: number | null }
   | { kind: "unchanged"; record: VersionRecord; file: string }
   | { kind: "broken"; issues: ArchiveIssue[] };
 
@@ -27,7 +27,8 @@ function fsyncPath(path: string, flags: string): void {
  * Freezes the next version of a scenario into `archiveDir/<id>/vN.json`.
  * The record is written to a temporary file, flushed, then published with link(2), which fails if vN.json already
  * exists: two freezes at once can never share a number or leave a torn file; the loser re-reads the chain and tries N+1.
- * Existing versions are never rewritten. Unchanged inputs (same source text and inputs hash as the latest) are a no-op.
+ * Existing versions are never rewritten. Unchanged inputs (same source text and inputs hash as the latest) are a no-op;
+ * inputs that return to an older version's make a new version, which says so (a revert is history too).
  */
 export function freezeScenario(archiveDir: string, scenario: ResolvedScenario, doc: TablesDocument, message: string, now: () => Date = () => new Date()): FreezeOutcome {
   const folder = join(archiveDir, scenario.id);
@@ -56,7 +57,8 @@ export function freezeScenario(archiveDir: string, scenario: ResolvedScenario, d
       rmSync(tmp, { force: true });
     }
     fsyncPath(folder, "r");
-    return { kind: "frozen", record, file: final };
+    const earlier = versions.find((v) => holdsSameInputs(v, scenario.source.text, doc));
+    return { kind: "frozen", record, file: final, sameInputsAs: earlier ? earlier.version : null };
   }
   throw new Error(`could not take a version number in ${folder} after ${RETRIES} attempts`);
 }

@@ -27,6 +27,9 @@ export function freezeCommand(files: string[], options: { message?: string; arch
   const where = displayPath(outcome.file);
   const hash = outcome.record.sha256.slice(0, 12);
   if (outcome.kind === "unchanged") process.stdout.write(`unchanged: ${scenario.id} version ${outcome.record.version} already holds these inputs (${where}, sha256 ${hash}); nothing written\n`);
-  else process.stdout.write(`froze ${scenario.id} version ${outcome.record.version} (sha256 ${hash}) into ${where}\n`);
+  else {
+    const revert = outcome.sameInputsAs === null ? "" : `; its inputs are those of version ${outcome.sameInputsAs}`;
+    process.stdout.write(`froze ${scenario.id} version ${outcome.record.version} (sha256 ${hash}) into ${where}${revert}\n`);
+  }
   return 0;
 }

@@ -76,6 +76,18 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
     expect(r2.tables.models[0].summary.hubble_distance_Mpc).toBeCloseTo(C_KM_S / 60, 9);
   });
 
+  it("returning to an earlier version's inputs is a new version that names the earlier one", () => {
+    const dir = join(work, "revert");
+    mkdirSync(dir);
+    const f = join(dir, "s.yaml");
+    writeFileSync(f, scenario(70));
+    expect(cli("freeze", f).stdout).toMatch(/version 1 /);
+    writeFileSync(f, scenario(71));
+    expect(cli("freeze", f).stdout).toMatch(/version 2 /);
+    writeFileSync(f, scenario(70));
+    expect(cli("freeze", f).stdout).toMatch(/version 3 .*; its inputs are those of version 1/);
+  });
+
   it("verify passes on the intact archive and reports zero drift", () => {
     const r = cli("verify", "--archive", "scenarios/archive", "--strict");
     expect(r.code, r.stderr).toBe(0);
