@@ -1,3 +1,4 @@
+import { versionRecordProblem } from "./validateVersionRecord.js";
 import { VERSION_FILE_PATTERN, VERSION_FORMAT, versionFileName, versionHash, type VersionRecord } from "./versionRecord.js";
 
 /** Something wrong with the archive, named by file so that a user can go and look. */
@@ -28,6 +29,11 @@ export function checkVersionChain(folderShown: string, scenarioId: string, files
     }
     if (record === null || typeof record !== "object" || record.format !== VERSION_FORMAT) {
       issues.push({ file: shown, message: `not a cosmoledger version record (format should be ${VERSION_FORMAT})` });
+      continue;
+    }
+    const problem = versionRecordProblem(record);
+    if (problem !== null) {
+      issues.push({ file: shown, message: `not a valid version record (src/schema/version.schema.json): ${problem}` });
       continue;
     }
     const actual = versionHash(record);

@@ -6,7 +6,7 @@ import { existsSync, mkdirSync, readFileSync, readdirSync, renameSync, rmSync, w
 import { join } from "node:path";
 import { parseHTML } from "linkedom";
 import { BIN, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
-import { sealVersion, type VersionRecord } from "../../src/archive/versionRecord.js";
+import { sealVersion, versionHash, type VersionRecord } from "../../src/archive/versionRecord.js";
 
 const C_KM_S = 299792.458; // SI definition of the speed of light
 
@@ -195,6 +195,16 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
     const o = cli("verify", "--archive", "reordered");
     expect(o.code).toBe(2);
     expect(o.stderr).toMatch(/reordered\/shelf-test\/v1\.json: holds version 2 but is named v1\.json/);
+
+    // A record whose hash is right but whose shape is not (hand-made, or from another tool) is refused by the schema.
+    const misshapen = copy("misshapen");
+    const r2 = JSON.parse(readFileSync(join(misshapen, "shelf-test/v2.json"), "utf8"));
+    delete r2.tables.models;
+    r2.sha256 = versionHash(r2);
+    writeFileSync(join(misshapen, "shelf-test/v2.json"), JSON.stringify(r2));
+    const s = cli("verify", "--archive", "misshapen");
+    expect(s.code).toBe(2);
+    expect(s.stderr).toMatch(/misshapen\/shelf-test\/v2\.json: not a valid version record \(src\/schema\/version\.schema\.json\): \/tables must have required property 'models'/);
 
     const before = readFileSync(join(work, "site/index.html"), "utf8");
     const b = cli("build", "--scenarios", "scenarios", "--archive", "tampered", "--out", "site");
