@@ -33,13 +33,14 @@ export default function (eleventyConfig) {
   eleventyConfig.addWatchTarget(archiveDir);
   // Mark the output as ours, so that `cosmoledger build` may replace a folder that `npm start` wrote.
   // Exports (tables in five formats, chart images) are files, not pages: they are written beside the pages, then the marker.
-  eleventyConfig.on("eleventy.after", async ({ dir }) => {
+  eleventyConfig.on("eleventy.after", async ({ dir, directories }) => {
+    const output = directories?.output ?? dir.output; // directories honours a command-line --output
     await writeExportFiles(current?.exportFiles ?? [], (f, content) => {
-      const target = join(dir.output, f.path);
+      const target = join(output, f.path);
       mkdirSync(dirname(target), { recursive: true });
       writeFileSync(target, content);
     });
-    writeFileSync(join(dir.output, SITE_MARKER), "Built by cosmoledger; this folder is replaced by the next build.\n");
+    writeFileSync(join(output, SITE_MARKER), "Built by cosmoledger; this folder is replaced by the next build.\n");
   });
 
   eleventyConfig.addPassthroughCopy({ "content/assets": "assets" });

@@ -51,6 +51,7 @@ export async function buildSite(scenariosDir: string, outDir: string, quiet: boo
     const { Eleventy } = await import("@11ty/eleventy");
     process.env.COSMOLEDGER_SITE_OUT = tmp;
     const eleventy = new Eleventy("content", tmp, { configPath: ".eleventy.js", quietMode: true });
+    eleventy.disableLogger(); // cosmoledger reports the build itself; Eleventy's errors still arrive as exceptions
     await eleventy.write();
     if (!existsSync(join(tmp, SITE_MARKER))) throw new Error("Eleventy finished without writing the site marker");
   } catch (e) {

@@ -3,5 +3,7 @@ declare module "@11ty/eleventy" {
   export class Eleventy {
     constructor(input: string, output: string, options?: { configPath?: string; quietMode?: boolean });
     write(): Promise<unknown>;
+    /** Silences Eleventy's own console output (errors are still thrown). */
+    disableLogger(): void;
   }
 }
