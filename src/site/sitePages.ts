@@ -5,6 +5,7 @@ import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import type { TablesDocument } from "../tables/tablesDocument.js";
 import { tablesCsv } from "../tables/tablesCsv.js";
 import type { ExportContent, ExportIndex } from "../exports/exportFiles.js";
+import { formatPercent } from "./formatNumber.js";
 import type { ExportProvenance } from "../exports/exportProvenance.js";
 
 /** Makes the exports of one page (the site passes exportFiles with cached chart renderers). */
@@ -74,6 +75,8 @@ function summarise(d: VersionDiff): string {
   if (d.modelsRemoved.length) parts.push(`removed ${d.modelsRemoved.join(", ")}`);
   if (d.engine.changed) parts.push(`engine ${d.engine.before} \u2192 ${d.engine.after}`);
   if (parts.length === 0) parts.push(d.source.length ? "source text only (comments or layout)" : "no change");
+  const l = d.largest;
+  if (l && l.relative !== null && l.relative > 0) parts.push(`largest output change ${formatPercent(l.relative).replace(/^\+/, "")} (${l.label}, ${l.model}, ${l.where})`);
   return parts.join("; ");
 }
 

@@ -106,6 +106,12 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
       const { page, problems } = await open(base + path);
       expect(problems, path).toEqual([]);
       if (path.includes("/v1/")) for (const n of await drawnPixels(page)) expect(n, path).toBeGreaterThan(2000);
+      if (path.includes("/history/")) {
+        await page.selectOption("form.pair-picker select[name=from]", "v1");
+        await page.selectOption("form.pair-picker select[name=to]", "v2");
+        await Promise.all([page.waitForURL(/\/diff\/v1-v2\/index\.html$/), page.click("form.pair-picker button")]);
+        expect(await page.textContent("h1")).toMatch(/version 1 → version 2/);
+      }
       await page.screenshot({ path: join(SHOTS, path.replace(/\//g, "_").replace(/^_/, "") + ".png") });
       await page.close();
     }
