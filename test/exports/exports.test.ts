@@ -153,7 +153,7 @@ describe("exports of the demo site", () => {
     expect(rows).toEqual(pageTable(page, "glance"));
   });
 
-  it("PNGs decode (pngjs) at print size with drawn pixels, and carry provenance in tEXt chunks", () => {
+  it("PNGs decode (pngjs) at print size with drawn pixels, and carry provenance and alt text in iTXt chunks", () => {
     const pngs = readdirSync(exportsDir()).filter((f) => f.endsWith(".png"));
     expect(pngs.length).toBe(12); // 4 distances, H/(1+z), age and lookback, scale, volume, 3 BAO ratios
     for (const f of pngs.slice(0, 3)) {
@@ -163,9 +163,24 @@ describe("exports of the demo site", () => {
       let drawn = 0;
       for (let i = 0; i < png.data.length; i += 4) if (png.data[i] < 200 || png.data[i + 1] < 200 || png.data[i + 2] < 200) drawn++;
       expect(drawn, f).toBeGreaterThan(20_000);
-      const latin = bytes.toString("latin1");
-      expect(latin).toContain("tEXtSource\u0000cosmoledger");
-      expect(latin).toContain("tEXtDescription\u0000Line chart of");
+      // Walk the chunks as the PNG specification lays them out: length, type, data, CRC.
+      const text: Record<string, string> = {};
+      for (let at = 8; at < bytes.length;) {
+        const length = bytes.readUInt32BE(at);
+        const type = bytes.toString("latin1", at + 4, at + 8);
+        const data = bytes.subarray(at + 8, at + 8 + length);
+        if (type === "iTXt") {
+          const nul = data.indexOf(0);
+          const rest = data.subarray(nul + 3);
+          const afterLang = rest.indexOf(0) + 1;
+          const afterKey = rest.indexOf(0, afterLang) + 1;
+          text[data.toString("latin1", 0, nul)] = rest.subarray(afterKey).toString("utf8");
+        }
+        at += 12 + length;
+      }
+      expect(text.Source).toMatch(/^cosmoledger .*lantern-deep-field.*version 2/);
+      expect(text.Description).toMatch(/^Line chart of .* for 5 models/);
+      expect(text.Title).toMatch(/: /);
     }
   });
 
