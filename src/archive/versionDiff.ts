@@ -19,7 +19,10 @@ export interface OutputChange { section: string; sectionStart: boolean; key: str
 export interface VersionDiff {
   from: number; to: number;
   source: SourceDiffHunk[];
+  /** Changed inputs: set, inherited or defaulted values, and scenario-level settings. */
   inputs: InputChange[];
+  /** Changed derived parameters (closure, radiation densities, ...), which follow from the inputs. */
+  derived: InputChange[];
   modelsAdded: string[]; modelsRemoved: string[];
   /** Models present in both versions, in the order of the later one. */
   commonModels: { id: string; label: string }[];
@@ -140,6 +143,8 @@ export function versionDiff(a: VersionRecord, b: VersionRecord): VersionDiff {
   const idsB = b.tables.models.map((m) => m.id);
   const common = idsB.filter((id) => idsA.includes(id));
   const outputs = outputChanges(a.tables, b.tables, common);
+  const changes = inputChanges(a, b);
+  const isDerived = (c: InputChange) => c.provenanceBefore === "derived" && c.provenanceAfter === "derived";
   let largest: VersionDiff["largest"] = null;
   let best: ModelOutputChange | undefined;
   for (const o of outputs) for (const id of common) {
@@ -153,7 +158,8 @@ export function versionDiff(a: VersionRecord, b: VersionRecord): VersionDiff {
   return {
     from: a.version, to: b.version,
     source: sourceHunks(a.source.text, b.source.text),
-    inputs: inputChanges(a, b),
+    inputs: changes.filter((c) => !isDerived(c)),
+    derived: changes.filter(isDerived),
     modelsAdded: idsB.filter((id) => !idsA.includes(id)),
     modelsRemoved: idsA.filter((id) => !idsB.includes(id)),
     commonModels: common.map((id) => ({ id, label: b.tables.models.find((m) => m.id === id)!.label })),

@@ -216,6 +216,21 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
     expect(readdirSync(join(tampered, "shelf-test")).sort()).toEqual(["v1.json", "v2.json"]);
   });
 
+  it("a scenario whose file was removed keeps its pages; its address shows the latest frozen version", () => {
+    const dir = join(work, "gone");
+    mkdirSync(dir);
+    writeFileSync(join(dir, "s.yaml"), scenario(68));
+    expect(cli("freeze", join(dir, "s.yaml"), "-m", "before removal").code).toBe(0);
+    rmSync(join(dir, "s.yaml"));
+    const b = cli("build", "--scenarios", dir, "--out", join(dir, "site"), "--skip-images");
+    expect(b.code, b.stderr).toBe(0);
+    const live = page(join(dir, "site/shelf-test/index.html"));
+    expect(live.querySelector("article")?.getAttribute("data-status")).toBe("archived-only");
+    expect(live.querySelector(".banner")?.textContent).toMatch(/no longer in the scenarios folder/);
+    expect(hubbleDistanceCell(live)).toBe((C_KM_S / 68).toPrecision(6));
+    expect(existsSync(join(dir, "site/shelf-test/v1/index.html"))).toBe(true);
+  });
+
   it("bad input to freeze, verify, build and export: exit 2, a located message, nothing written", () => {
     const bad = join(work, "bad.yaml");
     writeFileSync(bad, scenario(70).replace("    Omega_m: 0.3\n", "    Omega_m: -0.3\n"));
