@@ -76,10 +76,23 @@
         parsing: false, normalized: true, responsive: true, maintainAspectRatio: false,
         interaction: { mode: "nearest", axis: "x", intersect: false },
         scales: {
-          x: { type: logInput.checked ? "logarithmic" : "linear", title: { display: true, text: "redshift z" } },
+          x: { type: logInput.checked ? "logarithmic" : "linear", title: { display: true, text: "redshift z" },
+            ticks: { maxRotation: 0, callback: function (value, index, ticks) {
+              // On the log axis only 1, 2 and 5 times a power of ten are labelled, so that labels do not crowd.
+              if (this.type !== "logarithmic") return Chart.Ticks.formatters.numeric.call(this, value, index, ticks);
+              var v = Number(value);
+              var m = v / Math.pow(10, Math.floor(Math.log10(v) + 1e-9));
+              return [1, 2, 5].some(function (k) { return Math.abs(m - k) < 1e-6; }) ? String(Number(v.toPrecision(3))) : "";
+            } } },
           y: { type: "linear", title: { display: true, text: yTitle() } },
         },
-        plugins: { legend: { position: "bottom", labels: { usePointStyle: false, boxWidth: 36 } } },
+        // Swatches are short lines with each model's dash pattern (as in the exported images), readable in greyscale.
+        plugins: { legend: { position: "bottom", labels: { usePointStyle: true, pointStyleWidth: 36, generateLabels: function (c) {
+          return c.data.datasets.map(function (d, i) {
+            return { text: d.label, datasetIndex: i, pointStyle: "line", fillStyle: COLOURS[i % COLOURS.length], strokeStyle: COLOURS[i % COLOURS.length],
+              lineWidth: 2, lineDash: DASHES[i % DASHES.length], hidden: !c.isDatasetVisible(i) };
+          });
+        } } } },
       },
     });
     function update() {

@@ -115,7 +115,18 @@ function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfi
       },
       plugins: {
         title: { display: true, text: spec.title, color: INK, font: { family: FONT, size: 13, weight: "bold" } },
-        legend: { position: "bottom", labels: { color: INK, usePointStyle: true, pointStyle: "line", pointStyleWidth: 30, font: { family: FONT, size: 9 } } },
+        // Legend swatches are short lines in each model's colour and dash pattern, so a greyscale print still maps them.
+        legend: {
+          position: "bottom",
+          labels: {
+            color: INK, usePointStyle: true, pointStyleWidth: 30, font: { family: FONT, size: 9 },
+            // Chart.js's own labels take a point style's (undashed) look; these carry each line's dash pattern.
+            generateLabels: (chart) => chart.data.datasets.map((d, i) => ({
+              text: String(d.label), datasetIndex: i, pointStyle: "line", fillStyle: COLOURS[i % COLOURS.length], strokeStyle: COLOURS[i % COLOURS.length],
+              lineWidth: 2, lineDash: DASHES[i % DASHES.length], fontColor: INK, hidden: false,
+            })),
+          },
+        },
       },
     },
     plugins: [background],

@@ -9,7 +9,7 @@ import type { ExportProvenance } from "../exports/exportProvenance.js";
 import { PACKAGE_ROOT } from "../cli/toolVersion.js";
 
 /** Bump when the drawing code changes, so that cached images are redrawn. */
-const RENDER_REVISION = 2;
+const RENDER_REVISION = 4;
 
 function canvasVersion(): string {
   const require = createRequire(import.meta.url);
