@@ -1,4 +1,4 @@
-import { closeSync, fsyncSync, linkSync, mkdirSync, openSync, rmSync, writeFileSync } from "node:fs";
+import { closeSync, constants, copyFileSync, fsyncSync, linkSync, mkdirSync, openSync, rmSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { randomBytes } from "node:crypto";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
@@ -13,6 +13,21 @@ export type FreezeOutcome =
   | { kind: "broken"; issues: ArchiveIssue[] };
 
 const RETRIES = 50;
+
+/**
+ * Puts the finished temporary file at its final name only if that name is free: link(2), atomic; on file systems
+ * without hard links, an exclusive copy (COPYFILE_EXCL), which still never overwrites but is not atomic.
+ */
+function publish(tmp: string, final: string): void {
+  try {
+    linkSync(tmp, final);
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    if (code !== "EPERM" && code !== "ENOTSUP" && code !== "EOPNOTSUPP" && code !== "ENOSYS") throw e;
+    copyFileSync(tmp, final, constants.COPYFILE_EXCL);
+    fsyncPath(final, "r+");
+  }
+}
 
 function fsyncPath(path: string, flags: string): void {
   const fd = openSync(path, flags);
@@ -49,7 +64,7 @@ export function freezeScenario(archiveDir: string, scenario: ResolvedScenario, d
     writeFileSync(tmp, JSON.stringify(record) + "\n", { flag: "wx" });
     try {
       fsyncPath(tmp, "r+");
-      linkSync(tmp, final);
+      publish(tmp, final);
     } catch (e) {
       if ((e as NodeJS.ErrnoException).code === "EEXIST") continue; // another freeze took this number first
       throw e;
