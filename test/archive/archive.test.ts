@@ -280,7 +280,13 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
     const killedWhileBuilding = await new Promise<boolean>((done) => {
       const poll = setInterval(() => {
         const building = readdirSync(work).find((n) => n.startsWith("site.building-"));
-        if (building && readdirSync(join(work, building)).length > 0) {
+        let started = false;
+        try {
+          started = !!building && readdirSync(join(work, building)).length > 0;
+        } catch {
+          started = false; // the folder was swapped in between the two reads: the build got past the point to test
+        }
+        if (started) {
           clearInterval(poll);
           p.kill("SIGKILL");
           done(true);
