@@ -14,6 +14,7 @@ export function readArchive(archiveDir: string): { archives: ScenarioArchive[]; 
   const archives: ScenarioArchive[] = [];
   const issues: ArchiveIssue[] = [];
   if (!existsSync(archiveDir)) return { archives, issues };
+  if (!statSync(archiveDir).isDirectory()) return { archives, issues: [{ file: displayPath(archiveDir), message: "is a file, not an archive folder" }] };
   for (const id of readdirSync(archiveDir).filter(visible).sort()) {
     const folder = join(archiveDir, id);
     if (!statSync(folder).isDirectory()) {
@@ -28,7 +29,12 @@ export function readArchive(archiveDir: string): { archives: ScenarioArchive[]; 
 /** One scenario's folder: its checked versions, oldest first; problems are added to `issues`. */
 export function readScenarioArchive(folder: string, id: string, issues: ArchiveIssue[]): ScenarioArchive {
   const names = existsSync(folder) ? readdirSync(folder).filter(visible) : [];
-  const files = names.map((name) => ({ name, text: readFileSync(join(folder, name), "utf8") }));
+  const files: { name: string; text: string }[] = [];
+  for (const name of names) {
+    const path = join(folder, name);
+    if (statSync(path).isFile()) files.push({ name, text: readFileSync(path, "utf8") });
+    else issues.push({ file: displayPath(path), message: "unexpected folder in a version folder (expected v1.json, v2.json, ...)" });
+  }
   const checked = checkVersionChain(displayPath(folder), id, files);
   issues.push(...checked.issues);
   return { id, folder, versions: checked.versions };

@@ -243,6 +243,14 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
     expect(none.stderr).toMatch(/no archive at no-such-archive/);
     expect(cli("build", "--scenarios", "scenarios", "--archive", "no-such-archive", "--out", "site-none").code).toBe(2);
     expect(existsSync(join(work, "site-none"))).toBe(false);
+    writeFileSync(join(work, "not-a-folder"), "x");
+    const notFolder = cli("verify", "--archive", "not-a-folder");
+    expect(notFolder.code).toBe(2);
+    expect(notFolder.stderr).toMatch(/not-a-folder: is a file, not an archive folder/);
+    mkdirSync(join(work, "odd/shelf-test/v1.json"), { recursive: true });
+    const odd = cli("verify", "--archive", "odd");
+    expect(odd.code).toBe(2);
+    expect(odd.stderr).toMatch(/odd\/shelf-test\/v1\.json: unexpected folder/);
     expect(cli("freeze", "scenarios/shelf.yaml", "--strict").code).toBe(2); // an option of another command
     expect(cli("freeze").code).toBe(2);
   });

@@ -259,6 +259,15 @@ describe("special characters in labels", { timeout: 60_000 }, () => {
     expect(latexHeader(tex)).toEqual(["Quantity", NASTY, `${NASTY} 2`]);
   });
 
+  it("numbers survive the export path: c/H0 in the CSV at full precision and in LaTeX to six figures (closed form, c = 299792.458 km/s by SI definition)", () => {
+    const csv: string[][] = parseCsv(readFileSync(join(out, "glance.csv"), "utf8"), { comment: "#" });
+    const row = csv.find((r) => r[0] === "Hubble distance c/H0 [Mpc]")!;
+    expect(Number(row[1])).toBeCloseTo(299792.458 / 70, 9);
+    expect(Number(row[2])).toBeCloseTo(299792.458 / 65, 9);
+    const tex = readFileSync(join(out, "glance.tex"), "utf8");
+    expect(tex).toContain(`Hubble distance c/H0 [Mpc] & ${(299792.458 / 70).toPrecision(6)} & ${(299792.458 / 65).toPrecision(6)} \\\\`);
+  });
+
   it("CSV, JSON and the HTML fragment keep the labels exactly", () => {
     const csv: string[][] = parseCsv(readFileSync(join(out, "glance.csv"), "utf8"), { comment: "#" });
     expect(csv[0]).toEqual(["Quantity", NASTY, `${NASTY} 2`]);
