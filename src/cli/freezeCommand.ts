@@ -1,3 +1,4 @@
+import { existsSync, statSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { displayPath } from "./displayPath.js";
 import { readScenarioFile } from "./readScenarioFile.js";
@@ -18,6 +19,10 @@ export function freezeCommand(files: string[], options: { message?: string; arch
   const scenario = readScenarioFile(file, "nothing was frozen");
   if (!scenario) return 2;
   const archive = options.archive ?? join(dirname(file), "archive");
+  if (existsSync(archive) && !statSync(archive).isDirectory()) {
+    process.stderr.write(`error: ${displayPath(archive)} is a file, not an archive folder; nothing was frozen\n`);
+    return 2;
+  }
   const outcome = freezeScenario(archive, scenario, buildTablesDocument(scenario), options.message ?? "");
   if (outcome.kind === "broken") {
     for (const i of outcome.issues) process.stderr.write(`error: ${i.file}: ${i.message}\n`);

@@ -247,6 +247,9 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
     const notFolder = cli("verify", "--archive", "not-a-folder");
     expect(notFolder.code).toBe(2);
     expect(notFolder.stderr).toMatch(/not-a-folder: is a file, not an archive folder/);
+    const intoFile = cli("freeze", "scenarios/shelf.yaml", "--archive", "not-a-folder");
+    expect(intoFile.code).toBe(2);
+    expect(intoFile.stderr).toMatch(/not-a-folder is a file, not an archive folder; nothing was frozen/);
     mkdirSync(join(work, "odd/shelf-test/v1.json"), { recursive: true });
     const odd = cli("verify", "--archive", "odd");
     expect(odd.code).toBe(2);
