@@ -65,8 +65,9 @@ Options:
 Writes the files offered beside each table and chart of the scenario's page: every table (models, at a glance,
 each redshift group whole and each of its quantities, early universe, targets, survey shells) as csv, json,
 md (pipe table), tex (tabular with booktabs rules) and html (self-contained fragment); every chart as png
-(1800 x 1020 px, 300 dpi at 6 inches) and svg; and the assumptions paragraph for a methods section (assumptions.txt, assumptions.tex). Every file
-names its scenario, version (or "unfrozen draft"), hash, engine version and page address.
+(1800 x 1020 px, 300 dpi at 6 inches) and svg; and the assumptions paragraph for a methods section
+(assumptions.txt, assumptions.tex). Every file names its scenario, version (or "unfrozen draft"), hash, engine
+version and page address.
 
 Options:
   --version N   export frozen version N from the archive (its stored tables; nothing is recomputed)
