@@ -1,5 +1,6 @@
 import type { BackgroundModel } from "./backgroundModel.js";
 import { massiveNeutrinoDensity } from "./massiveNeutrinoDensity.js";
+import { lnEnergyRatio } from "./fermiDiracEnergy.js";
 
 /**
  * E^2(a) = (H/H0)^2 = Omega_r a^-4 + Omega_cb a^-3 + Omega_k a^-2 + Omega_de rho_de(a)/rho_de(1) + rho_nu,massive(a)
@@ -8,7 +9,13 @@ import { massiveNeutrinoDensity } from "./massiveNeutrinoDensity.js";
  */
 export function expansionRateSquared(model: BackgroundModel): (a: number) => number {
   const base = withoutMassiveNeutrinos(model);
-  if (model.massiveNeutrinos.length === 0) return base;
+  const list = model.massiveNeutrinos;
+  if (list.length === 0) return base;
+  if (list.length === 1) {
+    // One species (the common case): its constants captured, no loop (same sum as massiveNeutrinoDensity).
+    const { Omega_rel: o, lnY0: l } = list[0];
+    return (a) => { const lnA = Math.log(a); return base(a) + o * Math.exp(lnEnergyRatio(l + lnA) - 4 * lnA); };
+  }
   return (a) => base(a) + massiveNeutrinoDensity(model, a);
 }
 

@@ -54,7 +54,9 @@ export function lnEnergyRatio(lnY: number): number {
     const iy2 = Math.exp(-2 * lnY);
     return lnY + Math.log(FD_NUMBER + iy2 * (11.25 * ZETA5 - iy2 * (708.75 * ZETA7) / 8)) - Math.log(FD_ENERGY_MASSLESS);
   }
-  const { lnR, slope } = nodes();
+  const tbl = table ?? nodes();
+  const lnR = tbl.lnR;
+  const slope = tbl.slope;
   const t = (lnY - LN_Y_MIN) / STEP;
   const i = Math.min(Math.floor(t), lnR.length - 2);
   const s = t - i;
