@@ -25,6 +25,7 @@ export async function exportCommand(files: string[], options: { version?: string
   const formats = (options.format ?? [EXPORT_FORMATS.join(",")]).flatMap((f) => f.split(",")).map((f) => f.trim()).filter(Boolean);
   const unknown = formats.filter((f) => !(EXPORT_FORMATS as readonly string[]).includes(f));
   if (unknown.length > 0) return fail(`--format ${unknown[0]}: not a format; choose from ${EXPORT_FORMATS.join(", ")}`);
+  if (formats.length === 0) return fail(`--format names no format; choose from ${EXPORT_FORMATS.join(", ")}`);
   let wanted: number | null = null;
   if (options.version !== undefined) {
     if (!/^[1-9][0-9]*$/.test(options.version)) return fail(`--version ${options.version}: expected a version number 1, 2, 3 ...`);

@@ -310,6 +310,10 @@ describe("cosmoledger export", { timeout: 60_000 }, () => {
     expect(v1.tables.models.length).toBe(4);
     expect(readFileSync(join(dir, "ex/lantern-deep-field/v1/glance.tex"), "utf8")).toContain("\\begin{tabular}{lrrrr}");
     expect(runCli(["export", "scenarios/lantern-deep-field.yaml", "--format", "docx"]).code).toBe(2);
+    const empty = runCli(["export", "scenarios/lantern-deep-field.yaml", "--format", ",", "--out", join(dir, "ex3")]);
+    expect(empty.code).toBe(2);
+    expect(empty.stderr).toMatch(/--format names no format/);
+    expect(existsSync(join(dir, "ex3"))).toBe(false);
     const missing = runCli(["export", "scenarios/lantern-deep-field.yaml", "--version", "99", "--out", join(dir, "ex2")]);
     expect(missing.code).toBe(2);
     expect(missing.stderr).toMatch(/has no version 99/);
