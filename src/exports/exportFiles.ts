@@ -80,17 +80,19 @@ export function exportFiles(doc: TablesDocument, base: Omit<ExportProvenance, "p
  */
 export async function writeExportFiles<T extends { content: ExportContent }>(files: T[], write: (file: T, content: string | Buffer) => void, inFlight = 4): Promise<void> {
   const pending = new Set<Promise<void>>();
+  let failure: { error: unknown } | null = null; // the first failure, raised once every started image has settled
   for (const f of files) {
+    if (failure) break;
     if (typeof f.content !== "function") {
       write(f, f.content);
       continue;
     }
-    const job: Promise<void> = f.content().then((content) => {
-      write(f, content);
-      pending.delete(job);
-    });
+    const job: Promise<void> = f.content().then((content) => write(f, content)).catch((error) => {
+      failure ??= { error };
+    }).finally(() => pending.delete(job));
     pending.add(job);
     if (pending.size >= inFlight) await Promise.race(pending);
   }
   await Promise.all(pending);
+  if (failure) throw (failure as { error: unknown }).error;
 }
