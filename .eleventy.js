@@ -1,8 +1,9 @@
 // Eleventy configuration: filters, passthrough copies, the tables documents as global data, and the folder layout.
 // Templates format the tables documents; every number they show was computed by the engine before Eleventy ran.
 import { HTML_FILTERS, TEXT_FILTERS } from "./dist/site/siteFilters.js";
-import { defaultArchive, getSiteLedger, readLedger } from "./dist/site/siteLedger.js";
-import * as catalog from "./dist/site/quantityCatalog.js";
+import { defaultArchive, readLedger } from "./dist/cli/readLedger.js";
+import { getSiteLedger } from "./dist/site/siteLedger.js";
+import * as catalog from "./dist/contract/quantityCatalog.js";
 import { CLOSURE_TEX, FRIEDMANN_TEX } from "./dist/site/renderMath.js";
 import { formatIssue } from "./dist/scenario/scenarioIssue.js";
 import { ENGINE_VERSION } from "./dist/engine/engineVersion.js";

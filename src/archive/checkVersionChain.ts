@@ -1,5 +1,5 @@
-import { versionRecordProblem } from "./validateVersionRecord.js";
-import { VERSION_FILE_PATTERN, VERSION_FORMAT, versionFileName, versionHash, type VersionRecord } from "./versionRecord.js";
+import { versionRecordProblem } from "../contract/validateContract.js";
+import { VERSION_FILE_PATTERN, versionFileName, versionHash, type StoredVersionRecord } from "../contract/versionRecord.js";
 
 /** Something wrong with the archive, named by file so that a user can go and look. */
 export interface ArchiveIssue { file: string; message: string }
@@ -9,9 +9,9 @@ export interface ArchiveIssue { file: string; message: string }
  * each file's own hash, its version number and scenario id, and the hash chain through previous_sha256.
  * Returns the versions in order when everything holds; any issue means the chain cannot be trusted.
  */
-export function checkVersionChain(folderShown: string, scenarioId: string, files: { name: string; text: string }[]): { versions: VersionRecord[]; issues: ArchiveIssue[] } {
+export function checkVersionChain(folderShown: string, scenarioId: string, files: { name: string; text: string }[]): { versions: StoredVersionRecord[]; issues: ArchiveIssue[] } {
   const issues: ArchiveIssue[] = [];
-  const byNumber = new Map<number, VersionRecord>();
+  const byNumber = new Map<number, StoredVersionRecord>();
   for (const f of files) {
     const shown = `${folderShown}/${f.name}`;
     const m = VERSION_FILE_PATTERN.exec(f.name);
@@ -20,20 +20,16 @@ export function checkVersionChain(folderShown: string, scenarioId: string, files
       continue;
     }
     const n = Number(m[1]);
-    let record: VersionRecord;
+    let record: StoredVersionRecord;
     try {
       record = JSON.parse(f.text);
     } catch (e) {
       issues.push({ file: shown, message: `not valid JSON (${(e as Error).message}); the file is damaged or was edited` });
       continue;
     }
-    if (record === null || typeof record !== "object" || record.format !== VERSION_FORMAT) {
-      issues.push({ file: shown, message: `not a cosmoledger version record (format should be ${VERSION_FORMAT})` });
-      continue;
-    }
     const problem = versionRecordProblem(record);
     if (problem !== null) {
-      issues.push({ file: shown, message: `not a valid version record (src/schema/version.schema.json): ${problem}` });
+      issues.push({ file: shown, message: `not a valid version record: ${problem}` });
       continue;
     }
     const actual = versionHash(record);
@@ -52,7 +48,7 @@ export function checkVersionChain(folderShown: string, scenarioId: string, files
     byNumber.set(n, record);
   }
   const highest = Math.max(0, ...[...files].map((f) => Number(VERSION_FILE_PATTERN.exec(f.name)?.[1] ?? 0)));
-  const versions: VersionRecord[] = [];
+  const versions: StoredVersionRecord[] = [];
   for (let n = 1; n <= highest; n++) {
     const record = byNumber.get(n);
     const shown = `${folderShown}/${versionFileName(n)}`;

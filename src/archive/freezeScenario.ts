@@ -2,14 +2,15 @@ import { closeSync, constants, copyFileSync, fsyncSync, linkSync, mkdirSync, ope
 import { join } from "node:path";
 import { randomBytes } from "node:crypto";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
-import type { TablesDocument } from "../tables/tablesDocument.js";
+import type { TablesDocument } from "../contract/tablesDocument.js";
 import { readScenarioArchive } from "./readArchive.js";
 import type { ArchiveIssue } from "./checkVersionChain.js";
-import { frozenInputs, holdsSameInputs, sealVersion, versionFileName, type VersionRecord } from "./versionRecord.js";
+import { frozenInputs, holdsSameInputs, sealVersion, versionFileName, type StoredVersionRecord, type VersionRecord } from "../contract/versionRecord.js";
+import { TOOL_VERSION } from "../common/toolVersion.js";
 
 export type FreezeOutcome =
   | { kind: "frozen"; record: VersionRecord; file: string; sameInputsAs: number | null }
-  | { kind: "unchanged"; record: VersionRecord; file: string }
+  | { kind: "unchanged"; record: StoredVersionRecord; file: string }
   | { kind: "broken"; issues: ArchiveIssue[] };
 
 const RETRIES = 50;
@@ -53,12 +54,12 @@ export function freezeScenario(archiveDir: string, scenario: ResolvedScenario, d
     const { versions } = readScenarioArchive(folder, scenario.id, issues);
     if (issues.length > 0) return { kind: "broken", issues };
     const latest = versions.at(-1);
-    if (latest && holdsSameInputs(latest, scenario.source.text, doc)) return { kind: "unchanged", record: latest, file: join(folder, versionFileName(latest.version)) };
+    if (latest && holdsSameInputs(latest, doc)) return { kind: "unchanged", record: latest, file: join(folder, versionFileName(latest.version)) };
     const record = sealVersion({
       scenario_id: scenario.id, version: (latest?.version ?? 0) + 1, created: now().toISOString(), message,
       previous_sha256: latest?.sha256 ?? null, source: { path: scenario.source.path, text: scenario.source.text },
       inputs: frozenInputs(scenario), tables: doc,
-    });
+    }, TOOL_VERSION);
     const final = join(folder, versionFileName(record.version));
     const tmp = join(folder, `.freeze-${process.pid}-${randomBytes(6).toString("hex")}.tmp`);
     writeFileSync(tmp, JSON.stringify(record) + "\n", { flag: "wx" });
@@ -72,7 +73,7 @@ export function freezeScenario(archiveDir: string, scenario: ResolvedScenario, d
       rmSync(tmp, { force: true });
     }
     fsyncPath(folder, "r");
-    const earlier = versions.find((v) => holdsSameInputs(v, scenario.source.text, doc));
+    const earlier = versions.find((v) => holdsSameInputs(v, doc));
     return { kind: "frozen", record, file: final, sameInputsAs: earlier ? earlier.version : null };
   }
   throw new Error(`could not take a version number in ${folder} after ${RETRIES} attempts`);

@@ -1,10 +1,10 @@
 import { existsSync, readFileSync, readdirSync, statSync } from "node:fs";
 import { join } from "node:path";
-import { displayPath } from "../cli/displayPath.js";
+import { displayPath } from "../common/displayPath.js";
 import { checkVersionChain, type ArchiveIssue } from "./checkVersionChain.js";
-import type { VersionRecord } from "./versionRecord.js";
+import type { StoredVersionRecord } from "../contract/versionRecord.js";
 
-export interface ScenarioArchive { id: string; folder: string; versions: VersionRecord[] }
+export interface ScenarioArchive { id: string; folder: string; versions: StoredVersionRecord[] }
 
 /** Scenario ids are folder names in the archive; dotfiles (a freeze's temporary files) are skipped. */
 const visible = (name: string) => !name.startsWith(".");

@@ -1,9 +1,10 @@
 import { structuredPatch } from "diff";
 import canonicalize from "canonicalize";
-import { EARLY_QUANTITIES, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES, type QuantityInfo } from "../site/quantityCatalog.js";
-import type { ModelTables, Num, TablesDocument } from "../tables/tablesDocument.js";
+import { EARLY_QUANTITIES, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES, type QuantityInfo } from "../contract/quantityCatalog.js";
+import { quantityValue, type Num, type StoredModelTables, type StoredTablesDocument } from "../contract/tablesDocument.js";
 import { relativeChange } from "./tablesDrift.js";
-import type { VersionRecord } from "./versionRecord.js";
+import { tablesFormatOf, type StoredVersionRecord } from "../contract/versionRecord.js";
+import { quantityKeys } from "./quantityKeys.js";
 
 /** One line of the YAML text diff: kept (" "), removed ("-") or added ("+"), with its line numbers. */
 export interface SourceDiffLine { op: " " | "-" | "+"; oldLine: number | null; newLine: number | null; text: string }
@@ -14,7 +15,11 @@ export interface InputChange { model: string | null; key: string; before: string
 
 /** The largest change of one output quantity in one model; relative is null when a value appeared, vanished or is not numeric. */
 export interface ModelOutputChange { relative: number | null; where: string; before: Num; after: Num; changed: boolean }
-export interface OutputChange { section: string; sectionStart: boolean; key: string; label: string; unit: string; models: Record<string, ModelOutputChange> }
+/**
+ * One output quantity; `absent` says which side's format does not have it at all ("not computed in version N"),
+ * which is never shown as a change of value.
+ */
+export interface OutputChange { section: string; sectionStart: boolean; key: string; label: string; unit: string; absent: "before" | "after" | null; models: Record<string, ModelOutputChange> }
 
 export interface VersionDiff {
   from: number; to: number;
@@ -28,6 +33,8 @@ export interface VersionDiff {
   commonModels: { id: string; label: string }[];
   outputs: OutputChange[];
   engine: { before: string; after: string; changed: boolean; constantsChanged: string[] };
+  /** The data-contract formats of the two versions, and the quantities one has and the other does not (key paths). */
+  format: { before: string; after: string; changed: boolean; quantitiesAdded: string[]; quantitiesRemoved: string[] };
   /** The single largest output change, for the history page. */
   largest: { label: string; model: string; relative: number | null; where: string } | null;
 }
@@ -54,7 +61,7 @@ function sourceHunks(before: string, after: string): SourceDiffHunk[] {
 
 const SCENARIO_KEYS = ["title", "description", "author", "tags", "baseline", "redshifts", "grid", "targets", "surveys"] as const;
 
-function inputChanges(a: VersionRecord, b: VersionRecord): InputChange[] {
+function inputChanges(a: StoredVersionRecord, b: StoredVersionRecord): InputChange[] {
   const out: InputChange[] = [];
   for (const key of SCENARIO_KEYS) {
     const x = text((a.inputs as unknown as Record<string, unknown>)[key]);
@@ -64,15 +71,16 @@ function inputChanges(a: VersionRecord, b: VersionRecord): InputChange[] {
   for (const mb of b.tables.models) {
     const ma = a.tables.models.find((m) => m.id === mb.id);
     if (!ma) continue;
+    const mods = (m: StoredModelTables) => m as unknown as Record<string, unknown>;
     for (const key of ["label", "extends", "notes"] as const) {
-      if (text(ma[key]) !== text(mb[key])) out.push({ model: mb.id, key, before: text(ma[key]), after: text(mb[key]), beforeNumber: null, afterNumber: null, provenanceBefore: null, provenanceAfter: null });
+      if (text(mods(ma)[key]) !== text(mods(mb)[key])) out.push({ model: mb.id, key, before: text(mods(ma)[key]), after: text(mods(mb)[key]), beforeNumber: null, afterNumber: null, provenanceBefore: null, provenanceAfter: null });
     }
     const keys = [...new Set([...Object.keys(mb.parameters), ...Object.keys(ma.parameters)])];
     for (const key of keys) {
       const pa = (ma.parameters as unknown as Record<string, unknown>)[key];
       const pb = (mb.parameters as unknown as Record<string, unknown>)[key];
-      const va = ma.provenance[key] ?? null;
-      const vb = mb.provenance[key] ?? null;
+      const va = (ma.provenance as Record<string, string>)[key] ?? null;
+      const vb = (mb.provenance as Record<string, string>)[key] ?? null;
       if (text(pa) !== text(pb) || va !== vb) out.push({ model: mb.id, key, before: text(pa), after: text(pb), beforeNumber: typeof pa === "number" ? pa : null, afterNumber: typeof pb === "number" ? pb : null, provenanceBefore: va, provenanceAfter: vb });
     }
   }
@@ -97,48 +105,53 @@ function worse(x: ModelOutputChange | undefined, y: ModelOutputChange): ModelOut
   return (y.relative ?? 0) > (x.relative ?? 0) ? y : x;
 }
 
-function rowsChange(ma: ModelTables, mb: ModelTables, key: string): ModelOutputChange {
+function rowsChange(ma: StoredModelTables, mb: StoredModelTables, key: Parameters<typeof quantityValue>[1]): ModelOutputChange {
   let w: ModelOutputChange | undefined;
   for (const rb of mb.redshifts) {
     const ra = ma.redshifts.find((r) => r.z === rb.z);
-    if (ra) w = worse(w, change(ra[key], rb[key], `z = ${rb.z}`));
+    if (ra) w = worse(w, change(quantityValue(ra, key), quantityValue(rb, key), `z = ${rb.z}`));
   }
   return w ?? { relative: null, where: "no redshift in common", before: null, after: null, changed: false };
 }
 
-function namedChange<T extends { name: string }>(xs: T[], ys: T[], key: keyof T): ModelOutputChange {
+function namedChange<T extends { name: string }>(xs: T[], ys: T[], key: Parameters<typeof quantityValue>[1]): ModelOutputChange {
   let w: ModelOutputChange | undefined;
   for (const y of ys) {
     const x = xs.find((e) => e.name === y.name);
-    if (x) w = worse(w, change(x[key] as Num, y[key] as Num, y.name));
+    if (x) w = worse(w, change(quantityValue(x, key), quantityValue(y, key), y.name));
   }
   return w ?? { relative: null, where: "none in common", before: null, after: null, changed: false };
 }
 
-function outputChanges(a: TablesDocument, b: TablesDocument, common: string[]): OutputChange[] {
+function outputChanges(a: StoredTablesDocument, b: StoredTablesDocument, common: string[]): OutputChange[] {
   const out: OutputChange[] = [];
-  const model = (doc: TablesDocument, id: string) => doc.models.find((m) => m.id === id)!;
-  const add = (section: string, q: QuantityInfo, f: (ma: ModelTables, mb: ModelTables) => ModelOutputChange) => {
+  const model = (doc: StoredTablesDocument, id: string) => doc.models.find((m) => m.id === id)!;
+  const keysA = quantityKeys(a);
+  const keysB = quantityKeys(b);
+  const add = (section: string, path: string, q: QuantityInfo, f: (ma: StoredModelTables, mb: StoredModelTables) => ModelOutputChange) => {
+    const inA = keysA.has(path);
+    const inB = keysB.has(path);
+    if (!inA && !inB) return;
     const models: Record<string, ModelOutputChange> = {};
-    for (const id of common) models[id] = f(model(a, id), model(b, id));
-    out.push({ section, sectionStart: out.at(-1)?.section !== section, key: q.key, label: q.label, unit: q.unit, models });
+    for (const id of common) models[id] = inA && inB ? f(model(a, id), model(b, id)) : { relative: null, where: "", before: null, after: null, changed: false };
+    out.push({ section, sectionStart: out.at(-1)?.section !== section, key: q.key, label: q.label, unit: q.unit, absent: !inA ? "before" : !inB ? "after" : null, models });
   };
   for (const q of [...SUMMARY_QUANTITIES, ...EARLY_QUANTITIES.filter((e) => !SUMMARY_QUANTITIES.some((s) => s.key === e.key))]) {
-    add("Summary", q, (ma, mb) => change(ma.summary[q.key], mb.summary[q.key], "today"));
+    add("Summary", `summary.${q.key}`, q, (ma, mb) => change(quantityValue(ma.summary, q.key), quantityValue(mb.summary, q.key), "today"));
   }
-  for (const g of REDSHIFT_GROUPS) for (const q of g.quantities) add(`Redshift table: ${g.title}`, q, (ma, mb) => rowsChange(ma, mb, q.key));
+  for (const g of REDSHIFT_GROUPS) for (const q of g.quantities) add(`Redshift table: ${g.title}`, `redshifts[].${q.key}`, q, (ma, mb) => rowsChange(ma, mb, q.key));
   if (b.models[0]?.targets.length || a.models[0]?.targets.length) {
-    for (const q of TARGET_QUANTITIES) add("Targets", q, (ma, mb) => namedChange(ma.targets, mb.targets, q.key as never));
+    for (const q of TARGET_QUANTITIES) add("Targets", `targets[].${q.key}`, q, (ma, mb) => namedChange(ma.targets, mb.targets, q.key));
   }
   if (b.models[0]?.surveys.length || a.models[0]?.surveys.length) {
-    add("Survey shells", { key: "volume_Gpc3", label: "Shell volume", unit: "Gpc^3" }, (ma, mb) => namedChange(ma.surveys, mb.surveys, "volume_Gpc3"));
-    add("Survey shells", { key: "expected_count", label: "Expected count", unit: "" }, (ma, mb) => namedChange(ma.surveys, mb.surveys, "expected_count"));
+    add("Survey shells", "surveys[].volume_Gpc3", { key: "volume_Gpc3", label: "Shell volume", unit: "Gpc^3" }, (ma, mb) => namedChange(ma.surveys, mb.surveys, "volume_Gpc3"));
+    add("Survey shells", "surveys[].expected_count", { key: "expected_count", label: "Expected count", unit: "" }, (ma, mb) => namedChange(ma.surveys, mb.surveys, "expected_count"));
   }
   return out;
 }
 
 /** What changed from version `a` to version `b` of one scenario: source text, resolved inputs, outputs and engine. */
-export function versionDiff(a: VersionRecord, b: VersionRecord): VersionDiff {
+export function versionDiff(a: StoredVersionRecord, b: StoredVersionRecord): VersionDiff {
   const idsA = a.tables.models.map((m) => m.id);
   const idsB = b.tables.models.map((m) => m.id);
   const common = idsB.filter((id) => idsA.includes(id));
@@ -147,6 +160,8 @@ export function versionDiff(a: VersionRecord, b: VersionRecord): VersionDiff {
   const isDerived = (c: InputChange) => c.provenanceBefore === "derived" && c.provenanceAfter === "derived";
   let largest: VersionDiff["largest"] = null;
   let best: ModelOutputChange | undefined;
+  const keysA = quantityKeys(a.tables);
+  const keysB = quantityKeys(b.tables);
   for (const o of outputs) for (const id of common) {
     const c = o.models[id];
     if (c.changed && worse(best, c) === c && c !== best) {
@@ -155,6 +170,7 @@ export function versionDiff(a: VersionRecord, b: VersionRecord): VersionDiff {
     }
   }
   const constants = new Set([...Object.keys(a.engine.constants), ...Object.keys(b.engine.constants)]);
+  const constant = (r: StoredVersionRecord, k: string) => (r.engine.constants as Record<string, unknown>)[k];
   return {
     from: a.version, to: b.version,
     source: sourceHunks(a.source.text, b.source.text),
@@ -166,7 +182,12 @@ export function versionDiff(a: VersionRecord, b: VersionRecord): VersionDiff {
     outputs,
     engine: {
       before: a.engine.version, after: b.engine.version, changed: a.engine.version !== b.engine.version,
-      constantsChanged: [...constants].filter((k) => text(a.engine.constants[k]) !== text(b.engine.constants[k])).sort(),
+      constantsChanged: [...constants].filter((k) => text(constant(a, k)) !== text(constant(b, k))).sort(),
+    },
+    format: {
+      before: a.tables.format, after: b.tables.format, changed: tablesFormatOf(a.tables) !== tablesFormatOf(b.tables),
+      quantitiesAdded: [...keysB].filter((k) => !keysA.has(k)).sort(),
+      quantitiesRemoved: [...keysA].filter((k) => !keysB.has(k)).sort(),
     },
     largest,
   };

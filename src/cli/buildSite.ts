@@ -1,7 +1,8 @@
 import { existsSync, mkdirSync, readdirSync, renameSync, rmSync } from "node:fs";
 import { basename, dirname, join, resolve } from "node:path";
-import { PACKAGE_ROOT } from "./toolVersion.js";
-import { defaultArchive, readLedger, setSiteLedger } from "../site/siteLedger.js";
+import { PACKAGE_ROOT } from "../common/toolVersion.js";
+import { defaultArchive, readLedger } from "./readLedger.js";
+import { setSiteLedger } from "../site/siteLedger.js";
 import { formatIssue } from "../scenario/scenarioIssue.js";
 
 import { SITE_MARKER } from "./siteMarker.js";

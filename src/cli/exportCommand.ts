@@ -1,13 +1,13 @@
 import { dirname, join } from "node:path";
-import { displayPath } from "./displayPath.js";
-import { TOOL_VERSION } from "./toolVersion.js";
+import { displayPath } from "../common/displayPath.js";
+import { TOOL_VERSION } from "../common/toolVersion.js";
 import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
 import { readScenarioFile } from "./readScenarioFile.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
-import type { TablesDocument } from "../tables/tablesDocument.js";
+import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { readScenarioArchive } from "../archive/readArchive.js";
 import type { ArchiveIssue } from "../archive/checkVersionChain.js";
-import { holdsSameInputs, type VersionRecord } from "../archive/versionRecord.js";
+import { holdsSameInputs, type StoredVersionRecord } from "../contract/versionRecord.js";
 import { EXPORT_FORMATS, exportFiles, writeExportFiles, type ExportFormat } from "../exports/exportFiles.js";
 
 const fail = (message: string) => {
@@ -34,7 +34,6 @@ export async function exportCommand(files: string[], options: { version?: string
   const file = files[0];
   const scenario = readScenarioFile(file, "nothing was written");
   if (!scenario) return 2;
-  const text = scenario.source.text;
   const archive = options.archive ?? join(dirname(file), "archive");
   const issues: ArchiveIssue[] = [];
   const { versions } = readScenarioArchive(join(archive, scenario.id), scenario.id, issues);
@@ -42,8 +41,8 @@ export async function exportCommand(files: string[], options: { version?: string
     for (const i of issues) process.stderr.write(`error: ${i.file}: ${i.message}\n`);
     return fail(`the archive of ${scenario.id} is damaged; nothing was written`);
   }
-  let doc: TablesDocument;
-  let record: VersionRecord | null;
+  let doc: StoredTablesDocument;
+  let record: StoredVersionRecord | null;
   let page: string;
   if (wanted !== null) {
     record = versions.find((v) => v.version === wanted) ?? null;
@@ -51,9 +50,10 @@ export async function exportCommand(files: string[], options: { version?: string
     doc = record.tables;
     page = `${scenario.id}/v${wanted}/index.html`;
   } else {
-    doc = buildTablesDocument(scenario);
+    const current = buildTablesDocument(scenario);
+    doc = current;
     const latest = versions.at(-1);
-    record = latest && holdsSameInputs(latest, text, doc) ? latest : null;
+    record = latest && holdsSameInputs(latest, current) ? latest : null;
     page = `${scenario.id}/index.html`;
   }
   const base = {

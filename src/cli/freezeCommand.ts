@@ -1,6 +1,6 @@
 import { existsSync, statSync } from "node:fs";
 import { dirname, join } from "node:path";
-import { displayPath } from "./displayPath.js";
+import { displayPath } from "../common/displayPath.js";
 import { readScenarioFile } from "./readScenarioFile.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
 import { freezeScenario } from "../archive/freezeScenario.js";

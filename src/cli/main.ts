@@ -14,7 +14,7 @@ Commands:
                             frozen version (defaults: scenarios/, _site/ and scenarios/archive/)
   freeze FILE [-m MESSAGE] [--archive DIR]
                             record the scenario as its next frozen version (default archive: beside FILE)
-  verify [--archive DIR] [--strict] [--json]
+  verify [--archive DIR] [--strict] [--json] [--verbose]
                             check the archive's hashes and chains, and recompute every version
   export FILE [--version N] [--format F,...] [--out DIR]
                             write every table (csv json md tex html), chart (png svg) and the
@@ -74,17 +74,19 @@ Options:
   --format F    only these formats, comma-separated or repeated: csv, json, md, tex, html, png, svg
   --out DIR     output folder (default out/exports); files go to DIR/<id>/vN/ or DIR/<id>/draft/
   --archive DIR archive folder (default: the folder "archive" beside FILE)`,
-  verify: `Usage: cosmoledger verify [--archive DIR] [--strict] [--json] [--quiet]
+  verify: `Usage: cosmoledger verify [--archive DIR] [--strict] [--json] [--verbose] [--quiet]
 
-Checks every version in the archive (default scenarios/archive): its own SHA-256, its number and the hash chain.
-A tampered, missing or reordered version is an error naming the file (exit 2). Then recomputes every version
-from its frozen source with the current code and reports the largest relative drift of each quantity; drift
-above the engine tolerance is reported, and with --strict fails with exit 3.
+Checks every version in the archive (default scenarios/archive), in whatever data-contract format it was
+frozen: its schema, its own SHA-256, its number and the hash chain. A tampered, missing or reordered version,
+or one written by a newer cosmoledger, is an error naming the file (exit 2). Then recomputes every version
+from its frozen source with the current code and separates: quantities added since the version was frozen
+(not drift), drift that a declared engine change explains (named), and drift that nothing explains.
 
 Options:
-  --strict  fail (exit 3) when an archived number would not reproduce
-  --json    print the report as JSON
-  --quiet   print only the summary and the problems`,
+  --strict   fail (exit 3) on unexplained drift, changed resolved inputs or a source that no longer validates
+  --json     print the report as JSON
+  --verbose  also print the largest relative change of every quantity
+  --quiet    print only the summary and the problems`,
 };
 
 export async function main(argv: string[]): Promise<number> {
@@ -105,7 +107,7 @@ export async function main(argv: string[]): Promise<number> {
       options: {
         help: { type: "boolean", short: "h" }, out: { type: "string" }, json: { type: "boolean" }, quiet: { type: "boolean" }, scenarios: { type: "string" },
         archive: { type: "string" }, message: { type: "string", short: "m" }, strict: { type: "boolean" },
-        version: { type: "string" }, format: { type: "string", multiple: true }, "skip-images": { type: "boolean" },
+        version: { type: "string" }, format: { type: "string", multiple: true }, "skip-images": { type: "boolean" }, verbose: { type: "boolean" },
       },
     });
   } catch (e) {
@@ -124,7 +126,7 @@ export async function main(argv: string[]): Promise<number> {
     const { buildSite } = await import("./buildSite.js");
     return buildSite(parsed.values.scenarios ?? "scenarios", parsed.values.out ?? "_site", parsed.values.quiet ?? false, parsed.values.archive, { images: !parsed.values["skip-images"] });
   }
-  const known: Record<string, string[]> = { check: ["quiet"], compute: ["out", "json", "quiet"], freeze: ["archive", "message"], verify: ["archive", "strict", "json", "quiet"], export: ["version", "format", "out", "archive"] };
+  const known: Record<string, string[]> = { check: ["quiet"], compute: ["out", "json", "quiet"], freeze: ["archive", "message"], verify: ["archive", "strict", "json", "quiet", "verbose"], export: ["version", "format", "out", "archive"] };
   const stray = Object.keys(parsed.values).filter((k) => k !== "help" && !known[command].includes(k));
   if (stray.length > 0) {
     process.stderr.write(`cosmoledger ${command}: option --${stray[0]} does not apply to this command\n\n${HELP[command]}\n`);

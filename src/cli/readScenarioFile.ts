@@ -1,5 +1,5 @@
 import { readFileSync } from "node:fs";
-import { displayPath } from "./displayPath.js";
+import { displayPath } from "../common/displayPath.js";
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError, formatIssue } from "../scenario/scenarioIssue.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";

@@ -1,6 +1,6 @@
 import { readFileSync } from "node:fs";
 import { join, sep } from "node:path";
-import { displayPath } from "./displayPath.js";
+import { displayPath } from "../common/displayPath.js";
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError, formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";

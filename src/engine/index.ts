@@ -26,3 +26,4 @@ export * from "./earlyUniverse.js";
 export * from "./massiveNeutrinoDensity.js";
 export * from "./fermiDiracEnergy.js";
 export * from "./baoRatios.js";
+export * from "./declaredChanges.js";

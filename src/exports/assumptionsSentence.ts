@@ -1,4 +1,4 @@
-import type { ModelTables, TablesDocument } from "../tables/tablesDocument.js";
+import type { StoredModelTables, StoredTablesDocument } from "../contract/tablesDocument.js";
 import { escapeLatex } from "./exportFormats.js";
 import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
 
@@ -28,7 +28,7 @@ const assign = (key: string, x: number): Piece => {
 };
 
 /** The inputs of one model that have the given provenance, in a fixed order. */
-function inputs(m: ModelTables, provenance: "set" | "default" | "inherited"): Piece[] {
+function inputs(m: StoredModelTables, provenance: "set" | "default" | "inherited"): Piece[] {
   const out: Piece[] = [];
   const pv = m.provenance;
   const p = m.parameters;
@@ -63,7 +63,7 @@ const join = (xs: Piece[], sep = ", "): Piece => ({ plain: xs.map((x) => x.plain
  * in LaTeX: every model with the parameters set in it, the defaults that were applied, the methods, the tool and
  * engine versions, and the scenario's version and hash.
  */
-export function assumptionsSentence(doc: TablesDocument, p: ExportProvenance): { plain: string; tex: string } {
+export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenance): { plain: string; tex: string } {
   const labelOf = (id: string) => doc.models.find((m) => m.id === id)?.label ?? id;
   const models = doc.models.map((m) => {
     const set = inputs(m, "set");

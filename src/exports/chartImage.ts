@@ -2,9 +2,9 @@ import { createRequire } from "node:module";
 import { readFileSync } from "node:fs";
 import { createCanvas, GlobalFonts, SvgExportFlag, type SKRSContext2D } from "@napi-rs/canvas";
 import { Chart, registerables, type ChartConfiguration, type Plugin } from "chart.js";
-import type { TablesDocument } from "../tables/tablesDocument.js";
-import { CHART_SERIES, CHARTS } from "../site/quantityCatalog.js";
-import { formatNumber } from "../site/formatNumber.js";
+import type { StoredTablesDocument } from "../contract/tablesDocument.js";
+import { catalogFor } from "../contract/quantityCatalog.js";
+import { formatNumber } from "../contract/formatNumber.js";
 import { unitText } from "./exportFormats.js";
 import { provenanceLine, type ExportProvenance } from "./exportProvenance.js";
 import { withPngText } from "./pngText.js";
@@ -36,17 +36,18 @@ function registerFont(): void {
 export interface ChartSpec { id: string; key: string; title: string; yLabel: string; alt: string; log: boolean; datasets: { label: string; points: { x: number; y: number | null }[] }[] }
 
 /** Every exportable chart of a page: one per chart and series, as the page offers them (log redshift axis, the page's default). */
-export function chartSpecs(doc: TablesDocument): ChartSpec[] {
+export function chartSpecs(doc: StoredTablesDocument): ChartSpec[] {
   const early = doc.models.some((m) => m.parameters.Omega_b !== null);
   const z = doc.models[0].grid.z as number[];
   const specs: ChartSpec[] = [];
+  const { CHARTS, CHART_SERIES } = catalogFor(doc); // only the series this document's format holds
   for (const c of CHARTS) {
     if (c.id === "bao" && !early) continue;
     for (const key of c.keys) {
       const s = CHART_SERIES.find((x) => x.key === key)!;
       const yLabel = s.unit ? `${s.label} [${unitText(s.unit)}]` : s.label;
       const keep = z.map((x) => x > 0);
-      const datasets = doc.models.map((m) => ({ label: m.label, points: z.flatMap((x, i) => (keep[i] ? [{ x, y: m.grid[key][i] }] : [])) }));
+      const datasets = doc.models.map((m) => ({ label: m.label, points: z.flatMap((x, i) => (keep[i] ? [{ x, y: (m.grid as unknown as Record<string, (number | null)[]>)[key][i] }] : [])) }));
       const zs = z.filter((x) => x > 0);
       const last = datasets.map((d) => d.points.at(-1)?.y).filter((y): y is number => typeof y === "number");
       const range = last.length ? `At z = ${formatNumber(zs.at(-1)!)} the values run from ${formatNumber(Math.min(...last))} to ${formatNumber(Math.max(...last))}${s.unit ? ` ${unitText(s.unit)}` : ""}.` : "";

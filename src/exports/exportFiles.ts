@@ -1,4 +1,4 @@
-import type { TablesDocument } from "../tables/tablesDocument.js";
+import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { exportTables, type ExportTable } from "./exportTables.js";
 import { tableCsv, tableHtml, tableJson, tableLatex, tableMarkdown } from "./exportFormats.js";
 import { assumptionsSentence } from "./assumptionsSentence.js";
@@ -34,7 +34,7 @@ export interface ChartRenderers { png: (spec: ChartSpec, p: ExportProvenance) =>
 /** A file's content, or for an image a function that draws it when the file is written (see writeExportFiles). */
 export type ExportContent = string | Buffer | (() => Promise<Buffer>);
 
-export function exportFiles(doc: TablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string, formats: readonly ExportFormat[] = EXPORT_FORMATS, render: ChartRenderers = { png: chartPng, svg: chartSvg }): { files: { name: string; content: ExportContent }[]; index: ExportIndex } {
+export function exportFiles(doc: StoredTablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string, formats: readonly ExportFormat[] = EXPORT_FORMATS, render: ChartRenderers = { png: chartPng, svg: chartSvg }): { files: { name: string; content: ExportContent }[]; index: ExportIndex } {
   const files: { name: string; content: ExportContent }[] = [];
   const provenance = (anchor: string): ExportProvenance => ({ ...base, page: `${pageAddress}#${anchor}` });
   const index: ExportIndex = { tables: [], charts: [], assumptions: { txt: "assumptions.txt", tex: "assumptions.tex", plain: "", latex: "" }, copy: {} };

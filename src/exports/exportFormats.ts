@@ -1,5 +1,5 @@
 import { stringify } from "csv-stringify/sync";
-import type { NumberParts } from "../site/formatNumber.js";
+import type { NumberParts } from "../contract/formatNumber.js";
 import type { ExportCell, ExportTable } from "./exportTables.js";
 import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
 

@@ -1,6 +1,6 @@
-import type { ModelTables, TablesDocument } from "../tables/tablesDocument.js";
-import { EARLY_QUANTITIES, PARAMETERS, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES } from "../site/quantityCatalog.js";
-import { exactParts, numberParts, partsText, type NumberParts } from "../site/formatNumber.js";
+import { quantityValue, type StoredModelTables, type StoredTablesDocument } from "../contract/tablesDocument.js";
+import { catalogFor } from "../contract/quantityCatalog.js";
+import { exactParts, numberParts, partsText, type NumberParts } from "../contract/formatNumber.js";
 
 /** One cell: the raw value (full precision, for CSV and JSON) and what the page prints (number parts or text). */
 export interface ExportCell { kind: "number" | "text"; value: number | string | null; parts: NumberParts | null; text: string }
@@ -31,20 +31,22 @@ const exact = (x: number | null | undefined): ExportCell => {
   return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
 };
 const text = (s: string | null | undefined): ExportCell => ({ kind: "text", value: s ?? null, parts: null, text: s ?? "" });
-const hasEarly = (doc: TablesDocument) => doc.models.some((m) => m.parameters.Omega_b !== null);
+const hasEarly = (doc: StoredTablesDocument) => doc.models.some((m) => m.parameters.Omega_b !== null);
 
 /** Every table of a scenario page in page order: models, at a glance, each redshift table, early universe, targets, surveys. */
-export function exportTables(doc: TablesDocument): ExportTable[] {
+export function exportTables(doc: StoredTablesDocument): ExportTable[] {
+  // Only the quantities this document's format holds: a quantity added by a later format is left out, never blank.
+  const { EARLY_QUANTITIES, PARAMETERS, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES } = catalogFor(doc);
   const models = doc.models;
   const columns = models.map((m) => ({ label: m.label, unit: "" }));
-  const perModel = (label: string, unit: string, f: (m: ModelTables) => ExportCell): ExportRow => ({ label, unit, cells: models.map(f) });
+  const perModel = (label: string, unit: string, f: (m: StoredModelTables) => ExportCell): ExportRow => ({ label, unit, cells: models.map(f) });
   const tables: ExportTable[] = [];
   tables.push({
     id: "models", title: "Models side by side", anchor: "models", spans: null, stub: "Parameter", columns,
     rows: [
       ...PARAMETERS.map((p) => perModel(p.label, p.unit, (m) => {
         const v = (m.parameters as unknown as Record<string, number | null>)[p.key];
-        return (m.provenance[p.key] ?? "derived") === "derived" ? num(v) : exact(v);
+        return ((m.provenance as Record<string, string>)[p.key] ?? "derived") === "derived" ? num(v) : exact(v);
       })),
       perModel("Massive neutrinos", "eV", (m) => text(m.parameters.m_nu_eV.length ? m.parameters.m_nu_eV.join(", ") : "none")),
       perModel("Radiation", "", (m) => text(m.parameters.radiation)),
@@ -57,7 +59,7 @@ export function exportTables(doc: TablesDocument): ExportTable[] {
     rows: [
       perModel("Geometry", "", (m) => text(m.summary.geometry as string)),
       perModel("Fate", "", (m) => text(m.summary.fate === "recollapses" ? "recollapses" : "expands forever")),
-      ...SUMMARY_QUANTITIES.map((q) => perModel(q.label, q.unit, (m) => num(m.summary[q.key] as number | null))),
+      ...SUMMARY_QUANTITIES.map((q) => perModel(q.label, q.unit, (m) => num(quantityValue(m.summary, q.key) as number | null))),
     ],
   });
   for (const g of REDSHIFT_GROUPS) {
@@ -66,12 +68,12 @@ export function exportTables(doc: TablesDocument): ExportTable[] {
     tables.push({
       id: `group-${g.id}`, title: g.title, anchor: `group-${g.id}`, spans: g.quantities.map((q) => ({ label: q.label, unit: q.unit, columns: models.length })), stub: "z",
       columns: g.quantities.flatMap(() => columns),
-      rows: models[0].redshifts.map((r, i) => ({ label: exact(r.z).text, unit: "", cells: g.quantities.flatMap((q) => models.map((m) => num(m.redshifts[i][q.key]))) })),
+      rows: models[0].redshifts.map((r, i) => ({ label: exact(r.z).text, unit: "", cells: g.quantities.flatMap((q) => models.map((m) => num(quantityValue(m.redshifts[i], q.key) as number | null))) })),
     });
     for (const q of g.quantities) {
       tables.push({
         id: `z-${q.key}`, title: `${g.title}: ${q.label}`, anchor: `group-${g.id}`, spans: [{ label: q.label, unit: q.unit, columns: models.length }], stub: "z", columns,
-        rows: models[0].redshifts.map((r, i) => ({ label: exact(r.z).text, unit: "", cells: models.map((m) => num(m.redshifts[i][q.key])) })),
+        rows: models[0].redshifts.map((r, i) => ({ label: exact(r.z).text, unit: "", cells: models.map((m) => num(quantityValue(m.redshifts[i], q.key) as number | null)) })),
       });
     }
   }
@@ -80,7 +82,7 @@ export function exportTables(doc: TablesDocument): ExportTable[] {
       id: "early", title: "Early universe", anchor: "early", spans: null, stub: "Quantity",
       columns: [{ label: "Method", unit: "" }, ...columns],
       rows: [
-        ...EARLY_QUANTITIES.map((q) => ({ label: q.label, unit: q.unit, cells: [text(q.method), ...models.map((m) => num(m.summary[q.key] as number | null))] })),
+        ...EARLY_QUANTITIES.map((q) => ({ label: q.label, unit: q.unit, cells: [text(q.method), ...models.map((m) => num(quantityValue(m.summary, q.key) as number | null))] })),
         { label: "Note", unit: "", cells: [text(""), ...models.map((m) => text(m.summary.early_universe_note as string | null))] },
       ],
     });
@@ -89,7 +91,7 @@ export function exportTables(doc: TablesDocument): ExportTable[] {
     tables.push({
       id: `target-${ti + 1}`, title: `Target: ${t.name} (placed by ${t.placed_by})`, anchor: "targets", spans: null, stub: "Quantity", columns,
       rows: [
-        ...TARGET_QUANTITIES.map((q) => perModel(q.label, q.unit, (m) => num((m.targets[ti] as unknown as Record<string, number | null>)[q.key]))),
+        ...TARGET_QUANTITIES.map((q) => perModel(q.label, q.unit, (m) => num(quantityValue(m.targets[ti], q.key) as number | null))),
         perModel("Note", "", (m) => text(m.targets[ti].note)),
       ],
     });

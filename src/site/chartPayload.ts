@@ -1,12 +1,13 @@
-import type { TablesDocument } from "../tables/tablesDocument.js";
-import { CHART_SERIES } from "./quantityCatalog.js";
+import type { StoredTablesDocument } from "../contract/tablesDocument.js";
+import { catalogFor } from "../contract/quantityCatalog.js";
 
 /** Plot points are drawn, not read: six significant figures are more than a screen resolves. */
 const round = (x: number | null) => (x === null ? null : Number(x.toPrecision(6)));
 
 /** The data the page's charts draw, taken from the grid of the tables document and rounded for size. */
-export function chartPayload(doc: TablesDocument) {
+export function chartPayload(doc: StoredTablesDocument) {
   const z = doc.models[0].grid.z.map(round);
+  const { CHART_SERIES } = catalogFor(doc); // only the series this document's format holds
   return {
     baseline: doc.scenario.baseline,
     z,
@@ -14,7 +15,7 @@ export function chartPayload(doc: TablesDocument) {
     models: doc.models.map((m) => ({
       id: m.id,
       label: m.label,
-      values: Object.fromEntries(CHART_SERIES.map((s) => [s.key, m.grid[s.key].map(round)])),
+      values: Object.fromEntries(CHART_SERIES.map((s) => [s.key, (m.grid as unknown as Record<string, (number | null)[]>)[s.key].map(round)])),
     })),
   };
 }
@@ -26,7 +27,7 @@ export function jsonForScriptElement(value: unknown): string {
 }
 
 /** The small overview chart of each scenario on the index: D_L against z, at most about 60 grid points. */
-export function indexChartPayload(docs: TablesDocument[]) {
+export function indexChartPayload(docs: StoredTablesDocument[]) {
   return docs.map((doc) => {
     const n = doc.models[0].grid.z.length;
     const step = Math.max(1, Math.ceil(n / 60));

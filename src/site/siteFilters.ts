@@ -1,12 +1,15 @@
-import { formatExact, formatNumber, formatPercent } from "./formatNumber.js";
+import { formatExact, formatNumber, formatPercent } from "../contract/formatNumber.js";
 import { renderMarkdown } from "./renderMarkdown.js";
 import { renderMath } from "./renderMath.js";
 import { chartPayload, indexChartPayload, jsonForScriptElement } from "./chartPayload.js";
 
 /** The Nunjucks filters of the site: formatting only. Filters marked html return markup (marked safe by the config). */
 export const TEXT_FILTERS = {
-  /** Six significant figures, or an em dash for null. */
-  num: (x: number | null) => formatNumber(x),
+  /**
+   * Six significant figures, an em dash for null (computed: undefined or infinite), and "not computed" for a key the
+   * document does not have at all (an older format), so that the two can never be confused.
+   */
+  num: (x: number | null | undefined) => (x === undefined ? "not computed" : formatNumber(x)),
   /** An input exactly as given (no rounding, no padding). */
   exact: (x: number | null) => formatExact(x),
   /** A relative difference as a signed percentage. */

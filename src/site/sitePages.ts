@@ -1,18 +1,18 @@
-import { frozenInputs, holdsSameInputs, VERSION_FORMAT, type VersionRecord } from "../archive/versionRecord.js";
+import { holdsSameInputs, VERSION_FORMAT, type StoredVersionRecord, type VersionRecord } from "../contract/versionRecord.js";
 import { versionDiff, type VersionDiff } from "../archive/versionDiff.js";
 import type { ScenarioArchive } from "../archive/readArchive.js";
-import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
-import type { TablesDocument } from "../tables/tablesDocument.js";
+import type { StoredTablesDocument, TablesDocument } from "../contract/tablesDocument.js";
+import { catalogFor, type DocumentCatalog } from "../contract/quantityCatalog.js";
 import { tablesCsv } from "../tables/tablesCsv.js";
 import type { ExportContent, ExportIndex } from "../exports/exportFiles.js";
-import { formatPercent } from "./formatNumber.js";
+import { formatPercent } from "../contract/formatNumber.js";
 import type { ExportProvenance } from "../exports/exportProvenance.js";
 
 /** Makes the exports of one page (the site passes exportFiles with cached chart renderers). */
-export type PageExporter = (doc: TablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string) => { files: { name: string; content: ExportContent }[]; index: ExportIndex };
+export type PageExporter = (doc: StoredTablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string) => { files: { name: string; content: ExportContent }[]; index: ExportIndex };
 
 /** A frozen version as pages show it. */
-export interface VersionInfo { n: number; created: string; message: string; sha256: string; previous_sha256: string | null; engine: string; path: string }
+export interface VersionInfo { n: number; created: string; message: string; sha256: string; previous_sha256: string | null; engine: string; format: string; path: string }
 
 /**
  * What a scenario page shows:
@@ -26,7 +26,11 @@ export type PageStatus = "unarchived" | "latest" | "draft" | "frozen" | "archive
 
 export interface ScenarioPage {
   id: string; path: string; root: string; status: PageStatus;
-  doc: TablesDocument; source: string;
+  doc: StoredTablesDocument; source: string;
+  /** The catalogue filtered to the quantities this page's document holds, and the labels of those it lacks. */
+  catalog: DocumentCatalog;
+  /** The document's contract format (cosmoledger.tables/N). */
+  format: string;
   /** The version this page shows (frozen, latest, archived-only), else null. */
   version: VersionInfo | null;
   latest: VersionInfo | null;
@@ -57,12 +61,15 @@ export interface SitePages {
 /** Above this many versions a scenario gets diff pages for consecutive versions and for each version against the latest only. */
 export const ALL_PAIRS_LIMIT = 30;
 
-const info = (r: VersionRecord): VersionInfo => ({ n: r.version, created: r.created, message: r.message, sha256: r.sha256, previous_sha256: r.previous_sha256, engine: r.engine.version, path: `${r.scenario_id}/v${r.version}/` });
+const info = (r: StoredVersionRecord): VersionInfo => ({ n: r.version, created: r.created, message: r.message, sha256: r.sha256, previous_sha256: r.previous_sha256, engine: r.engine.version, format: r.tables.format, path: `${r.scenario_id}/v${r.version}/` });
 const diffPath = (id: string, a: number | "draft", b: number | "draft") => `${id}/diff/${a === "draft" ? "draft" : `v${a}`}-${b === "draft" ? "draft" : `v${b}`}/`;
 
-/** The draft as an unsealed record, so that it can be compared with versions. */
-function draftRecord(scenario: ResolvedScenario, doc: TablesDocument, n: number): VersionRecord {
-  return { format: VERSION_FORMAT, scenario_id: scenario.id, version: n, created: "", message: "", previous_sha256: null, source: scenario.source, inputs: frozenInputs(scenario), engine: doc.engine, tables: doc, sha256: "" };
+/** The draft as an unsealed record (from its tables document alone, which holds its source and inputs), so that it can be compared with versions. */
+function draftRecord(doc: TablesDocument, n: number): VersionRecord {
+  return {
+    format: VERSION_FORMAT, scenario_id: doc.scenario.id, version: n, created: "", message: "", previous_sha256: null, tool: { name: "cosmoledger", version: "" },
+    source: { path: doc.scenario.source_path, text: doc.scenario.source_text }, inputs: doc.inputs, engine: doc.engine, tables: doc, sha256: "",
+  };
 }
 
 function summarise(d: VersionDiff): string {
@@ -80,7 +87,7 @@ function summarise(d: VersionDiff): string {
   return parts.join("; ");
 }
 
-function downloadsOf(path: string, doc: TablesDocument, record: VersionRecord | null): { path: string; text: string }[] {
+function downloadsOf(path: string, doc: StoredTablesDocument, record: StoredVersionRecord | null): { path: string; text: string }[] {
   const files = [{ path: `${path}tables.json`, text: JSON.stringify(doc) + "\n" }, ...Object.entries(tablesCsv(doc)).map(([name, text]) => ({ path: path + name, text }))];
   if (record) files.push({ path: `${path}version.json`, text: JSON.stringify(record) + "\n" });
   return files;
@@ -91,7 +98,7 @@ function downloadsOf(path: string, doc: TablesDocument, record: VersionRecord | 
  * scenario, one page per frozen version, a history page and diff pages per archived scenario, and the downloads.
  * Frozen versions are shown from their stored tables, never recomputed.
  */
-export function sitePages(files: { scenario: ResolvedScenario; doc: TablesDocument }[], archives: ScenarioArchive[], exporter: PageExporter | null = null, toolVersion = ""): SitePages {
+export function sitePages(docs: TablesDocument[], archives: ScenarioArchive[], exporter: PageExporter | null = null, toolVersion = ""): SitePages {
   const exportFiles: SitePages["exportFiles"] = [];
   const attachExports = (page: ScenarioPage) => {
     if (!exporter) return;
@@ -110,16 +117,16 @@ export function sitePages(files: { scenario: ResolvedScenario; doc: TablesDocume
   const histories: HistoryPage[] = [];
   const diffs: DiffPage[] = [];
   const downloads: { path: string; text: string }[] = [];
-  const ids = [...new Set([...files.map((f) => f.scenario.id), ...archives.filter((a) => a.versions.length > 0).map((a) => a.id)])].sort();
+  const ids = [...new Set([...docs.map((d) => d.scenario.id), ...archives.filter((a) => a.versions.length > 0).map((a) => a.id)])].sort();
   for (const id of ids) {
-    const file = files.find((f) => f.scenario.id === id);
+    const file = docs.find((d) => d.scenario.id === id);
     const versions = archives.find((a) => a.id === id)?.versions ?? [];
     const latest = versions.at(-1) ?? null;
-    const isDraft = !!(file && latest && !holdsSameInputs(latest, file.scenario.source.text, file.doc));
+    const isDraft = !!(file && latest && !holdsSameInputs(latest, file));
     const draftDiffPath = isDraft && latest ? diffPath(id, latest.version, "draft") : null;
     for (const r of versions) {
       const page: ScenarioPage = {
-        id, path: `${id}/v${r.version}/`, root: "../../", status: "frozen", doc: r.tables, source: r.source.text,
+        id, path: `${id}/v${r.version}/`, root: "../../", status: "frozen", doc: r.tables, source: r.source.text, catalog: catalogFor(r.tables), format: r.tables.format,
         version: info(r), latest: info(latest!), versionCount: versions.length, downloads: [], draftDiffPath: null, exports: null,
       };
       attachExports(page);
@@ -129,9 +136,9 @@ export function sitePages(files: { scenario: ResolvedScenario; doc: TablesDocume
       pages.push(page);
     }
     const status: PageStatus = !file ? "archived-only" : !latest ? "unarchived" : isDraft ? "draft" : "latest";
-    const doc = file ? file.doc : latest!.tables;
+    const doc = file ?? latest!.tables;
     const livePage: ScenarioPage = {
-      id, path: `${id}/`, root: "../", status, doc, source: file ? file.scenario.source.text : latest!.source.text,
+      id, path: `${id}/`, root: "../", status, doc, source: file ? file.scenario.source_text : latest!.source.text, catalog: catalogFor(doc), format: doc.format,
       version: status === "latest" || status === "archived-only" ? info(latest!) : null, latest: latest ? info(latest) : null,
       versionCount: versions.length, downloads: [], draftDiffPath, exports: null,
     };
@@ -144,8 +151,8 @@ export function sitePages(files: { scenario: ResolvedScenario; doc: TablesDocume
     if (versions.length === 0) continue;
 
     const title = doc.scenario.title;
-    const points: { label: number | "draft"; record: VersionRecord }[] = versions.map((r) => ({ label: r.version, record: r }));
-    if (isDraft && file) points.push({ label: "draft", record: draftRecord(file.scenario, file.doc, latest!.version + 1) });
+    const points: { label: number | "draft"; record: StoredVersionRecord }[] = versions.map((r) => ({ label: r.version, record: r }));
+    if (isDraft && file) points.push({ label: "draft", record: draftRecord(file, latest!.version + 1) });
     const pairs: HistoryPage["pairs"] = [];
     const all = points.length <= ALL_PAIRS_LIMIT;
     for (let i = 0; i < points.length; i++) for (let j = i + 1; j < points.length; j++) {

@@ -10,7 +10,10 @@ import { targetRows } from "./targetRows.js";
 import { surveyRows } from "./surveyRows.js";
 import { differencesFromBaseline } from "./differences.js";
 import { cautions } from "./cautions.js";
-import { TABLES_FORMAT, type ModelTables, type Num, type RedshiftGrid, type RedshiftRow, type TablesDocument } from "./tablesDocument.js";
+import type { ModelTables, Num, RedshiftGrid, RedshiftRow, TablesDocument } from "../contract/tablesDocument.js";
+import { TABLES_FORMAT } from "../contract/formats.js";
+import { inputsSha256 } from "../contract/inputsHash.js";
+import { frozenInputs } from "../contract/versionRecord.js";
 
 const sha256 = (text: string) => createHash("sha256").update(text, "utf8").digest("hex");
 
@@ -22,25 +25,25 @@ function rows(columns: Columns): RedshiftRow[] {
   const n = columns.z.length;
   const out: RedshiftRow[] = new Array(n);
   for (let i = 0; i < n; i++) {
-    const row: RedshiftRow = {};
+    const row = {} as Record<(typeof ROW_KEYS)[number], Num>;
     for (const key of ROW_KEYS) {
       const v = columns[key][i];
       row[key] = Number.isFinite(v) ? v : null;
     }
-    out[i] = row;
+    out[i] = row satisfies RedshiftRow;
   }
   return out;
 }
 
 function gridColumns(columns: Columns): RedshiftGrid {
-  const out: RedshiftGrid = {};
+  const out = {} as Record<(typeof ROW_KEYS)[number], Num[]>;
   for (const key of ROW_KEYS) {
     const column = columns[key];
     const values = new Array<Num>(column.length);
     for (let i = 0; i < column.length; i++) values[i] = Number.isFinite(column[i]) ? column[i] : null;
     out[key] = values;
   }
-  return out;
+  return out satisfies RedshiftGrid;
 }
 
 function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[]): ModelTables {
@@ -76,7 +79,7 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
       Omega_cb: bg.Omega_cb, Omega_nu_massive: bg.Omega_nu_massive, T_nu: bg.T_nu_K, m_nu_eV: m.inputs.m_nu_eV,
     },
     provenance,
-    summary: { ...(summary as unknown as Record<string, Num | string>), ...early.values, early_universe_note: early.note } as Record<string, Num | string>,
+    summary: { ...summary, ...early.values, early_universe_note: early.note },
     redshifts: rows(withBao(redshiftTable(bg, scenario.redshifts))),
     grid: gridColumns(withBao(redshiftTable(bg, grid))),
     targets: targetRows(bg, scenario.targets),
@@ -84,17 +87,10 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
   };
 }
 
-/** The canonical text of a scenario's resolved inputs and the engine version: the basis of its version hash. */
-export function canonicalInputs(s: ResolvedScenario): string {
-  return JSON.stringify({
-    engine: ENGINE_VERSION, id: s.id, baseline: s.baseline, redshifts: s.redshifts, grid: s.grid,
-    models: s.models.map((m) => ({ id: m.id, extends: m.extends, inputs: m.inputs })), targets: s.targets, surveys: s.surveys,
-  });
-}
-
 /** Resolved scenario -> tables document (pure apart from hashing; deterministic: the same input gives the same bytes). */
 export function buildTablesDocument(s: ResolvedScenario): TablesDocument {
   const grid = gridRedshifts(s.grid);
+  const inputs = frozenInputs(s);
   const models = s.models.map((m) => modelTables(m, s, grid));
   const baseline = models.find((m) => m.id === s.baseline)!;
   const differences: TablesDocument["differences"] = {};
@@ -105,9 +101,10 @@ export function buildTablesDocument(s: ResolvedScenario): TablesDocument {
     format: TABLES_FORMAT,
     scenario: {
       id: s.id, title: s.title, description: s.description, author: s.author, tags: s.tags, baseline: s.baseline,
-      source_path: s.source.path, source_sha256: sha256(s.source.text), inputs_sha256: sha256(canonicalInputs(s)),
-      defaults_applied: s.defaults_applied, redshifts: s.redshifts, grid: s.grid,
+      source_path: s.source.path, source_sha256: sha256(s.source.text), inputs_sha256: inputsSha256(ENGINE_VERSION, inputs),
+      defaults_applied: s.defaults_applied, redshifts: s.redshifts, grid: s.grid, source_text: s.source.text,
     },
+    inputs,
     engine: {
       version: ENGINE_VERSION, tolerance: ENGINE_TOLERANCE, constants,
       defaults: { w0: DEFAULT_W0, wa: DEFAULT_WA, T_cmb: DEFAULT_T_CMB_K, N_eff: DEFAULT_N_EFF, radiation: "thermal", curvature: "flat", flatness_threshold: FLATNESS_THRESHOLD },

@@ -1,4 +1,4 @@
-import type { Difference, ModelDifferences, ModelTables, Num, RedshiftRow } from "./tablesDocument.js";
+import type { Difference, ModelDifferences, ModelTables, Num, RedshiftRow } from "../contract/tablesDocument.js";
 
 function relative(x: Num | string, base: Num | string): Num {
   if (typeof x !== "number" || typeof base !== "number" || base === 0) return null;
@@ -9,10 +9,12 @@ function rowDifferences(rows: RedshiftRow[], baseRows: RedshiftRow[]): Record<st
   return rows.map((row, i) => {
     const base = baseRows[i];
     const out: Record<string, Num> = { z: row.z };
-    for (const key of Object.keys(row)) {
+    const r = row as unknown as Record<string, Num>;
+    const rb = base as unknown as Record<string, Num>;
+    for (const key of Object.keys(r)) {
       if (key === "z") continue;
-      const x = row[key];
-      const b = base[key];
+      const x = r[key];
+      const b = rb[key];
       out[key] = relative(x, b);
     }
     return out;
@@ -23,7 +25,7 @@ function rowDifferences(rows: RedshiftRow[], baseRows: RedshiftRow[]): Record<st
 export function differencesFromBaseline(model: ModelTables, baseline: ModelTables): ModelDifferences {
   const summary: Record<string, Difference> = {};
   for (const [key, value] of Object.entries(model.summary)) {
-    const b = baseline.summary[key];
+    const b = (baseline.summary as Record<string, Num | string>)[key];
     if (typeof value === "string" || typeof b === "string" || (value === null && b === null && key.endsWith("_note"))) continue;
     summary[key] = { absolute: value !== null && b !== null ? value - b : null, relative: relative(value, b) };
   }

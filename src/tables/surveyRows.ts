@@ -1,6 +1,6 @@
 import { shellVolumeMpc3, type BackgroundModel } from "../engine/index.js";
 import type { ResolvedSurvey } from "../scenario/resolvedScenario.js";
-import type { SurveyRow } from "./tablesDocument.js";
+import type { SurveyRow } from "../contract/tablesDocument.js";
 
 /** Comoving volume of each survey shell and the expected count density x volume (Hogg 1999, eq. 29). */
 export function surveyRows(model: BackgroundModel, surveys: readonly ResolvedSurvey[]): SurveyRow[] {

@@ -1,20 +1,25 @@
 import { stringify } from "csv-stringify/sync";
-import { ROW_KEYS } from "./buildTablesDocument.js";
-import type { TablesDocument } from "./tablesDocument.js";
+import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 
 const cell = (v: unknown): string => (v === null || v === undefined ? "" : String(v));
 
-/** One RFC 4180 CSV per table shown on the page (the chart grid stays in tables.json) of the document (csv-stringify), keyed by file name. Numbers at full precision; empty cell = null. */
-export function tablesCsv(doc: TablesDocument): Record<string, string> {
+/**
+ * One RFC 4180 CSV per table shown on the page (the chart grid stays in tables.json) of the document (csv-stringify),
+ * keyed by file name. Numbers at full precision; empty cell = null. Columns are the keys the document itself holds,
+ * so a document of an older format gets exactly its own columns (a quantity it lacks is left out, never blank).
+ */
+export function tablesCsv(doc: StoredTablesDocument): Record<string, string> {
   const ids = doc.models.map((m) => m.id);
   const table = (header: string[], body: unknown[][]) => stringify([header, ...body.map((r) => r.map(cell))], { record_delimiter: "\r\n" });
   const cellOf = (v: unknown) => (Array.isArray(v) ? v.join(" ") : v);
-  const paramKeys = Object.keys(doc.models[0].parameters) as (keyof TablesDocument["models"][0]["parameters"])[];
+  const rec = (x: object) => x as Record<string, unknown>;
+  const paramKeys = Object.keys(doc.models[0].parameters);
   const summaryKeys = Object.keys(doc.models[0].summary);
+  const rowKeys = Object.keys(doc.models[0].redshifts[0] ?? { z: null });
   const files: Record<string, string> = {
-    "parameters.csv": table(["parameter", ...ids], paramKeys.map((k) => [k, ...doc.models.map((m) => cellOf(m.parameters[k]))])),
-    "summary.csv": table(["quantity", ...ids], summaryKeys.map((k) => [k, ...doc.models.map((m) => m.summary[k])])),
-    "redshifts.csv": table(["model", ...ROW_KEYS], doc.models.flatMap((m) => m.redshifts.map((r) => [m.id, ...ROW_KEYS.map((k) => r[k])]))),
+    "parameters.csv": table(["parameter", ...ids], paramKeys.map((k) => [k, ...doc.models.map((m) => cellOf(rec(m.parameters)[k]))])),
+    "summary.csv": table(["quantity", ...ids], summaryKeys.map((k) => [k, ...doc.models.map((m) => rec(m.summary)[k])])),
+    "redshifts.csv": table(["model", ...rowKeys], doc.models.flatMap((m) => m.redshifts.map((r) => [m.id, ...rowKeys.map((k) => rec(r)[k])]))),
     "differences.csv": table(["model", "quantity", "absolute", "relative"], Object.entries(doc.differences).flatMap(([id, d]) =>
       Object.entries(d.summary).map(([k, v]) => [id, k, v.absolute, v.relative]))),
   };

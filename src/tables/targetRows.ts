@@ -3,7 +3,7 @@ import {
   type BackgroundModel,
 } from "../engine/index.js";
 import type { ResolvedTarget } from "../scenario/resolvedScenario.js";
-import type { Num, TargetRow } from "./tablesDocument.js";
+import type { Num, TargetRow } from "../contract/tablesDocument.js";
 
 const num = (x: number): Num => (Number.isFinite(x) ? x : null);
 

@@ -2,11 +2,11 @@
 // (each record commits to its predecessor's hash; common practice for tamper-evident logs).
 import { describe, expect, it } from "vitest";
 import { checkVersionChain } from "../../src/archive/checkVersionChain.js";
-import { sealVersion, versionHash, type VersionRecord } from "../../src/archive/versionRecord.js";
+import { sealVersion, versionHash, type VersionRecord } from "../../src/contract/versionRecord.js";
 import { relativeChange, tablesDrift } from "../../src/archive/tablesDrift.js";
 import { loadScenario } from "../../src/scenario/loadScenario.js";
 import { buildTablesDocument } from "../../src/tables/buildTablesDocument.js";
-import { frozenInputs } from "../../src/archive/versionRecord.js";
+import { frozenInputs } from "../../src/contract/versionRecord.js";
 
 const text = (h0: number) => `id: chain\ntitle: Chain test\nredshifts: [1]\ngrid: { z_max: 2, points: 5 }\nmodels:\n  - { id: a, H0: ${h0}, Omega_m: 0.3, flat: true }\n`;
 function chain(n: number): VersionRecord[] {
@@ -16,7 +16,7 @@ function chain(n: number): VersionRecord[] {
     out.push(sealVersion({
       scenario_id: "chain", version: v, created: `2026-01-0${v}T00:00:00.000Z`, message: `v${v}`, previous_sha256: out.at(-1)?.sha256 ?? null,
       source: s.source, inputs: frozenInputs(s), tables: buildTablesDocument(s),
-    }));
+    }, "0.0.0-test"));
   }
   return out;
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatExact, formatNumber, formatPercent } from "../../src/site/formatNumber.js";
+import { formatExact, formatNumber, formatPercent } from "../../src/contract/formatNumber.js";
 
 // Rounding to significant figures as defined by ECMAScript Number.prototype.toPrecision (ECMA-262).
 describe("number formatting on the pages", () => {

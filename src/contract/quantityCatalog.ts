@@ -1,7 +1,12 @@
-/** How each quantity of the tables document is named and grouped on the pages (display only; no physics). */
-export interface QuantityInfo { key: string; label: string; unit: string }
+import type { ModelParameters, RowKey, SummaryKey, SurveyKey, TargetKey } from "./tablesDocument.js";
 
-export const REDSHIFT_GROUPS: { title: string; id: string; quantities: QuantityInfo[] }[] = [
+/**
+ * How each quantity of the tables document is named, grouped and united on pages, exports and diffs (display only;
+ * no physics). Keys are typed by the contract generated from the newest schema, so a misspelled key fails the type check.
+ */
+export interface QuantityInfo<K extends string = string> { key: K; label: string; unit: string }
+
+export const REDSHIFT_GROUPS: { title: string; id: string; quantities: QuantityInfo<RowKey>[] }[] = [
   {
     title: "Distances", id: "distances", quantities: [
       { key: "comoving_distance_Mpc", label: "Comoving distance D_C", unit: "Mpc" },
@@ -45,7 +50,7 @@ export const REDSHIFT_GROUPS: { title: string; id: string; quantities: QuantityI
   },
 ];
 
-export const SUMMARY_QUANTITIES: QuantityInfo[] = [
+export const SUMMARY_QUANTITIES: QuantityInfo<SummaryKey>[] = [
   { key: "age_Gyr", label: "Age today", unit: "Gyr" },
   { key: "hubble_time_Gyr", label: "Hubble time 1/H0", unit: "Gyr" },
   { key: "hubble_distance_Mpc", label: "Hubble distance c/H0", unit: "Mpc" },
@@ -60,7 +65,7 @@ export const SUMMARY_QUANTITIES: QuantityInfo[] = [
   { key: "crunch_time_Gyr", label: "Big crunch at", unit: "Gyr" },
 ];
 
-export const PARAMETERS: QuantityInfo[] = [
+export const PARAMETERS: QuantityInfo<keyof ModelParameters>[] = [
   { key: "H0", label: "H0", unit: "km/s/Mpc" },
   { key: "Omega_m", label: "Omega_m", unit: "" },
   { key: "Omega_de", label: "Omega_de", unit: "" },
@@ -80,7 +85,7 @@ export const PARAMETERS: QuantityInfo[] = [
 ];
 
 /** Early-universe quantities; the source of each fitting formula is named on the page. */
-export const EARLY_QUANTITIES: (QuantityInfo & { method: string })[] = [
+export const EARLY_QUANTITIES: (QuantityInfo<SummaryKey> & { method: string })[] = [
   { key: "z_recombination", label: "Decoupling redshift z*", unit: "", method: "fitting formula, Hu & Sugiyama 1996" },
   { key: "z_drag", label: "Drag-epoch redshift z_drag", unit: "", method: "fitting formula, Eisenstein & Hu 1998 (approximate, a few % low)" },
   { key: "sound_horizon_recombination_Mpc", label: "Sound horizon at z*, r*", unit: "Mpc", method: "integral of c_s/H" },
@@ -92,7 +97,7 @@ export const EARLY_QUANTITIES: (QuantityInfo & { method: string })[] = [
   { key: "k_eq_1_Mpc", label: "k_eq = a_eq H(a_eq)/c", unit: "1/Mpc", method: "from z_eq" },
 ];
 
-export const TARGET_QUANTITIES: QuantityInfo[] = [
+export const TARGET_QUANTITIES: QuantityInfo<TargetKey>[] = [
   { key: "z", label: "Redshift", unit: "" },
   { key: "lookback_time_Gyr", label: "Lookback time", unit: "Gyr" },
   { key: "angular_diameter_distance_Mpc", label: "D_A", unit: "Mpc" },
@@ -104,7 +109,7 @@ export const TARGET_QUANTITIES: QuantityInfo[] = [
 ];
 
 /** Series offered by the charts: key in the grid, label and unit. */
-export const CHART_SERIES: QuantityInfo[] = [
+export const CHART_SERIES: QuantityInfo<RowKey>[] = [
   { key: "comoving_distance_Mpc", label: "D_C", unit: "Mpc" },
   { key: "transverse_comoving_distance_Mpc", label: "D_M", unit: "Mpc" },
   { key: "angular_diameter_distance_Mpc", label: "D_A", unit: "Mpc" },
@@ -120,7 +125,7 @@ export const CHART_SERIES: QuantityInfo[] = [
 ];
 
 /** The charts of a scenario page; each offers the listed grid series (the first is shown by default). "bao" needs a baryon density. */
-export const CHARTS: { id: string; title: string; keys: string[] }[] = [
+export const CHARTS: { id: string; title: string; keys: RowKey[] }[] = [
   { id: "distances", title: "Distances", keys: ["comoving_distance_Mpc", "transverse_comoving_distance_Mpc", "angular_diameter_distance_Mpc", "luminosity_distance_Mpc"] },
   { id: "expansion", title: "Expansion rate H(z)/(1+z)", keys: ["H_over_1pz_km_s_Mpc"] },
   { id: "times", title: "Age and lookback time", keys: ["age_Gyr", "lookback_time_Gyr"] },
@@ -128,3 +133,36 @@ export const CHARTS: { id: string; title: string; keys: string[] }[] = [
   { id: "volume", title: "Comoving volume inside z", keys: ["comoving_volume_Gpc3"] },
   { id: "bao", title: "BAO distance ratios", keys: ["D_V_over_r_drag", "D_M_over_r_drag", "D_H_over_r_drag"] },
 ];
+
+/** The catalogue as one document can show it: only the quantities its format holds, and those it lacks. */
+export interface DocumentCatalog {
+  REDSHIFT_GROUPS: typeof REDSHIFT_GROUPS; SUMMARY_QUANTITIES: typeof SUMMARY_QUANTITIES; PARAMETERS: typeof PARAMETERS;
+  EARLY_QUANTITIES: typeof EARLY_QUANTITIES; TARGET_QUANTITIES: typeof TARGET_QUANTITIES; CHART_SERIES: typeof CHART_SERIES; CHARTS: typeof CHARTS;
+  /** Catalogue quantities that the document's format does not have ("not computed in this version"), by label. */
+  notComputed: string[];
+}
+
+/**
+ * Filters the catalogue to the quantities a stored document holds (read from its first model), so that pages and
+ * exports of an older format leave out a quantity added later instead of showing a blank that looks like a null.
+ */
+export function catalogFor(doc: { models: readonly { summary: object; redshifts: readonly object[]; grid: object; targets: readonly object[]; parameters: object }[] }): DocumentCatalog {
+  const m = doc.models[0];
+  const rowKeys = new Set(Object.keys(m.grid));
+  const has = (o: object | undefined, keys: Set<string> | null, k: string) => (keys ? keys.has(k) : o !== undefined && k in o);
+  const notComputed: string[] = [];
+  const keep = <Q extends QuantityInfo>(list: Q[], present: (k: string) => boolean): Q[] =>
+    list.filter((q) => present(q.key) || (notComputed.includes(q.label) || notComputed.push(q.label), false));
+  const row = (k: string) => has(undefined, rowKeys, k);
+  const groups = REDSHIFT_GROUPS.map((g) => ({ ...g, quantities: keep(g.quantities, row) })).filter((g) => g.quantities.length > 0);
+  return {
+    REDSHIFT_GROUPS: groups,
+    SUMMARY_QUANTITIES: keep(SUMMARY_QUANTITIES, (k) => k in m.summary),
+    PARAMETERS: keep(PARAMETERS, (k) => k in m.parameters),
+    EARLY_QUANTITIES: keep(EARLY_QUANTITIES, (k) => k in m.summary),
+    TARGET_QUANTITIES: m.targets.length ? keep(TARGET_QUANTITIES, (k) => k in m.targets[0]) : TARGET_QUANTITIES,
+    CHART_SERIES: keep(CHART_SERIES, row),
+    CHARTS: CHARTS.map((c) => ({ ...c, keys: c.keys.filter(row) })).filter((c) => c.keys.length > 0),
+    notComputed,
+  };
+}

@@ -3,10 +3,10 @@ import { createRequire } from "node:module";
 import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { Chart } from "chart.js";
-import { chartPng, chartSvg, type ChartSpec } from "../exports/chartImage.js";
-import type { ChartRenderers } from "../exports/exportFiles.js";
-import type { ExportProvenance } from "../exports/exportProvenance.js";
-import { PACKAGE_ROOT } from "../cli/toolVersion.js";
+import { chartPng, chartSvg, type ChartSpec } from "./chartImage.js";
+import type { ChartRenderers } from "./exportFiles.js";
+import type { ExportProvenance } from "./exportProvenance.js";
+import { PACKAGE_ROOT } from "../common/toolVersion.js";
 
 /** Bump when the drawing code changes, so that cached images are redrawn. */
 const RENDER_REVISION = 4;

@@ -1,0 +1,57 @@
+import { readFileSync, readdirSync } from "node:fs";
+import { join } from "node:path";
+import { displayPath } from "../common/displayPath.js";
+import { loadScenario } from "../scenario/loadScenario.js";
+import { ScenarioInputError, type ScenarioIssue } from "../scenario/scenarioIssue.js";
+import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
+import { buildTablesDocument } from "../tables/buildTablesDocument.js";
+import type { TablesDocument } from "../contract/tablesDocument.js";
+import { readArchive } from "../archive/readArchive.js";
+import { sitePages, type PageExporter } from "../site/sitePages.js";
+import type { SiteLedger } from "../site/siteLedger.js";
+import { EXPORT_FORMATS, exportFiles } from "../exports/exportFiles.js";
+import { cachedRenderers } from "../exports/imageCache.js";
+import { TOOL_VERSION } from "../common/toolVersion.js";
+
+/** Scenario files in a folder: *.yaml and *.yml, sorted so builds are deterministic. */
+export function scenarioFiles(dir: string): string[] {
+  return readdirSync(dir).filter((f) => /\.ya?ml$/i.test(f)).sort().map((f) => join(dir, f));
+}
+
+/** The archive that belongs to a scenarios folder when none is named: a folder "archive" inside it. */
+export const defaultArchive = (scenariosDir: string) => join(scenariosDir, "archive");
+
+/**
+ * Reads, validates and computes every scenario of a folder and reads the archive (checking every hash and the
+ * chains); either a ledger or the issues that stop the build.
+ */
+export function readLedger(dir: string, archiveDir: string = defaultArchive(dir), options: { exports?: boolean; images?: boolean } = {}): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
+  const issues: ScenarioIssue[] = [];
+  const files: { scenario: ResolvedScenario; doc: TablesDocument }[] = [];
+  const seen = new Map<string, string>();
+  for (const file of scenarioFiles(dir)) {
+    const shown = displayPath(file);
+    const text = readFileSync(file, "utf8");
+    try {
+      const scenario = loadScenario(text, shown);
+      if (seen.has(scenario.id)) {
+        issues.push({ file: shown, line: 1, column: 1, path: "id", message: `scenario id ${scenario.id} is also used by ${seen.get(scenario.id)}` });
+        continue;
+      }
+      seen.set(scenario.id, shown);
+      files.push({ scenario, doc: buildTablesDocument(scenario) });
+    } catch (e) {
+      if (e instanceof ScenarioInputError) issues.push(...e.issues);
+      else throw e;
+    }
+  }
+  const archive = readArchive(archiveDir);
+  for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
+  if (issues.length > 0) return { ledger: null, issues };
+  const renderers = cachedRenderers();
+  const formats = options.images === false ? EXPORT_FORMATS.filter((f) => f !== "png" && f !== "svg") : EXPORT_FORMATS;
+  const exporter: PageExporter = (doc, base, page) => exportFiles(doc, base, page, formats, renderers);
+  const pages = sitePages(files.map((f) => f.doc), archive.archives, options.exports === false ? null : exporter, TOOL_VERSION);
+  return { ledger: { ...pages, docs: pages.live.map((p) => p.doc), archive: displayPath(archiveDir) }, issues: [] };
+}
+

@@ -1,0 +1,65 @@
+import { ENGINE_VERSION } from "./engineVersion.js";
+
+/** The model parameters a declared change may look at to say whether it applies (as a tables document stores them). */
+export interface ChangedModelParameters {
+  m_nu_eV: number[]; Omega_b: number | null; Omega_k: number; w0: number; wa: number; radiation: string; N_eff: number | null;
+}
+
+/**
+ * A change of computed numbers that an engine release makes on purpose (a convention of the trade, a more accurate
+ * method). `verify` reports archived drift that such a change covers as explained, naming it; `--strict` fails only on
+ * drift that no declared change explains.
+ */
+export interface DeclaredChange {
+  /** Short name of our own, shown by verify and on diff pages. */
+  id: string;
+  /** The first engine version that computes the new numbers. */
+  engine_version: string;
+  /** Quantity key paths within a model that it may change; `*` stands for any run of characters within one key. */
+  quantities: readonly string[];
+  /** Which models it changes, in words (shown), and as a test on a model's stored parameters. */
+  models: string;
+  applies: (parameters: ChangedModelParameters) => boolean;
+  /** Why, with the source of the new method or convention. */
+  why: string;
+}
+
+/**
+ * The engine's change log: every release that changes an archived number on purpose adds an entry here, with its
+ * new ENGINE_VERSION. Entries are never edited or removed once released. None so far: engine 1.0.0 is the first.
+ */
+export const DECLARED_CHANGES: readonly DeclaredChange[] = [];
+
+/** Compares two dotted version numbers ("1.10.0" > "1.9.2"); negative, zero or positive. */
+export function compareEngineVersions(a: string, b: string): number {
+  const x = a.split(".").map(Number);
+  const y = b.split(".").map(Number);
+  for (let i = 0; i < Math.max(x.length, y.length); i++) {
+    const d = (x[i] ?? 0) - (y[i] ?? 0);
+    if (d !== 0) return d;
+  }
+  return 0;
+}
+
+const patternCache = new Map<string, RegExp>();
+const patternOf = (p: string) => {
+  let r = patternCache.get(p);
+  if (!r) patternCache.set(p, (r = new RegExp(`^${p.replace(/[.+?^${}()|[\]\\]/g, "\\$&").replace(/\*/g, "[^.]*")}$`)));
+  return r;
+};
+
+/**
+ * The declared change that explains a drift of `quantity` (a key path within a model, array marks `[]` allowed) in a
+ * model of a version computed by `frozenEngine`, under the engine `currentEngine`; null when none does.
+ */
+export function explainingChange(
+  quantity: string, parameters: ChangedModelParameters, frozenEngine: string,
+  changes: readonly DeclaredChange[] = DECLARED_CHANGES, currentEngine: string = ENGINE_VERSION,
+): DeclaredChange | null {
+  const path = quantity.replace(/\[\]$/, "");
+  for (const c of changes) {
+    if (compareEngineVersions(frozenEngine, c.engine_version) >= 0 || compareEngineVersions(c.engine_version, currentEngine) > 0) continue;
+    if (c.quantities.some((q) => patternOf(q).test(path)) && c.applies(parameters)) return c;
+  }
+  return null;
+}
