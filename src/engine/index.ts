@@ -27,3 +27,4 @@ export * from "./massiveNeutrinoDensity.js";
 export * from "./fermiDiracEnergy.js";
 export * from "./baoRatios.js";
 export * from "./declaredChanges.js";
+export * from "./targetObservables.js";

@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import {
   CONSTANTS, DEFAULT_N_EFF, DEFAULT_T_CMB_K, ENGINE_TOLERANCE, ENGINE_VERSION, FLATNESS_THRESHOLD, REDSHIFT_COLUMN_KEYS,
-  BAO_KEYS, backgroundSummary, baoRatios, earlyUniverse, redshiftAtComovingDistance, redshiftTable, type BaoColumns, type RedshiftColumns,
+  BAO_KEYS, backgroundSummary, physicalBaryonDensity, baoRatios, earlyUniverse, redshiftAtComovingDistance, redshiftTable, type BaoColumns, type RedshiftColumns,
 } from "../engine/index.js";
 import type { ResolvedModel, ResolvedScenario } from "../scenario/resolvedScenario.js";
 import { DEFAULT_W0, DEFAULT_WA } from "../scenario/resolveScenario.js";
@@ -75,7 +75,7 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
       H0: bg.H0_km_s_Mpc, Omega_m: bg.Omega_m, Omega_de: bg.Omega_de, Omega_k: bg.Omega_k, Omega_r: bg.Omega_r,
       Omega_gamma: bg.Omega_gamma, Omega_nu: bg.Omega_nu, w0: bg.w0, wa: bg.wa, T_cmb: m.inputs.T_cmb, N_eff: m.inputs.N_eff,
       radiation: m.inputs.radiation, curvature_from: m.inputs.curvature_key,
-      Omega_b: bg.Omega_b, omega_b: bg.Omega_b === null ? null : bg.Omega_b * (bg.H0_km_s_Mpc / 100) ** 2,
+      Omega_b: bg.Omega_b, omega_b: bg.Omega_b === null ? null : physicalBaryonDensity(bg.Omega_b, bg.H0_km_s_Mpc),
       Omega_cb: bg.Omega_cb, Omega_nu_massive: bg.Omega_nu_massive, T_nu: bg.T_nu_K, m_nu_eV: m.inputs.m_nu_eV,
     },
     provenance,

@@ -1,5 +1,5 @@
 import {
-  MPC_CM, NoSuchRedshiftError, redshiftAtAge, redshiftAtComovingDistance, redshiftAtLookbackTime, redshiftTable,
+  NoSuchRedshiftError, angularSizeArcsec, apparentMagnitude, bolometricFluxErgSCm2, redshiftAtAge, redshiftAtComovingDistance, redshiftAtLookbackTime, redshiftTable,
   type BackgroundModel,
 } from "../engine/index.js";
 import type { ResolvedTarget } from "../scenario/resolvedScenario.js";
@@ -9,8 +9,7 @@ const num = (x: number): Num => (Number.isFinite(x) ? x : null);
 
 /**
  * Each target under one model: its redshift (given, or solved from lookback time, age or comoving distance),
- * then angular size theta = size / D_A, apparent magnitude m = M + mu (no K-correction) and bolometric flux
- * F = L / (4 pi D_L^2) (Hogg 1999 eqs. 18, 24, 21).
+ * then its angular size, apparent magnitude (no K-correction) and bolometric flux, all from the engine.
  */
 export function targetRows(model: BackgroundModel, targets: readonly ResolvedTarget[]): TargetRow[] {
   return targets.map((t) => {
@@ -45,9 +44,9 @@ export function targetRows(model: BackgroundModel, targets: readonly ResolvedTar
       luminosity_distance_Mpc: DL,
       distance_modulus_mag: num(mu),
       kpc_per_arcsec_proper: kpc,
-      angular_size_arcsec: t.size_kpc !== null && kpc !== 0 ? t.size_kpc / Math.abs(kpc) : null,
-      apparent_magnitude: t.absolute_magnitude !== null && Number.isFinite(mu) ? t.absolute_magnitude + mu : null,
-      bolometric_flux_erg_s_cm2: t.luminosity_erg_s !== null && DL !== 0 ? t.luminosity_erg_s / (4 * Math.PI * (DL * MPC_CM) ** 2) : null,
+      angular_size_arcsec: t.size_kpc !== null ? angularSizeArcsec(t.size_kpc, kpc) : null,
+      apparent_magnitude: t.absolute_magnitude !== null ? apparentMagnitude(t.absolute_magnitude, mu) : null,
+      bolometric_flux_erg_s_cm2: t.luminosity_erg_s !== null ? bolometricFluxErgSCm2(t.luminosity_erg_s, DL) : null,
       note: t.absolute_magnitude !== null ? "apparent magnitude without K-correction" : null,
     };
   });
