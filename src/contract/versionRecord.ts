@@ -29,16 +29,16 @@ export interface VersionRecordFormat1 extends VersionEnvelope {
   tables: TablesDocumentFormat1;
 }
 
-/** Format 2: names the release that froze it, and embeds a tables document of format 2 or later. */
-export interface VersionRecordFormat2 extends VersionEnvelope {
+/** Format 2: names the release that froze it, and embeds a tables document of format 2 or later (`T`). */
+export interface VersionRecordFormat2<T extends Exclude<StoredTablesDocument, TablesDocumentFormat1> = Exclude<StoredTablesDocument, TablesDocumentFormat1>> extends VersionEnvelope {
   format: "cosmoledger.version/2";
   tool: { name: "cosmoledger"; version: string };
-  engine: TablesDocument["engine"];
-  tables: TablesDocument;
+  engine: T["engine"];
+  tables: T;
 }
 
-/** The record this release writes. */
-export type VersionRecord = VersionRecordFormat2;
+/** The record this release writes: the current version format with the current tables format. */
+export type VersionRecord = VersionRecordFormat2<TablesDocument>;
 /** Any record this release reads. */
 export type StoredVersionRecord = VersionRecordFormat1 | VersionRecordFormat2;
 
