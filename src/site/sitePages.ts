@@ -81,6 +81,7 @@ function summarise(d: VersionDiff): string {
   if (d.modelsAdded.length) parts.push(`added ${d.modelsAdded.join(", ")}`);
   if (d.modelsRemoved.length) parts.push(`removed ${d.modelsRemoved.join(", ")}`);
   if (d.engine.changed) parts.push(`engine ${d.engine.before} \u2192 ${d.engine.after}`);
+  if (d.format.changed) parts.push(`data format ${d.format.before.replace("cosmoledger.", "")} \u2192 ${d.format.after.replace("cosmoledger.", "")}${d.format.quantitiesAdded.length ? ` (${d.format.quantitiesAdded.length} quantities added)` : ""}`);
   if (parts.length === 0) parts.push(d.source.length ? "source text only (comments or layout)" : "no change");
   const l = d.largest;
   if (l && l.relative !== null && l.relative > 0) parts.push(`largest output change ${formatPercent(l.relative).replace(/^\+/, "")} (${l.label}, ${l.model}, ${l.where})`);
