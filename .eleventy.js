@@ -49,7 +49,12 @@ export default function (eleventyConfig) {
 
   return {
     // cosmoledger build renders into a temporary folder that it then swaps in (COSMOLEDGER_SITE_OUT).
-    dir: { input: "content", includes: "_includes", data: "_data", output: process.env.COSMOLEDGER_SITE_OUT ?? "_site" },
+    dir: {
+      input: "content",
+      includes: "_includes",
+      data: "_data",
+      output: process.env.COSMOLEDGER_SITE_OUT ?? "_site",
+    },
     templateFormats: ["njk"],
     htmlTemplateEngine: "njk",
   };

@@ -23,17 +23,27 @@ export function runComputeBench(runs = 7) {
   const dir = mkdtempSync(join(tmpdir(), "cosmoledger-bench-"));
   const file = join(dir, "bench.yaml");
   const models = [
-    "{ id: m0, H0: 67.5, Omega_m: 0.315 }", "{ id: m1, extends: m0, Omega_k: 0.1 }", "{ id: m2, extends: m0, Omega_k: -0.05 }",
-    "{ id: m3, extends: m0, w0: -0.8, wa: -0.6 }", "{ id: m4, extends: m0, Omega_k: 0.05, w0: -1.2, wa: 0.5 }",
-    "{ id: m5, extends: m0, Omega_de: -0.2 }", "{ id: m6, H0: 60, Omega_m: 1.5, Omega_de: 0.005 }", "{ id: m7, extends: m0, w0: -0.9 }",
+    "{ id: m0, H0: 67.5, Omega_m: 0.315 }",
+    "{ id: m1, extends: m0, Omega_k: 0.1 }",
+    "{ id: m2, extends: m0, Omega_k: -0.05 }",
+    "{ id: m3, extends: m0, w0: -0.8, wa: -0.6 }",
+    "{ id: m4, extends: m0, Omega_k: 0.05, w0: -1.2, wa: 0.5 }",
+    "{ id: m5, extends: m0, Omega_de: -0.2 }",
+    "{ id: m6, H0: 60, Omega_m: 1.5, Omega_de: 0.005 }",
+    "{ id: m7, extends: m0, w0: -0.9 }",
   ];
   const redshifts = Array.from({ length: 20 }, (_, i) => (0.25 * (i + 1)).toString());
-  writeFileSync(file, `title: bench\nredshifts: [${redshifts.join(", ")}]\ngrid: { z_max: 20, points: 2000 }\nmodels:\n${models.map((m) => `  - ${m}\n`).join("")}`);
+  writeFileSync(
+    file,
+    `title: bench\nredshifts: [${redshifts.join(", ")}]\ngrid: { z_max: 20, points: 2000 }\nmodels:\n${models.map((m) => `  - ${m}\n`).join("")}`,
+  );
   const node = median(() => spawnSync(process.execPath, ["-e", "0"]), runs);
   const help = median(() => spawnSync(process.execPath, [BIN, "--help"]), runs);
   let out = 0;
   const compute = median(() => {
-    const r = spawnSync(process.execPath, [BIN, "compute", file, "--out", join(dir, `out${out++}`)], { encoding: "utf8" });
+    const r = spawnSync(process.execPath, [BIN, "compute", file, "--out", join(dir, `out${out++}`)], {
+      encoding: "utf8",
+    });
     if (r.status !== 0) throw new Error(r.stderr);
   }, runs);
   rmSync(dir, { recursive: true, force: true });

@@ -1,6 +1,12 @@
 // Engine benchmark: 8 models x 2,000 redshifts (0 to 20), every per-redshift quantity, cumulative path,
 // against a slow careful path (each point integrated from scratch, adaptive, at 1e-13, in other variables).
-import { redshiftTable, integrateScalar, expansionRateSquared, hubbleDistanceMpc, hubbleTimeGyr } from "../dist/engine/index.js";
+import {
+  redshiftTable,
+  integrateScalar,
+  expansionRateSquared,
+  hubbleDistanceMpc,
+  hubbleTimeGyr,
+} from "../dist/engine/index.js";
 import { BENCH_MODELS, BENCH_MODELS_NU } from "./models.js";
 
 export function runEngineBench({ points = 2000, zMax = 20, repeats = 30 } = {}) {
@@ -33,7 +39,12 @@ export function runEngineBench({ points = 2000, zMax = 20, repeats = 30 } = {}) 
       const s = Math.exp(lnA / 2);
       const age = tH * integrateScalar((x) => 2 / (x * Math.sqrt(e2(x * x))), 0, s, 1e-13).value;
       const ph = DH * integrateScalar((x) => 2 / (x * x * x * Math.sqrt(e2(x * x))), 0, s, 1e-13).value;
-      for (const [ours, ref] of [[t.comoving_distance_Mpc[i], DC], [t.lookback_time_Gyr[i], lb], [t.age_Gyr[i], age], [t.particle_horizon_Mpc[i], ph]]) {
+      for (const [ours, ref] of [
+        [t.comoving_distance_Mpc[i], DC],
+        [t.lookback_time_Gyr[i], lb],
+        [t.age_Gyr[i], age],
+        [t.particle_horizon_Mpc[i], ph],
+      ]) {
         const rel = Math.abs(ours - ref) / Math.abs(ref);
         if (rel > maxRel) maxRel = rel;
       }
@@ -50,5 +61,12 @@ export function runEngineBench({ points = 2000, zMax = 20, repeats = 30 } = {}) 
   }
   nuTimes.sort((a, b) => a - b);
   const nuMs = nuTimes[Math.floor(nuTimes.length / 2)];
-  return { points: total, ms, nuMs, pointsPerSecond: (total / ms) * 1000, maxRelError: maxRel, checked: careful.length * 4 };
+  return {
+    points: total,
+    ms,
+    nuMs,
+    pointsPerSecond: (total / ms) * 1000,
+    maxRelError: maxRel,
+    checked: careful.length * 4,
+  };
 }

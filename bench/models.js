@@ -14,4 +14,6 @@ const spec = [
 ];
 export const BENCH_MODELS = spec.map((s, i) => makeBackgroundModel({ H0_km_s_Mpc: 65 + i, radiation: rad, ...s }));
 /** The same eight models with one massive neutrino of 0.06 eV each. */
-export const BENCH_MODELS_NU = spec.map((s, i) => makeBackgroundModel({ H0_km_s_Mpc: 65 + i, radiation: rad, m_nu_eV: [0.06], ...s }));
+export const BENCH_MODELS_NU = spec.map((s, i) =>
+  makeBackgroundModel({ H0_km_s_Mpc: 65 + i, radiation: rad, m_nu_eV: [0.06], ...s }),
+);

@@ -7,22 +7,50 @@ import { runArchiveBench } from "./archive.js";
 const engine = runEngineBench();
 console.log(`engine: ${engine.points} points (8 models x 2000 redshifts, z 0..20, all per-redshift quantities)`);
 console.log(`  median wall time ${engine.ms.toFixed(2)} ms, ${(engine.pointsPerSecond / 1e6).toFixed(2)} M points/s`);
-console.log(`  with one massive neutrino per model: ${engine.nuMs.toFixed(2)} ms (${(engine.nuMs / engine.ms).toFixed(2)}x)`);
-console.log(`  largest relative error against the per-point careful path (1e-13): ${engine.maxRelError.toExponential(2)} over ${engine.checked} values`);
+console.log(
+  `  with one massive neutrino per model: ${engine.nuMs.toFixed(2)} ms (${(engine.nuMs / engine.ms).toFixed(2)}x)`,
+);
+console.log(
+  `  largest relative error against the per-point careful path (1e-13): ${engine.maxRelError.toExponential(2)} over ${engine.checked} values`,
+);
 const cli = runComputeBench();
 console.log(`cli: bare node start-up ${cli.nodeStartMs.toFixed(0)} ms`);
 console.log(`  --help ${cli.helpMs.toFixed(0)} ms (${(cli.helpMs - cli.nodeStartMs).toFixed(0)} ms beyond node)`);
-console.log(`  compute, 8 models x (2000 grid + 20 table redshifts): ${cli.computeMs.toFixed(0)} ms (${(cli.computeMs - cli.nodeStartMs).toFixed(0)} ms beyond node)`);
+console.log(
+  `  compute, 8 models x (2000 grid + 20 table redshifts): ${cli.computeMs.toFixed(0)} ms (${(cli.computeMs - cli.nodeStartMs).toFixed(0)} ms beyond node)`,
+);
 const site = runSiteBench();
-site.sizes.forEach((n, i) => console.log(`site: ${n} generated scenarios x 4 models, table exports, --skip-images: ${site.seconds[i].toFixed(2)} s (${(1000 * site.seconds[i] / n).toFixed(1)} ms per scenario page)`));
-console.log(`  ${site.imagesN} scenarios with chart images drawn into an empty cache: ${site.imageSeconds.toFixed(2)} s (${(1000 * (site.imageSeconds - site.seconds[0] * site.imagesN / site.sizes[0]) / site.imagesN).toFixed(0)} ms of images per page)`);
-console.log(`  largest demo scenario page (HTML with inline chart data, without Chart.js): ${site.maxPageKB.toFixed(0)} KB`);
+site.sizes.forEach((n, i) =>
+  console.log(
+    `site: ${n} generated scenarios x 4 models, table exports, --skip-images: ${site.seconds[i].toFixed(2)} s (${((1000 * site.seconds[i]) / n).toFixed(1)} ms per scenario page)`,
+  ),
+);
+console.log(
+  `  ${site.imagesN} scenarios with chart images drawn into an empty cache: ${site.imageSeconds.toFixed(2)} s (${((1000 * (site.imageSeconds - (site.seconds[0] * site.imagesN) / site.sizes[0])) / site.imagesN).toFixed(0)} ms of images per page)`,
+);
+console.log(
+  `  largest demo scenario page (HTML with inline chart data, without Chart.js): ${site.maxPageKB.toFixed(0)} KB`,
+);
 const archive = runArchiveBench();
-console.log(`archive: freeze (whole process) median ${archive.freezeMedianMs.toFixed(0)} ms; record ${archive.recordKB.toFixed(0)} KB each`);
-console.log(`  verify ${archive.versions} versions (hashes, chain, recompute): ${archive.verifyMs.toFixed(0)} ms; build with ${archive.versions} version pages and every diff pair (--skip-images): ${(archive.buildMs / 1000).toFixed(2)} s`);
-console.log(JSON.stringify({
-  points: engine.points, ms: Number(engine.ms.toFixed(3)), ms_with_neutrinos: Number(engine.nuMs.toFixed(3)), max_rel_error: engine.maxRelError,
-  help_ms_beyond_node: Number((cli.helpMs - cli.nodeStartMs).toFixed(1)), compute_ms_beyond_node: Number((cli.computeMs - cli.nodeStartMs).toFixed(1)),
-  site_200_s: Number(site.seconds[2].toFixed(2)), site_10_with_images_s: Number(site.imageSeconds.toFixed(2)), max_page_kb: Number(site.maxPageKB.toFixed(1)),
-  freeze_ms: Number(archive.freezeMedianMs.toFixed(1)), verify_20_ms: Number(archive.verifyMs.toFixed(1)), build_20_versions_s: Number((archive.buildMs / 1000).toFixed(2)),
-}));
+console.log(
+  `archive: freeze (whole process) median ${archive.freezeMedianMs.toFixed(0)} ms; record ${archive.recordKB.toFixed(0)} KB each`,
+);
+console.log(
+  `  verify ${archive.versions} versions (hashes, chain, recompute): ${archive.verifyMs.toFixed(0)} ms; build with ${archive.versions} version pages and every diff pair (--skip-images): ${(archive.buildMs / 1000).toFixed(2)} s`,
+);
+console.log(
+  JSON.stringify({
+    points: engine.points,
+    ms: Number(engine.ms.toFixed(3)),
+    ms_with_neutrinos: Number(engine.nuMs.toFixed(3)),
+    max_rel_error: engine.maxRelError,
+    help_ms_beyond_node: Number((cli.helpMs - cli.nodeStartMs).toFixed(1)),
+    compute_ms_beyond_node: Number((cli.computeMs - cli.nodeStartMs).toFixed(1)),
+    site_200_s: Number(site.seconds[2].toFixed(2)),
+    site_10_with_images_s: Number(site.imageSeconds.toFixed(2)),
+    max_page_kb: Number(site.maxPageKB.toFixed(1)),
+    freeze_ms: Number(archive.freezeMedianMs.toFixed(1)),
+    verify_20_ms: Number(archive.verifyMs.toFixed(1)),
+    build_20_versions_s: Number((archive.buildMs / 1000).toFixed(2)),
+  }),
+);

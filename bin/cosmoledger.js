@@ -3,10 +3,15 @@
 import { main } from "../dist/cli/main.js";
 
 // A closed pipe (cosmoledger ... | head) is not a failure.
-process.stdout.on("error", (e) => { if (e.code === "EPIPE") process.exit(0); throw e; });
+process.stdout.on("error", (e) => {
+  if (e.code === "EPIPE") process.exit(0);
+  throw e;
+});
 
 main(process.argv.slice(2)).then(
-  (code) => { process.exitCode = code; },
+  (code) => {
+    process.exitCode = code;
+  },
   (error) => {
     process.stderr.write(`cosmoledger: unexpected failure: ${error && error.stack ? error.stack : error}\n`);
     process.exitCode = 1;

@@ -5,7 +5,9 @@
   var dataElement = document.getElementById("chart-data");
   var diffToggle = document.getElementById("show-diffs");
   if (diffToggle) {
-    diffToggle.addEventListener("change", function () { document.body.classList.toggle("hide-diffs", !diffToggle.checked); });
+    diffToggle.addEventListener("change", function () {
+      document.body.classList.toggle("hide-diffs", !diffToggle.checked);
+    });
   }
   if (typeof Chart === "undefined") return;
   // Our palette, with a line pattern per model so that greyscale prints still tell models apart.
@@ -24,21 +26,42 @@
       if (!canvas) return;
       window.cosmoledgerCharts[scenario.id] = new Chart(canvas, {
         type: "line",
-        data: { datasets: scenario.models.map(function (m, i) {
-          return { label: m.label, data: scenario.z.map(function (z, j) { return { x: z, y: m.values[j] }; }),
-            borderColor: COLOURS[i % COLOURS.length], borderDash: DASHES[i % DASHES.length], borderWidth: 1.5, pointRadius: 0 };
-        }) },
-        options: { parsing: false, responsive: true, maintainAspectRatio: false,
-          scales: { x: { type: "linear", title: { display: true, text: "z" } }, y: { title: { display: true, text: "D_L [Mpc]" } } },
-          plugins: { legend: { display: false } } },
+        data: {
+          datasets: scenario.models.map(function (m, i) {
+            return {
+              label: m.label,
+              data: scenario.z.map(function (z, j) {
+                return { x: z, y: m.values[j] };
+              }),
+              borderColor: COLOURS[i % COLOURS.length],
+              borderDash: DASHES[i % DASHES.length],
+              borderWidth: 1.5,
+              pointRadius: 0,
+            };
+          }),
+        },
+        options: {
+          parsing: false,
+          responsive: true,
+          maintainAspectRatio: false,
+          scales: {
+            x: { type: "linear", title: { display: true, text: "z" } },
+            y: { title: { display: true, text: "D_L [Mpc]" } },
+          },
+          plugins: { legend: { display: false } },
+        },
       });
     });
   }
   if (!dataElement) return;
   var data = JSON.parse(dataElement.textContent);
-  var baseline = data.models.filter(function (m) { return m.id === data.baseline; })[0];
+  var baseline = data.models.filter(function (m) {
+    return m.id === data.baseline;
+  })[0];
   var byKey = {};
-  data.series.forEach(function (s) { byKey[s.key] = s; });
+  data.series.forEach(function (s) {
+    byKey[s.key] = s;
+  });
   window.cosmoledgerCharts = {};
 
   document.querySelectorAll("figure.chart").forEach(function (figure) {
@@ -61,38 +84,79 @@
           if (ratio) y = y === null || !base[j] ? null : y / base[j];
           points.push({ x: x, y: y });
         }
-        return { label: m.label, data: points, borderColor: COLOURS[i % COLOURS.length], backgroundColor: COLOURS[i % COLOURS.length],
-          borderDash: DASHES[i % DASHES.length], borderWidth: 2, pointRadius: 0, spanGaps: false, fill: false };
+        return {
+          label: m.label,
+          data: points,
+          borderColor: COLOURS[i % COLOURS.length],
+          backgroundColor: COLOURS[i % COLOURS.length],
+          borderDash: DASHES[i % DASHES.length],
+          borderWidth: 2,
+          pointRadius: 0,
+          spanGaps: false,
+          fill: false,
+        };
       });
     }
     function yTitle() {
       var s = byKey[seriesInput.value];
-      return ratioInput.checked ? s.label + " / baseline (" + data.baseline + ")" : s.label + (s.unit ? " [" + s.unit.replace("^3", "\u00b3") + "]" : "");
+      return ratioInput.checked
+        ? s.label + " / baseline (" + data.baseline + ")"
+        : s.label + (s.unit ? " [" + s.unit.replace("^3", "\u00b3") + "]" : "");
     }
     var chart = new Chart(canvas, {
       type: "line",
       data: { datasets: build() },
       options: {
-        parsing: false, normalized: true, responsive: true, maintainAspectRatio: false,
+        parsing: false,
+        normalized: true,
+        responsive: true,
+        maintainAspectRatio: false,
         interaction: { mode: "nearest", axis: "x", intersect: false },
         scales: {
-          x: { type: logInput.checked ? "logarithmic" : "linear", title: { display: true, text: "redshift z" },
-            ticks: { maxRotation: 0, callback: function (value, index, ticks) {
-              // On the log axis only 1, 2 and 5 times a power of ten are labelled, so that labels do not crowd.
-              if (this.type !== "logarithmic") return Chart.Ticks.formatters.numeric.call(this, value, index, ticks);
-              var v = Number(value);
-              var m = v / Math.pow(10, Math.floor(Math.log10(v) + 1e-9));
-              return [1, 2, 5].some(function (k) { return Math.abs(m - k) < 1e-6; }) ? String(Number(v.toPrecision(3))) : "";
-            } } },
+          x: {
+            type: logInput.checked ? "logarithmic" : "linear",
+            title: { display: true, text: "redshift z" },
+            ticks: {
+              maxRotation: 0,
+              callback: function (value, index, ticks) {
+                // On the log axis only 1, 2 and 5 times a power of ten are labelled, so that labels do not crowd.
+                if (this.type !== "logarithmic") return Chart.Ticks.formatters.numeric.call(this, value, index, ticks);
+                var v = Number(value);
+                var m = v / Math.pow(10, Math.floor(Math.log10(v) + 1e-9));
+                return [1, 2, 5].some(function (k) {
+                  return Math.abs(m - k) < 1e-6;
+                })
+                  ? String(Number(v.toPrecision(3)))
+                  : "";
+              },
+            },
+          },
           y: { type: "linear", title: { display: true, text: yTitle() } },
         },
         // Swatches are short lines with each model's dash pattern (as in the exported images), readable in greyscale.
-        plugins: { legend: { position: "bottom", labels: { usePointStyle: true, pointStyleWidth: 36, generateLabels: function (c) {
-          return c.data.datasets.map(function (d, i) {
-            return { text: d.label, datasetIndex: i, pointStyle: "line", fillStyle: COLOURS[i % COLOURS.length], strokeStyle: COLOURS[i % COLOURS.length],
-              lineWidth: 2, lineDash: DASHES[i % DASHES.length], hidden: !c.isDatasetVisible(i) };
-          });
-        } } } },
+        plugins: {
+          legend: {
+            position: "bottom",
+            labels: {
+              usePointStyle: true,
+              pointStyleWidth: 36,
+              generateLabels: function (c) {
+                return c.data.datasets.map(function (d, i) {
+                  return {
+                    text: d.label,
+                    datasetIndex: i,
+                    pointStyle: "line",
+                    fillStyle: COLOURS[i % COLOURS.length],
+                    strokeStyle: COLOURS[i % COLOURS.length],
+                    lineWidth: 2,
+                    lineDash: DASHES[i % DASHES.length],
+                    hidden: !c.isDatasetVisible(i),
+                  };
+                });
+              },
+            },
+          },
+        },
       },
     });
     function update() {
@@ -101,7 +165,9 @@
       chart.options.scales.y.title.text = yTitle();
       chart.update();
     }
-    [seriesInput, logInput, ratioInput].forEach(function (input) { if (input) input.addEventListener("change", update); });
+    [seriesInput, logInput, ratioInput].forEach(function (input) {
+      if (input) input.addEventListener("change", update);
+    });
     window.cosmoledgerCharts[figure.getAttribute("data-chart")] = chart;
   });
 })();

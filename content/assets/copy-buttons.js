@@ -19,7 +19,11 @@
     document.body.appendChild(area);
     area.select();
     var ok = false;
-    try { ok = document.execCommand("copy"); } catch (e) { ok = false; }
+    try {
+      ok = document.execCommand("copy");
+    } catch (e) {
+      ok = false;
+    }
     document.body.removeChild(area);
     return ok;
   }
@@ -27,13 +31,18 @@
     var label = button.getAttribute("data-label") || button.textContent;
     button.setAttribute("data-label", label);
     button.textContent = message;
-    setTimeout(function () { button.textContent = label; }, 1500);
+    setTimeout(function () {
+      button.textContent = label;
+    }, 1500);
   }
   // One pair of buttons per export paragraph that has copy texts: Markdown (plain text for the assumptions) and LaTeX.
   document.querySelectorAll("p.exports[data-export]").forEach(function (p) {
     var id = p.getAttribute("data-export");
     if (id !== "assumptions" && !data.tables[id]) return;
-    [["md", id === "assumptions" ? "Copy text" : "Copy Markdown"], ["tex", "Copy LaTeX"]].forEach(function (pair) {
+    [
+      ["md", id === "assumptions" ? "Copy text" : "Copy Markdown"],
+      ["tex", "Copy LaTeX"],
+    ].forEach(function (pair) {
       var button = document.createElement("button");
       button.type = "button";
       button.className = "copy";
@@ -48,8 +57,14 @@
     var text = textFor(button);
     if (text === null || text === undefined) return;
     button.addEventListener("click", function () {
-      var done = function () { button.setAttribute("data-copied", "true"); say(button, "Copied"); };
-      var fail = function () { if (fallbackCopy(text)) done(); else say(button, "Copy failed: use the download"); };
+      var done = function () {
+        button.setAttribute("data-copied", "true");
+        say(button, "Copied");
+      };
+      var fail = function () {
+        if (fallbackCopy(text)) done();
+        else say(button, "Copy failed: use the download");
+      };
       if (navigator.clipboard && navigator.clipboard.writeText) navigator.clipboard.writeText(text).then(done, fail);
       else fail();
     });

@@ -1,11 +1,28 @@
-import { closeSync, constants, copyFileSync, fsyncSync, linkSync, mkdirSync, openSync, rmSync, writeFileSync } from "node:fs";
+import {
+  closeSync,
+  constants,
+  copyFileSync,
+  fsyncSync,
+  linkSync,
+  mkdirSync,
+  openSync,
+  rmSync,
+  writeFileSync,
+} from "node:fs";
 import { join } from "node:path";
 import { randomBytes } from "node:crypto";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import type { TablesDocument } from "../contract/tablesDocument.js";
 import { readScenarioArchive } from "./readArchive.js";
 import type { ArchiveIssue } from "./checkVersionChain.js";
-import { frozenInputs, holdsSameInputs, sealVersion, versionFileName, type StoredVersionRecord, type VersionRecord } from "../contract/versionRecord.js";
+import {
+  frozenInputs,
+  holdsSameInputs,
+  sealVersion,
+  versionFileName,
+  type StoredVersionRecord,
+  type VersionRecord,
+} from "../contract/versionRecord.js";
 import { TOOL_VERSION } from "../common/toolVersion.js";
 
 export type FreezeOutcome =
@@ -46,7 +63,13 @@ function fsyncPath(path: string, flags: string): void {
  * Existing versions are never rewritten. Unchanged inputs (same source text and inputs hash as the latest) are a no-op;
  * inputs that return to an older version's make a new version, which says so (a revert is history too).
  */
-export function freezeScenario(archiveDir: string, scenario: ResolvedScenario, doc: TablesDocument, message: string, now: () => Date = () => new Date()): FreezeOutcome {
+export function freezeScenario(
+  archiveDir: string,
+  scenario: ResolvedScenario,
+  doc: TablesDocument,
+  message: string,
+  now: () => Date = () => new Date(),
+): FreezeOutcome {
   const folder = join(archiveDir, scenario.id);
   mkdirSync(folder, { recursive: true });
   for (let attempt = 0; attempt < RETRIES; attempt++) {
@@ -54,12 +77,21 @@ export function freezeScenario(archiveDir: string, scenario: ResolvedScenario, d
     const { versions } = readScenarioArchive(folder, scenario.id, issues);
     if (issues.length > 0) return { kind: "broken", issues };
     const latest = versions.at(-1);
-    if (latest && holdsSameInputs(latest, doc)) return { kind: "unchanged", record: latest, file: join(folder, versionFileName(latest.version)) };
-    const record = sealVersion({
-      scenario_id: scenario.id, version: (latest?.version ?? 0) + 1, created: now().toISOString(), message,
-      previous_sha256: latest?.sha256 ?? null, source: { path: scenario.source.path, text: scenario.source.text },
-      inputs: frozenInputs(scenario), tables: doc,
-    }, TOOL_VERSION);
+    if (latest && holdsSameInputs(latest, doc))
+      return { kind: "unchanged", record: latest, file: join(folder, versionFileName(latest.version)) };
+    const record = sealVersion(
+      {
+        scenario_id: scenario.id,
+        version: (latest?.version ?? 0) + 1,
+        created: now().toISOString(),
+        message,
+        previous_sha256: latest?.sha256 ?? null,
+        source: { path: scenario.source.path, text: scenario.source.text },
+        inputs: frozenInputs(scenario),
+        tables: doc,
+      },
+      TOOL_VERSION,
+    );
     const final = join(folder, versionFileName(record.version));
     const tmp = join(folder, `.freeze-${process.pid}-${randomBytes(6).toString("hex")}.tmp`);
     writeFileSync(tmp, JSON.stringify(record) + "\n", { flag: "wx" });

@@ -1,6 +1,10 @@
 /** Largest relative change of one quantity between two tables documents, and where it happened. */
 export interface QuantityDrift {
-  quantity: string; relative: number; where: string; before: unknown; after: unknown;
+  quantity: string;
+  relative: number;
+  where: string;
+  before: unknown;
+  after: unknown;
   /** Set when the key exists on one side only (a quantity one format has and the other lacks). */
   absent?: "before" | "after";
 }
@@ -19,14 +23,28 @@ export function relativeChange(a: number, b: number): number {
  */
 export function tablesDrift(before: unknown, after: unknown, skip: readonly string[] = []): QuantityDrift[] {
   const worst = new Map<string, QuantityDrift>();
-  const note = (quantity: string, relative: number, where: string, b: unknown, a: unknown, absent?: "before" | "after") => {
+  const note = (
+    quantity: string,
+    relative: number,
+    where: string,
+    b: unknown,
+    a: unknown,
+    absent?: "before" | "after",
+  ) => {
     const seen = worst.get(quantity);
-    if (!seen || relative > seen.relative) worst.set(quantity, absent ? { quantity, relative, where, before: b, after: a, absent } : { quantity, relative, where, before: b, after: a });
+    if (!seen || relative > seen.relative)
+      worst.set(
+        quantity,
+        absent
+          ? { quantity, relative, where, before: b, after: a, absent }
+          : { quantity, relative, where, before: b, after: a },
+      );
   };
   const walk = (b: unknown, a: unknown, quantity: string, where: string, depth: number): void => {
     if (typeof b === "number" && typeof a === "number") return note(quantity, relativeChange(b, a), where, b, a);
     if (Array.isArray(b) && Array.isArray(a)) {
-      if (b.length !== a.length) return note(quantity + "[]", Infinity, where, `${b.length} entries`, `${a.length} entries`);
+      if (b.length !== a.length)
+        return note(quantity + "[]", Infinity, where, `${b.length} entries`, `${a.length} entries`);
       for (let i = 0; i < b.length; i++) walk(b[i], a[i], quantity + "[]", `${where}[${i}]`, depth + 1);
       return;
     }
@@ -36,7 +54,15 @@ export function tablesDrift(before: unknown, after: unknown, skip: readonly stri
         if (depth === 0 && skip.includes(k)) continue;
         const q = quantity ? `${quantity}.${k}` : k;
         const w = where ? `${where}.${k}` : k;
-        if (!(k in b) || !(k in a)) note(q, Infinity, w, k in b ? (b as Record<string, unknown>)[k] : "(absent)", k in a ? (a as Record<string, unknown>)[k] : "(absent)", k in b ? "after" : "before");
+        if (!(k in b) || !(k in a))
+          note(
+            q,
+            Infinity,
+            w,
+            k in b ? (b as Record<string, unknown>)[k] : "(absent)",
+            k in a ? (a as Record<string, unknown>)[k] : "(absent)",
+            k in b ? "after" : "before",
+          );
         else walk((b as Record<string, unknown>)[k], (a as Record<string, unknown>)[k], q, w, depth + 1);
       }
       return;

@@ -1,34 +1,78 @@
 import { structuredPatch } from "diff";
 import canonicalize from "canonicalize";
-import { EARLY_QUANTITIES, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES, type QuantityInfo } from "../contract/quantityCatalog.js";
-import { quantityValue, type Num, type StoredModelTables, type StoredTablesDocument } from "../contract/tablesDocument.js";
+import {
+  EARLY_QUANTITIES,
+  REDSHIFT_GROUPS,
+  SUMMARY_QUANTITIES,
+  TARGET_QUANTITIES,
+  type QuantityInfo,
+} from "../contract/quantityCatalog.js";
+import {
+  quantityValue,
+  type Num,
+  type StoredModelTables,
+  type StoredTablesDocument,
+} from "../contract/tablesDocument.js";
 import { relativeChange } from "./tablesDrift.js";
 import { tablesFormatOf, type StoredVersionRecord } from "../contract/versionRecord.js";
 import { quantityKeys } from "./quantityKeys.js";
 
 /** One line of the YAML text diff: kept (" "), removed ("-") or added ("+"), with its line numbers. */
-export interface SourceDiffLine { op: " " | "-" | "+"; oldLine: number | null; newLine: number | null; text: string }
-export interface SourceDiffHunk { header: string; lines: SourceDiffLine[] }
+export interface SourceDiffLine {
+  op: " " | "-" | "+";
+  oldLine: number | null;
+  newLine: number | null;
+  text: string;
+}
+export interface SourceDiffHunk {
+  header: string;
+  lines: SourceDiffLine[];
+}
 
 /** A resolved input that differs: scenario-level (model null) or of one model; values as JSON text, with provenance. */
-export interface InputChange { model: string | null; key: string; before: string; after: string; beforeNumber: number | null; afterNumber: number | null; provenanceBefore: string | null; provenanceAfter: string | null }
+export interface InputChange {
+  model: string | null;
+  key: string;
+  before: string;
+  after: string;
+  beforeNumber: number | null;
+  afterNumber: number | null;
+  provenanceBefore: string | null;
+  provenanceAfter: string | null;
+}
 
 /** The largest change of one output quantity in one model; relative is null when a value appeared, vanished or is not numeric. */
-export interface ModelOutputChange { relative: number | null; where: string; before: Num; after: Num; changed: boolean }
+export interface ModelOutputChange {
+  relative: number | null;
+  where: string;
+  before: Num;
+  after: Num;
+  changed: boolean;
+}
 /**
  * One output quantity; `absent` says which side's format does not have it at all ("not computed in version N"),
  * which is never shown as a change of value.
  */
-export interface OutputChange { section: string; sectionStart: boolean; key: string; label: string; unit: string; absent: "before" | "after" | null; models: Record<string, ModelOutputChange> }
+export interface OutputChange {
+  section: string;
+  sectionStart: boolean;
+  key: string;
+  label: string;
+  unit: string;
+  absent: "before" | "after" | null;
+  models: Record<string, ModelOutputChange>;
+}
 
 export interface VersionDiff {
-  from: number; to: number;
+  from: number;
+  to: number;
   source: SourceDiffHunk[];
   /** Changed inputs: set, inherited or defaulted values, and scenario-level settings. */
   inputs: InputChange[];
   /** Changed derived parameters (closure, radiation densities, ...), which follow from the inputs. */
   derived: InputChange[];
-  modelsAdded: string[]; modelsRemoved: string[];
+  modelsAdded: string[];
+  modelsRemoved: string[];
   /** Models present in both versions, in the order of the later one. */
   commonModels: { id: string; label: string }[];
   outputs: OutputChange[];
@@ -39,7 +83,7 @@ export interface VersionDiff {
   largest: { label: string; model: string; relative: number | null; where: string } | null;
 }
 
-const text = (v: unknown) => (v === undefined ? "(absent)" : canonicalize(v) ?? String(v));
+const text = (v: unknown) => (v === undefined ? "(absent)" : (canonicalize(v) ?? String(v)));
 
 function sourceHunks(before: string, after: string): SourceDiffHunk[] {
   const patch = structuredPatch("before", "after", before, after, "", "", { context: 3 });
@@ -59,21 +103,51 @@ function sourceHunks(before: string, after: string): SourceDiffHunk[] {
   });
 }
 
-const SCENARIO_KEYS = ["title", "description", "author", "tags", "baseline", "redshifts", "grid", "targets", "surveys"] as const;
+const SCENARIO_KEYS = [
+  "title",
+  "description",
+  "author",
+  "tags",
+  "baseline",
+  "redshifts",
+  "grid",
+  "targets",
+  "surveys",
+] as const;
 
 function inputChanges(a: StoredVersionRecord, b: StoredVersionRecord): InputChange[] {
   const out: InputChange[] = [];
   for (const key of SCENARIO_KEYS) {
     const x = text((a.inputs as unknown as Record<string, unknown>)[key]);
     const y = text((b.inputs as unknown as Record<string, unknown>)[key]);
-    if (x !== y) out.push({ model: null, key, before: x, after: y, beforeNumber: null, afterNumber: null, provenanceBefore: null, provenanceAfter: null });
+    if (x !== y)
+      out.push({
+        model: null,
+        key,
+        before: x,
+        after: y,
+        beforeNumber: null,
+        afterNumber: null,
+        provenanceBefore: null,
+        provenanceAfter: null,
+      });
   }
   for (const mb of b.tables.models) {
     const ma = a.tables.models.find((m) => m.id === mb.id);
     if (!ma) continue;
     const mods = (m: StoredModelTables) => m as unknown as Record<string, unknown>;
     for (const key of ["label", "extends", "notes"] as const) {
-      if (text(mods(ma)[key]) !== text(mods(mb)[key])) out.push({ model: mb.id, key, before: text(mods(ma)[key]), after: text(mods(mb)[key]), beforeNumber: null, afterNumber: null, provenanceBefore: null, provenanceAfter: null });
+      if (text(mods(ma)[key]) !== text(mods(mb)[key]))
+        out.push({
+          model: mb.id,
+          key,
+          before: text(mods(ma)[key]),
+          after: text(mods(mb)[key]),
+          beforeNumber: null,
+          afterNumber: null,
+          provenanceBefore: null,
+          provenanceAfter: null,
+        });
     }
     const keys = [...new Set([...Object.keys(mb.parameters), ...Object.keys(ma.parameters)])];
     for (const key of keys) {
@@ -81,7 +155,17 @@ function inputChanges(a: StoredVersionRecord, b: StoredVersionRecord): InputChan
       const pb = (mb.parameters as unknown as Record<string, unknown>)[key];
       const va = (ma.provenance as Record<string, string>)[key] ?? null;
       const vb = (mb.provenance as Record<string, string>)[key] ?? null;
-      if (text(pa) !== text(pb) || va !== vb) out.push({ model: mb.id, key, before: text(pa), after: text(pb), beforeNumber: typeof pa === "number" ? pa : null, afterNumber: typeof pb === "number" ? pb : null, provenanceBefore: va, provenanceAfter: vb });
+      if (text(pa) !== text(pb) || va !== vb)
+        out.push({
+          model: mb.id,
+          key,
+          before: text(pa),
+          after: text(pb),
+          beforeNumber: typeof pa === "number" ? pa : null,
+          afterNumber: typeof pb === "number" ? pb : null,
+          provenanceBefore: va,
+          provenanceAfter: vb,
+        });
     }
   }
   return out;
@@ -105,7 +189,11 @@ function worse(x: ModelOutputChange | undefined, y: ModelOutputChange): ModelOut
   return (y.relative ?? 0) > (x.relative ?? 0) ? y : x;
 }
 
-function rowsChange(ma: StoredModelTables, mb: StoredModelTables, key: Parameters<typeof quantityValue>[1]): ModelOutputChange {
+function rowsChange(
+  ma: StoredModelTables,
+  mb: StoredModelTables,
+  key: Parameters<typeof quantityValue>[1],
+): ModelOutputChange {
   let w: ModelOutputChange | undefined;
   for (const rb of mb.redshifts) {
     const ra = ma.redshifts.find((r) => r.z === rb.z);
@@ -114,7 +202,11 @@ function rowsChange(ma: StoredModelTables, mb: StoredModelTables, key: Parameter
   return w ?? { relative: null, where: "no redshift in common", before: null, after: null, changed: false };
 }
 
-function namedChange<T extends { name: string }>(xs: T[], ys: T[], key: Parameters<typeof quantityValue>[1]): ModelOutputChange {
+function namedChange<T extends { name: string }>(
+  xs: T[],
+  ys: T[],
+  key: Parameters<typeof quantityValue>[1],
+): ModelOutputChange {
   let w: ModelOutputChange | undefined;
   for (const y of ys) {
     const x = xs.find((e) => e.name === y.name);
@@ -128,24 +220,59 @@ function outputChanges(a: StoredTablesDocument, b: StoredTablesDocument, common:
   const model = (doc: StoredTablesDocument, id: string) => doc.models.find((m) => m.id === id)!;
   const keysA = quantityKeys(a);
   const keysB = quantityKeys(b);
-  const add = (section: string, path: string, q: QuantityInfo, f: (ma: StoredModelTables, mb: StoredModelTables) => ModelOutputChange) => {
+  const add = (
+    section: string,
+    path: string,
+    q: QuantityInfo,
+    f: (ma: StoredModelTables, mb: StoredModelTables) => ModelOutputChange,
+  ) => {
     const inA = keysA.has(path);
     const inB = keysB.has(path);
     if (!inA && !inB) return;
     const models: Record<string, ModelOutputChange> = {};
-    for (const id of common) models[id] = inA && inB ? f(model(a, id), model(b, id)) : { relative: null, where: "", before: null, after: null, changed: false };
-    out.push({ section, sectionStart: out.at(-1)?.section !== section, key: q.key, label: q.label, unit: q.unit, absent: !inA ? "before" : !inB ? "after" : null, models });
+    for (const id of common)
+      models[id] =
+        inA && inB
+          ? f(model(a, id), model(b, id))
+          : { relative: null, where: "", before: null, after: null, changed: false };
+    out.push({
+      section,
+      sectionStart: out.at(-1)?.section !== section,
+      key: q.key,
+      label: q.label,
+      unit: q.unit,
+      absent: !inA ? "before" : !inB ? "after" : null,
+      models,
+    });
   };
-  for (const q of [...SUMMARY_QUANTITIES, ...EARLY_QUANTITIES.filter((e) => !SUMMARY_QUANTITIES.some((s) => s.key === e.key))]) {
-    add("Summary", `summary.${q.key}`, q, (ma, mb) => change(quantityValue(ma.summary, q.key), quantityValue(mb.summary, q.key), "today"));
+  for (const q of [
+    ...SUMMARY_QUANTITIES,
+    ...EARLY_QUANTITIES.filter((e) => !SUMMARY_QUANTITIES.some((s) => s.key === e.key)),
+  ]) {
+    add("Summary", `summary.${q.key}`, q, (ma, mb) =>
+      change(quantityValue(ma.summary, q.key), quantityValue(mb.summary, q.key), "today"),
+    );
   }
-  for (const g of REDSHIFT_GROUPS) for (const q of g.quantities) add(`Redshift table: ${g.title}`, `redshifts[].${q.key}`, q, (ma, mb) => rowsChange(ma, mb, q.key));
+  for (const g of REDSHIFT_GROUPS)
+    for (const q of g.quantities)
+      add(`Redshift table: ${g.title}`, `redshifts[].${q.key}`, q, (ma, mb) => rowsChange(ma, mb, q.key));
   if (b.models[0]?.targets.length || a.models[0]?.targets.length) {
-    for (const q of TARGET_QUANTITIES) add("Targets", `targets[].${q.key}`, q, (ma, mb) => namedChange(ma.targets, mb.targets, q.key));
+    for (const q of TARGET_QUANTITIES)
+      add("Targets", `targets[].${q.key}`, q, (ma, mb) => namedChange(ma.targets, mb.targets, q.key));
   }
   if (b.models[0]?.surveys.length || a.models[0]?.surveys.length) {
-    add("Survey shells", "surveys[].volume_Gpc3", { key: "volume_Gpc3", label: "Shell volume", unit: "Gpc^3" }, (ma, mb) => namedChange(ma.surveys, mb.surveys, "volume_Gpc3"));
-    add("Survey shells", "surveys[].expected_count", { key: "expected_count", label: "Expected count", unit: "" }, (ma, mb) => namedChange(ma.surveys, mb.surveys, "expected_count"));
+    add(
+      "Survey shells",
+      "surveys[].volume_Gpc3",
+      { key: "volume_Gpc3", label: "Shell volume", unit: "Gpc^3" },
+      (ma, mb) => namedChange(ma.surveys, mb.surveys, "volume_Gpc3"),
+    );
+    add(
+      "Survey shells",
+      "surveys[].expected_count",
+      { key: "expected_count", label: "Expected count", unit: "" },
+      (ma, mb) => namedChange(ma.surveys, mb.surveys, "expected_count"),
+    );
   }
   return out;
 }
@@ -162,17 +289,19 @@ export function versionDiff(a: StoredVersionRecord, b: StoredVersionRecord): Ver
   let best: ModelOutputChange | undefined;
   const keysA = quantityKeys(a.tables);
   const keysB = quantityKeys(b.tables);
-  for (const o of outputs) for (const id of common) {
-    const c = o.models[id];
-    if (c.changed && worse(best, c) === c && c !== best) {
-      best = c;
-      largest = { label: o.label, model: id, relative: c.relative, where: c.where };
+  for (const o of outputs)
+    for (const id of common) {
+      const c = o.models[id];
+      if (c.changed && worse(best, c) === c && c !== best) {
+        best = c;
+        largest = { label: o.label, model: id, relative: c.relative, where: c.where };
+      }
     }
-  }
   const constants = new Set([...Object.keys(a.engine.constants), ...Object.keys(b.engine.constants)]);
   const constant = (r: StoredVersionRecord, k: string) => (r.engine.constants as Record<string, unknown>)[k];
   return {
-    from: a.version, to: b.version,
+    from: a.version,
+    to: b.version,
     source: sourceHunks(a.source.text, b.source.text),
     inputs: changes.filter((c) => !isDerived(c)),
     derived: changes.filter(isDerived),
@@ -181,11 +310,15 @@ export function versionDiff(a: StoredVersionRecord, b: StoredVersionRecord): Ver
     commonModels: common.map((id) => ({ id, label: b.tables.models.find((m) => m.id === id)!.label })),
     outputs,
     engine: {
-      before: a.engine.version, after: b.engine.version, changed: a.engine.version !== b.engine.version,
+      before: a.engine.version,
+      after: b.engine.version,
+      changed: a.engine.version !== b.engine.version,
       constantsChanged: [...constants].filter((k) => text(constant(a, k)) !== text(constant(b, k))).sort(),
     },
     format: {
-      before: a.tables.format, after: b.tables.format, changed: tablesFormatOf(a.tables) !== tablesFormatOf(b.tables),
+      before: a.tables.format,
+      after: b.tables.format,
+      changed: tablesFormatOf(a.tables) !== tablesFormatOf(b.tables),
       quantitiesAdded: [...keysB].filter((k) => !keysA.has(k)).sort(),
       quantitiesRemoved: [...keysA].filter((k) => !keysB.has(k)).sort(),
     },

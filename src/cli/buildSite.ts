@@ -7,14 +7,18 @@ import { formatIssue } from "../scenario/scenarioIssue.js";
 
 import { SITE_MARKER } from "./siteMarker.js";
 
-
-
 /**
  * Check and compute every scenario of `scenariosDir`, render them with Eleventy into a temporary folder beside
  * `outDir`, then swap it in. An invalid scenario stops the build (exit 2) before anything is written; a failed or
  * killed build leaves the previous site whole. A non-empty `outDir` that cosmoledger did not create is refused.
  */
-export async function buildSite(scenariosDir: string, outDir: string, quiet: boolean, archiveDir?: string, options: { images?: boolean } = {}): Promise<number> {
+export async function buildSite(
+  scenariosDir: string,
+  outDir: string,
+  quiet: boolean,
+  archiveDir?: string,
+  options: { images?: boolean } = {},
+): Promise<number> {
   const scenarios = resolve(scenariosDir);
   const archive = resolve(archiveDir ?? defaultArchive(scenariosDir));
   const out = resolve(outDir);
@@ -27,13 +31,17 @@ export async function buildSite(scenariosDir: string, outDir: string, quiet: boo
     return 2;
   }
   if (existsSync(out) && !existsSync(join(out, SITE_MARKER)) && readdirSync(out).length > 0) {
-    process.stderr.write(`error: refusing to replace ${outDir}: it is not empty and was not built by cosmoledger (no ${SITE_MARKER}); choose another --out\n`);
+    process.stderr.write(
+      `error: refusing to replace ${outDir}: it is not empty and was not built by cosmoledger (no ${SITE_MARKER}); choose another --out\n`,
+    );
     return 2;
   }
   const { ledger, issues } = readLedger(scenarios, archive, { images: options.images });
   if (!ledger) {
     for (const i of issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
-    process.stderr.write(`${issues.length} problem${issues.length === 1 ? "" : "s"} found; the site was not built and ${outDir} is untouched.\n`);
+    process.stderr.write(
+      `${issues.length} problem${issues.length === 1 ? "" : "s"} found; the site was not built and ${outDir} is untouched.\n`,
+    );
     return 2;
   }
   if (ledger.docs.length === 0) {
@@ -67,7 +75,10 @@ export async function buildSite(scenariosDir: string, outDir: string, quiet: boo
   renameSync(tmp, out);
   rmSync(old, { recursive: true, force: true });
   const frozen = ledger.pages.filter((p) => p.status === "frozen").length;
-  if (!quiet) process.stdout.write(`built ${ledger.docs.length} scenario page${ledger.docs.length === 1 ? "" : "s"} and ${frozen} frozen version page${frozen === 1 ? "" : "s"} into ${outDir}/\n`);
+  if (!quiet)
+    process.stdout.write(
+      `built ${ledger.docs.length} scenario page${ledger.docs.length === 1 ? "" : "s"} and ${frozen} frozen version page${frozen === 1 ? "" : "s"} into ${outDir}/\n`,
+    );
   return 0;
 }
 
@@ -84,7 +95,9 @@ const alive = (pid: number) => {
 function removeAbandonedBuilds(out: string): void {
   const parent = dirname(out);
   if (!existsSync(parent)) return;
-  const pattern = new RegExp(`^${basename(out).replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}\\.(building|previous)-(\\d+)-\\d+$`);
+  const pattern = new RegExp(
+    `^${basename(out).replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}\\.(building|previous)-(\\d+)-\\d+$`,
+  );
   for (const name of readdirSync(parent)) {
     const m = pattern.exec(name);
     if (!m || Number(m[2]) === process.pid || alive(Number(m[2]))) continue;

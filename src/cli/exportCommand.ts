@@ -20,15 +20,25 @@ const fail = (message: string) => {
  * files as the site (tables as csv, json, md, tex, html; charts as png, svg; the assumptions paragraph) for the
  * scenario file, or for its frozen version N, into DIR/<id>/<vN|draft>/ (default DIR out/exports).
  */
-export async function exportCommand(files: string[], options: { version?: string; format?: string[]; out?: string; archive?: string }): Promise<number> {
-  if (files.length !== 1) return fail("cosmoledger export: name exactly one scenario file, e.g. cosmoledger export scenarios/lantern-deep-field.yaml --format tex");
-  const formats = (options.format ?? [EXPORT_FORMATS.join(",")]).flatMap((f) => f.split(",")).map((f) => f.trim()).filter(Boolean);
+export async function exportCommand(
+  files: string[],
+  options: { version?: string; format?: string[]; out?: string; archive?: string },
+): Promise<number> {
+  if (files.length !== 1)
+    return fail(
+      "cosmoledger export: name exactly one scenario file, e.g. cosmoledger export scenarios/lantern-deep-field.yaml --format tex",
+    );
+  const formats = (options.format ?? [EXPORT_FORMATS.join(",")])
+    .flatMap((f) => f.split(","))
+    .map((f) => f.trim())
+    .filter(Boolean);
   const unknown = formats.filter((f) => !(EXPORT_FORMATS as readonly string[]).includes(f));
   if (unknown.length > 0) return fail(`--format ${unknown[0]}: not a format; choose from ${EXPORT_FORMATS.join(", ")}`);
   if (formats.length === 0) return fail(`--format names no format; choose from ${EXPORT_FORMATS.join(", ")}`);
   let wanted: number | null = null;
   if (options.version !== undefined) {
-    if (!/^[1-9][0-9]*$/.test(options.version)) return fail(`--version ${options.version}: expected a version number 1, 2, 3 ...`);
+    if (!/^[1-9][0-9]*$/.test(options.version))
+      return fail(`--version ${options.version}: expected a version number 1, 2, 3 ...`);
     wanted = Number(options.version);
   }
   const file = files[0];
@@ -46,7 +56,10 @@ export async function exportCommand(files: string[], options: { version?: string
   let page: string;
   if (wanted !== null) {
     record = versions.find((v) => v.version === wanted) ?? null;
-    if (!record) return fail(`${scenario.id} has no version ${wanted} in ${displayPath(archive)} (${versions.length ? `versions 1 to ${versions.length}` : "no versions yet"})`);
+    if (!record)
+      return fail(
+        `${scenario.id} has no version ${wanted} in ${displayPath(archive)} (${versions.length ? `versions 1 to ${versions.length}` : "no versions yet"})`,
+      );
     doc = record.tables;
     page = `${scenario.id}/v${wanted}/index.html`;
   } else {
@@ -57,8 +70,14 @@ export async function exportCommand(files: string[], options: { version?: string
     page = `${scenario.id}/index.html`;
   }
   const base = {
-    tool: "cosmoledger", tool_version: TOOL_VERSION, scenario_id: scenario.id, scenario_title: doc.scenario.title,
-    version: record ? record.version : null, version_sha256: record ? record.sha256 : null, inputs_sha256: doc.scenario.inputs_sha256, engine_version: doc.engine.version,
+    tool: "cosmoledger",
+    tool_version: TOOL_VERSION,
+    scenario_id: scenario.id,
+    scenario_title: doc.scenario.title,
+    version: record ? record.version : null,
+    version_sha256: record ? record.sha256 : null,
+    inputs_sha256: doc.scenario.inputs_sha256,
+    engine_version: doc.engine.version,
   };
   const made = exportFiles(doc, base, page, formats as ExportFormat[]);
   const dir = join(options.out ?? join("out", "exports"), scenario.id, record ? `v${record.version}` : "draft");
@@ -70,6 +89,8 @@ export async function exportCommand(files: string[], options: { version?: string
     if (e instanceof OutputRefusedError) return fail(e.message);
     throw e;
   }
-  process.stdout.write(`wrote ${made.files.length} files for ${scenario.id} ${record ? `version ${record.version}` : "(unfrozen draft)"} into ${displayPath(dir)}/\n`);
+  process.stdout.write(
+    `wrote ${made.files.length} files for ${scenario.id} ${record ? `version ${record.version}` : "(unfrozen draft)"} into ${displayPath(dir)}/\n`,
+  );
   return 0;
 }

@@ -12,7 +12,9 @@ import { freezeScenario } from "../archive/freezeScenario.js";
  */
 export function freezeCommand(files: string[], options: { message?: string; archive?: string }): number {
   if (files.length !== 1) {
-    process.stderr.write("cosmoledger freeze: name exactly one scenario file, e.g. cosmoledger freeze scenarios/lantern-deep-field.yaml -m \"why\"\n");
+    process.stderr.write(
+      'cosmoledger freeze: name exactly one scenario file, e.g. cosmoledger freeze scenarios/lantern-deep-field.yaml -m "why"\n',
+    );
     return 2;
   }
   const file = files[0];
@@ -26,15 +28,22 @@ export function freezeCommand(files: string[], options: { message?: string; arch
   const outcome = freezeScenario(archive, scenario, buildTablesDocument(scenario), options.message ?? "");
   if (outcome.kind === "broken") {
     for (const i of outcome.issues) process.stderr.write(`error: ${i.file}: ${i.message}\n`);
-    process.stderr.write(`the archive of ${scenario.id} is damaged; nothing was frozen. Restore the files (for example from git) and run cosmoledger verify.\n`);
+    process.stderr.write(
+      `the archive of ${scenario.id} is damaged; nothing was frozen. Restore the files (for example from git) and run cosmoledger verify.\n`,
+    );
     return 2;
   }
   const where = displayPath(outcome.file);
   const hash = outcome.record.sha256.slice(0, 12);
-  if (outcome.kind === "unchanged") process.stdout.write(`unchanged: ${scenario.id} version ${outcome.record.version} already holds these inputs (${where}, sha256 ${hash}); nothing written\n`);
+  if (outcome.kind === "unchanged")
+    process.stdout.write(
+      `unchanged: ${scenario.id} version ${outcome.record.version} already holds these inputs (${where}, sha256 ${hash}); nothing written\n`,
+    );
   else {
     const revert = outcome.sameInputsAs === null ? "" : `; its inputs are those of version ${outcome.sameInputsAs}`;
-    process.stdout.write(`froze ${scenario.id} version ${outcome.record.version} (sha256 ${hash}) into ${where}${revert}\n`);
+    process.stdout.write(
+      `froze ${scenario.id} version ${outcome.record.version} (sha256 ${hash}) into ${where}${revert}\n`,
+    );
   }
   return 0;
 }

@@ -103,11 +103,22 @@ export async function main(argv: string[]): Promise<number> {
   let parsed;
   try {
     parsed = parseArgs({
-      args: rest, allowPositionals: true, strict: true,
+      args: rest,
+      allowPositionals: true,
+      strict: true,
       options: {
-        help: { type: "boolean", short: "h" }, out: { type: "string" }, json: { type: "boolean" }, quiet: { type: "boolean" }, scenarios: { type: "string" },
-        archive: { type: "string" }, message: { type: "string", short: "m" }, strict: { type: "boolean" },
-        version: { type: "string" }, format: { type: "string", multiple: true }, "skip-images": { type: "boolean" }, verbose: { type: "boolean" },
+        help: { type: "boolean", short: "h" },
+        out: { type: "string" },
+        json: { type: "boolean" },
+        quiet: { type: "boolean" },
+        scenarios: { type: "string" },
+        archive: { type: "string" },
+        message: { type: "string", short: "m" },
+        strict: { type: "boolean" },
+        version: { type: "string" },
+        format: { type: "string", multiple: true },
+        "skip-images": { type: "boolean" },
+        verbose: { type: "boolean" },
       },
     });
   } catch (e) {
@@ -124,12 +135,26 @@ export async function main(argv: string[]): Promise<number> {
       return 2;
     }
     const { buildSite } = await import("./buildSite.js");
-    return buildSite(parsed.values.scenarios ?? "scenarios", parsed.values.out ?? "_site", parsed.values.quiet ?? false, parsed.values.archive, { images: !parsed.values["skip-images"] });
+    return buildSite(
+      parsed.values.scenarios ?? "scenarios",
+      parsed.values.out ?? "_site",
+      parsed.values.quiet ?? false,
+      parsed.values.archive,
+      { images: !parsed.values["skip-images"] },
+    );
   }
-  const known: Record<string, string[]> = { check: ["quiet"], compute: ["out", "json", "quiet"], freeze: ["archive", "message"], verify: ["archive", "strict", "json", "quiet", "verbose"], export: ["version", "format", "out", "archive"] };
+  const known: Record<string, string[]> = {
+    check: ["quiet"],
+    compute: ["out", "json", "quiet"],
+    freeze: ["archive", "message"],
+    verify: ["archive", "strict", "json", "quiet", "verbose"],
+    export: ["version", "format", "out", "archive"],
+  };
   const stray = Object.keys(parsed.values).filter((k) => k !== "help" && !known[command].includes(k));
   if (stray.length > 0) {
-    process.stderr.write(`cosmoledger ${command}: option --${stray[0]} does not apply to this command\n\n${HELP[command]}\n`);
+    process.stderr.write(
+      `cosmoledger ${command}: option --${stray[0]} does not apply to this command\n\n${HELP[command]}\n`,
+    );
     return 2;
   }
   if (command === "freeze") {

@@ -15,7 +15,10 @@ import { TOOL_VERSION } from "../common/toolVersion.js";
 
 /** Scenario files in a folder: *.yaml and *.yml, sorted so builds are deterministic. */
 export function scenarioFiles(dir: string): string[] {
-  return readdirSync(dir).filter((f) => /\.ya?ml$/i.test(f)).sort().map((f) => join(dir, f));
+  return readdirSync(dir)
+    .filter((f) => /\.ya?ml$/i.test(f))
+    .sort()
+    .map((f) => join(dir, f));
 }
 
 /** The archive that belongs to a scenarios folder when none is named: a folder "archive" inside it. */
@@ -25,7 +28,11 @@ export const defaultArchive = (scenariosDir: string) => join(scenariosDir, "arch
  * Reads, validates and computes every scenario of a folder and reads the archive (checking every hash and the
  * chains); either a ledger or the issues that stop the build.
  */
-export function readLedger(dir: string, archiveDir: string = defaultArchive(dir), options: { exports?: boolean; images?: boolean } = {}): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
+export function readLedger(
+  dir: string,
+  archiveDir: string = defaultArchive(dir),
+  options: { exports?: boolean; images?: boolean } = {},
+): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
   const issues: ScenarioIssue[] = [];
   const files: { scenario: ResolvedScenario; doc: TablesDocument }[] = [];
   const seen = new Map<string, string>();
@@ -35,7 +42,13 @@ export function readLedger(dir: string, archiveDir: string = defaultArchive(dir)
     try {
       const scenario = loadScenario(text, shown);
       if (seen.has(scenario.id)) {
-        issues.push({ file: shown, line: 1, column: 1, path: "id", message: `scenario id ${scenario.id} is also used by ${seen.get(scenario.id)}` });
+        issues.push({
+          file: shown,
+          line: 1,
+          column: 1,
+          path: "id",
+          message: `scenario id ${scenario.id} is also used by ${seen.get(scenario.id)}`,
+        });
         continue;
       }
       seen.set(scenario.id, shown);
@@ -51,7 +64,11 @@ export function readLedger(dir: string, archiveDir: string = defaultArchive(dir)
   const renderers = cachedRenderers();
   const formats = options.images === false ? EXPORT_FORMATS.filter((f) => f !== "png" && f !== "svg") : EXPORT_FORMATS;
   const exporter: PageExporter = (doc, base, page) => exportFiles(doc, base, page, formats, renderers);
-  const pages = sitePages(files.map((f) => f.doc), archive.archives, options.exports === false ? null : exporter, TOOL_VERSION);
+  const pages = sitePages(
+    files.map((f) => f.doc),
+    archive.archives,
+    options.exports === false ? null : exporter,
+    TOOL_VERSION,
+  );
   return { ledger: { ...pages, docs: pages.live.map((p) => p.doc), archive: displayPath(archiveDir) }, issues: [] };
 }
-

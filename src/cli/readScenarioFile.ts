@@ -14,7 +14,9 @@ export function readScenarioFile(file: string, nothing: string): ResolvedScenari
   try {
     text = readFileSync(file, "utf8");
   } catch (e) {
-    process.stderr.write(`error: ${shown}:1:1: cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}); ${nothing}.\n`);
+    process.stderr.write(
+      `error: ${shown}:1:1: cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}); ${nothing}.\n`,
+    );
     return null;
   }
   try {

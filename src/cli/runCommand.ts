@@ -10,7 +10,6 @@ import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomic
 
 const PROGRESS_THRESHOLD = 3;
 
-
 function loadAll(files: string[]): { scenarios: ResolvedScenario[]; issues: ScenarioIssue[] } {
   const scenarios: ResolvedScenario[] = [];
   const issues: ScenarioIssue[] = [];
@@ -20,7 +19,13 @@ function loadAll(files: string[]): { scenarios: ResolvedScenario[]; issues: Scen
     try {
       text = readFileSync(file, "utf8");
     } catch (e) {
-      issues.push({ file: shown, line: 1, column: 1, path: "", message: `cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})` });
+      issues.push({
+        file: shown,
+        line: 1,
+        column: 1,
+        path: "",
+        message: `cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`,
+      });
       continue;
     }
     try {
@@ -33,7 +38,14 @@ function loadAll(files: string[]): { scenarios: ResolvedScenario[]; issues: Scen
   const seen = new Map<string, string>();
   for (const s of scenarios) {
     const other = seen.get(s.id);
-    if (other) issues.push({ file: s.source.path, line: 1, column: 1, path: "id", message: `scenario id ${s.id} is also used by ${other}; ids must be unique across the files of one run` });
+    if (other)
+      issues.push({
+        file: s.source.path,
+        line: 1,
+        column: 1,
+        path: "id",
+        message: `scenario id ${s.id} is also used by ${other}; ids must be unique across the files of one run`,
+      });
     else seen.set(s.id, s.source.path);
   }
   return { scenarios, issues };
@@ -45,9 +57,15 @@ function reportIssues(issues: ScenarioIssue[]): number {
   return 2;
 }
 
-export async function runCommand(command: "check" | "compute", files: string[], options: { out?: string; json?: boolean; quiet?: boolean }): Promise<number> {
+export async function runCommand(
+  command: "check" | "compute",
+  files: string[],
+  options: { out?: string; json?: boolean; quiet?: boolean },
+): Promise<number> {
   if (files.length === 0) {
-    process.stderr.write(`cosmoledger ${command}: name at least one scenario file, e.g. cosmoledger ${command} scenarios/*.yaml\n`);
+    process.stderr.write(
+      `cosmoledger ${command}: name at least one scenario file, e.g. cosmoledger ${command} scenarios/*.yaml\n`,
+    );
     return 2;
   }
   const progress = !options.quiet && files.length > PROGRESS_THRESHOLD;
@@ -57,7 +75,9 @@ export async function runCommand(command: "check" | "compute", files: string[], 
     for (const s of scenarios) {
       const warnings = s.models.flatMap((m) => m.warnings.map((w) => `${s.source.path}: model ${m.id}: ${w}`));
       for (const w of warnings) process.stderr.write(`warning: ${w}\n`);
-      process.stdout.write(`ok: ${s.source.path} (${s.id}, ${s.models.length} model${s.models.length === 1 ? "" : "s"})\n`);
+      process.stdout.write(
+        `ok: ${s.source.path} (${s.id}, ${s.models.length} model${s.models.length === 1 ? "" : "s"})\n`,
+      );
     }
     return 0;
   }
@@ -72,7 +92,10 @@ export async function runCommand(command: "check" | "compute", files: string[], 
     const doc = buildTablesDocument(s);
     docs.push(doc);
     if (!options.json) {
-      outputs.push({ dir: join(options.out ?? join("out", "tables"), s.id), files: { "tables.json": JSON.stringify(doc) + "\n", ...tablesCsv(doc) } });
+      outputs.push({
+        dir: join(options.out ?? join("out", "tables"), s.id),
+        files: { "tables.json": JSON.stringify(doc) + "\n", ...tablesCsv(doc) },
+      });
     }
   });
   if (options.json) {
@@ -88,6 +111,7 @@ export async function runCommand(command: "check" | "compute", files: string[], 
     }
     throw e;
   }
-  for (const o of outputs) process.stdout.write(`wrote ${o.dir.split(sep).join("/")}/ (${Object.keys(o.files).length} files)\n`);
+  for (const o of outputs)
+    process.stdout.write(`wrote ${o.dir.split(sep).join("/")}/ (${Object.keys(o.files).length} files)\n`);
   return 0;
 }

@@ -12,9 +12,13 @@ import { ENGINE_TOLERANCE, ENGINE_VERSION } from "../engine/index.js";
 /** Exit status of `verify --strict` when the archive is intact but the current code no longer reproduces it unexplained. */
 export const DRIFT_EXIT = 3;
 
-interface Located extends DriftFinding { scenario: string; version: number }
+interface Located extends DriftFinding {
+  scenario: string;
+  version: number;
+}
 
-const shown = (r: number) => (r === Infinity ? "changed (not a number, or shape)" : r === 0 ? "0 (identical)" : r.toExponential(2));
+const shown = (r: number) =>
+  r === Infinity ? "changed (not a number, or shape)" : r === 0 ? "0 (identical)" : r.toExponential(2);
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
 
 /**
@@ -24,16 +28,26 @@ const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
  * declared engine change explains, and drift that none does. With --strict, unexplained drift, changed resolved
  * inputs or a source that no longer validates fail with exit 3.
  */
-export function verifyCommand(options: { archive?: string; strict?: boolean; json?: boolean; quiet?: boolean; verbose?: boolean }): number {
+export function verifyCommand(options: {
+  archive?: string;
+  strict?: boolean;
+  json?: boolean;
+  quiet?: boolean;
+  verbose?: boolean;
+}): number {
   const dir = options.archive ?? "scenarios/archive";
   if (!existsSync(dir)) {
-    process.stderr.write(`error: no archive at ${displayPath(dir)} (name one with --archive DIR; cosmoledger freeze creates it)\n`);
+    process.stderr.write(
+      `error: no archive at ${displayPath(dir)} (name one with --archive DIR; cosmoledger freeze creates it)\n`,
+    );
     return 2;
   }
   const { archives, issues } = readArchive(dir);
   if (issues.length > 0) {
     for (const i of issues) process.stderr.write(`error: ${i.file}: ${i.message}\n`);
-    process.stderr.write(`${plural(issues.length, "problem")} in the archive ${displayPath(dir)}; it cannot be trusted until the files are restored.\n`);
+    process.stderr.write(
+      `${plural(issues.length, "problem")} in the archive ${displayPath(dir)}; it cannot be trusted until the files are restored.\n`,
+    );
     return 2;
   }
   const total = archives.reduce((n, a) => n + a.versions.length, 0);
@@ -44,69 +58,118 @@ export function verifyCommand(options: { archive?: string; strict?: boolean; jso
   const unexplained: Located[] = [];
   const problems: string[] = [];
   const formats = new Map<string, number>();
-  for (const a of archives) for (const v of a.versions) {
-    const label = `${a.id} v${v.version}`;
-    formats.set(v.tables.format, (formats.get(v.tables.format) ?? 0) + 1);
-    let scenario;
-    try {
-      scenario = loadScenario(v.source.text, v.source.path);
-    } catch (e) {
-      if (!(e instanceof ScenarioInputError)) throw e;
-      problems.push(`${label}: its frozen source no longer passes the current validation: ${e.issues[0].message}`);
-      continue;
+  for (const a of archives)
+    for (const v of a.versions) {
+      const label = `${a.id} v${v.version}`;
+      formats.set(v.tables.format, (formats.get(v.tables.format) ?? 0) + 1);
+      let scenario;
+      try {
+        scenario = loadScenario(v.source.text, v.source.path);
+      } catch (e) {
+        if (!(e instanceof ScenarioInputError)) throw e;
+        problems.push(`${label}: its frozen source no longer passes the current validation: ${e.issues[0].message}`);
+        continue;
+      }
+      if (canonicalize(frozenInputs(scenario)) !== canonicalize(v.inputs))
+        problems.push(
+          `${label}: the current resolver gives different inputs (a default or an inheritance rule changed)`,
+        );
+      const c = compareWithRecomputed(v.tables, buildTablesDocument(scenario));
+      for (const q of c.added) added.set(q, [...(added.get(q) ?? []), label]);
+      for (const q of c.removed) removed.set(q, [...(removed.get(q) ?? []), label]);
+      for (const s of c.shape) problems.push(`${label}: ${s}`);
+      for (const l of c.largest) {
+        const seen = largest.get(l.quantity);
+        if (!seen || l.relative > seen.relative)
+          largest.set(l.quantity, { quantity: l.quantity, relative: l.relative, at: `${label} ${l.model} ${l.where}` });
+      }
+      for (const d of c.drift)
+        (d.explainedBy ? explained : unexplained).push({ ...d, scenario: a.id, version: v.version });
     }
-    if (canonicalize(frozenInputs(scenario)) !== canonicalize(v.inputs)) problems.push(`${label}: the current resolver gives different inputs (a default or an inheritance rule changed)`);
-    const c = compareWithRecomputed(v.tables, buildTablesDocument(scenario));
-    for (const q of c.added) added.set(q, [...(added.get(q) ?? []), label]);
-    for (const q of c.removed) removed.set(q, [...(removed.get(q) ?? []), label]);
-    for (const s of c.shape) problems.push(`${label}: ${s}`);
-    for (const l of c.largest) {
-      const seen = largest.get(l.quantity);
-      if (!seen || l.relative > seen.relative) largest.set(l.quantity, { quantity: l.quantity, relative: l.relative, at: `${label} ${l.model} ${l.where}` });
-    }
-    for (const d of c.drift) (d.explainedBy ? explained : unexplained).push({ ...d, scenario: a.id, version: v.version });
-  }
   const worstFirst = (x: Located, y: Located) => y.relative - x.relative || (x.quantity < y.quantity ? -1 : 1);
   explained.sort(worstFirst);
   unexplained.sort(worstFirst);
-  const findings = [...problems, ...unexplained.map((d) => `${d.scenario} v${d.version}: ${d.model}: ${d.quantity} drifts by ${shown(d.relative)} at ${d.where} (${JSON.stringify(d.before)} -> ${JSON.stringify(d.after)}); no declared engine change explains it`)];
+  const findings = [
+    ...problems,
+    ...unexplained.map(
+      (d) =>
+        `${d.scenario} v${d.version}: ${d.model}: ${d.quantity} drifts by ${shown(d.relative)} at ${d.where} (${JSON.stringify(d.before)} -> ${JSON.stringify(d.after)}); no declared engine change explains it`,
+    ),
+  ];
   const rows = [...largest.values()].sort((x, y) => y.relative - x.relative || (x.quantity < y.quantity ? -1 : 1));
   if (options.json) {
-    process.stdout.write(JSON.stringify({
-      archive: displayPath(dir), versions: total, engine: ENGINE_VERSION, tolerance: ENGINE_TOLERANCE,
-      formats: Object.fromEntries([...formats].sort()),
-      added: [...added].map(([quantity, versions]) => ({ quantity, versions })),
-      removed: [...removed].map(([quantity, versions]) => ({ quantity, versions })),
-      explained: explained.map((d) => ({ scenario: d.scenario, version: d.version, model: d.model, quantity: d.quantity, relative: d.relative, where: d.where, change: d.explainedBy!.id, since: d.explainedBy!.engine_version, why: d.explainedBy!.why })),
-      unexplained: unexplained.map(({ explainedBy: _e, ...d }) => d),
-      quantities: rows, problems: findings,
-    }) + "\n");
+    process.stdout.write(
+      JSON.stringify({
+        archive: displayPath(dir),
+        versions: total,
+        engine: ENGINE_VERSION,
+        tolerance: ENGINE_TOLERANCE,
+        formats: Object.fromEntries([...formats].sort()),
+        added: [...added].map(([quantity, versions]) => ({ quantity, versions })),
+        removed: [...removed].map(([quantity, versions]) => ({ quantity, versions })),
+        explained: explained.map((d) => ({
+          scenario: d.scenario,
+          version: d.version,
+          model: d.model,
+          quantity: d.quantity,
+          relative: d.relative,
+          where: d.where,
+          change: d.explainedBy!.id,
+          since: d.explainedBy!.engine_version,
+          why: d.explainedBy!.why,
+        })),
+        unexplained: unexplained.map(({ explainedBy: _e, ...d }) => d),
+        quantities: rows,
+        problems: findings,
+      }) + "\n",
+    );
   } else {
     const out = (s: string) => process.stdout.write(s + "\n");
-    out(`archive ${displayPath(dir)}: ${plural(archives.length, "scenario")}, ${plural(total, "version")} (${[...formats].sort().map(([f, n]) => `${n} of ${f}`).join(", ") || "none"}); every hash and chain link checks out`);
+    out(
+      `archive ${displayPath(dir)}: ${plural(archives.length, "scenario")}, ${plural(total, "version")} (${
+        [...formats]
+          .sort()
+          .map(([f, n]) => `${n} of ${f}`)
+          .join(", ") || "none"
+      }); every hash and chain link checks out`,
+    );
     if (!options.quiet && total > 0) {
       const within = rows.filter((r) => r.relative <= ENGINE_TOLERANCE);
-      out(`recomputed with engine ${ENGINE_VERSION}: ${within.length} of ${rows.length} quantities reproduce within ${ENGINE_TOLERANCE}${within.length ? ` (largest ${Math.max(...within.map((r) => r.relative)) === 0 ? "0: bit-identical" : shown(Math.max(...within.map((r) => r.relative)))})` : ""}`);
-      for (const [q, vs] of added) out(`  added since frozen (not drift): ${q} (not computed in ${vs.length === 1 ? vs[0] : plural(vs.length, "version")})`);
-      for (const [q, vs] of removed) out(`  no longer computed: ${q} (stored in ${vs.length === 1 ? vs[0] : plural(vs.length, "version")})`);
+      out(
+        `recomputed with engine ${ENGINE_VERSION}: ${within.length} of ${rows.length} quantities reproduce within ${ENGINE_TOLERANCE}${within.length ? ` (largest ${Math.max(...within.map((r) => r.relative)) === 0 ? "0: bit-identical" : shown(Math.max(...within.map((r) => r.relative)))})` : ""}`,
+      );
+      for (const [q, vs] of added)
+        out(
+          `  added since frozen (not drift): ${q} (not computed in ${vs.length === 1 ? vs[0] : plural(vs.length, "version")})`,
+        );
+      for (const [q, vs] of removed)
+        out(`  no longer computed: ${q} (stored in ${vs.length === 1 ? vs[0] : plural(vs.length, "version")})`);
       const byChange = new Map<string, Located[]>();
       for (const d of explained) byChange.set(d.explainedBy!.id, [...(byChange.get(d.explainedBy!.id) ?? []), d]);
       for (const [id, ds] of byChange) {
         const c = ds[0].explainedBy!;
-        out(`  explained drift: ${plural(ds.length, "value")} in ${[...new Set(ds.map((d) => d.quantity))].join(", ")}, largest ${shown(ds[0].relative)} (${ds[0].scenario} v${ds[0].version} ${ds[0].model}): declared change ${id} from engine ${c.engine_version} (${c.models}): ${c.why}`);
+        out(
+          `  explained drift: ${plural(ds.length, "value")} in ${[...new Set(ds.map((d) => d.quantity))].join(", ")}, largest ${shown(ds[0].relative)} (${ds[0].scenario} v${ds[0].version} ${ds[0].model}): declared change ${id} from engine ${c.engine_version} (${c.models}): ${c.why}`,
+        );
       }
       if (options.verbose) {
         out(`largest relative change per quantity present in both (tolerance ${ENGINE_TOLERANCE}):`);
         const width = Math.max(...rows.map((r) => r.quantity.length));
-        for (const r of rows) out(`  ${r.quantity.padEnd(width)}  ${shown(r.relative)}${r.relative > 0 ? `  (${r.at})` : ""}`);
+        for (const r of rows)
+          out(`  ${r.quantity.padEnd(width)}  ${shown(r.relative)}${r.relative > 0 ? `  (${r.at})` : ""}`);
       }
     }
   }
   for (const p of findings) process.stderr.write(`${options.strict ? "error" : "warning"}: ${p}\n`);
   if (findings.length === 0) {
-    if (!options.json) process.stdout.write(`every archived number reproduces within ${ENGINE_TOLERANCE}${explained.length ? " or by a declared engine change" : ""}\n`);
+    if (!options.json)
+      process.stdout.write(
+        `every archived number reproduces within ${ENGINE_TOLERANCE}${explained.length ? " or by a declared engine change" : ""}\n`,
+      );
     return 0;
   }
-  process.stderr.write(`${plural(findings.length, "finding")}: archived numbers would not all reproduce under the current code${options.strict ? "" : " (use --strict to fail on this)"}\n`);
+  process.stderr.write(
+    `${plural(findings.length, "finding")}: archived numbers would not all reproduce under the current code${options.strict ? "" : " (use --strict to fail on this)"}\n`,
+  );
   return options.strict ? DRIFT_EXIT : 0;
 }

@@ -1,4 +1,16 @@
-import { closeSync, existsSync, fsyncSync, lstatSync, mkdirSync, openSync, readFileSync, readdirSync, renameSync, rmSync, writeFileSync } from "node:fs";
+import {
+  closeSync,
+  existsSync,
+  fsyncSync,
+  lstatSync,
+  mkdirSync,
+  openSync,
+  readFileSync,
+  readdirSync,
+  renameSync,
+  rmSync,
+  writeFileSync,
+} from "node:fs";
 import { randomBytes } from "node:crypto";
 import { basename, dirname, join } from "node:path";
 
@@ -7,7 +19,15 @@ export const OUTPUT_MARKER = ".cosmoledger-output";
 const MARKER_HEADER = "Written by cosmoledger; this folder is replaced as a whole by the next run. Files it wrote:";
 /** What releases before the manifest wrote in the marker; their folders held only these names. */
 const LEGACY_MARKER = "Written by cosmoledger; files here are regenerated.";
-const LEGACY_NAMES = ["tables.json", "parameters.csv", "summary.csv", "redshifts.csv", "differences.csv", "targets.csv", "surveys.csv"];
+const LEGACY_NAMES = [
+  "tables.json",
+  "parameters.csv",
+  "summary.csv",
+  "redshifts.csv",
+  "differences.csv",
+  "targets.csv",
+  "surveys.csv",
+];
 
 export class OutputRefusedError extends Error {}
 
@@ -33,7 +53,10 @@ function fsyncPath(path: string, flags: string): void {
 function namesWeWrote(dir: string): Set<string> | null {
   const marker = join(dir, OUTPUT_MARKER);
   if (!existsSync(marker)) return null;
-  const lines = readFileSync(marker, "utf8").split("\n").map((l) => l.trim()).filter(Boolean);
+  const lines = readFileSync(marker, "utf8")
+    .split("\n")
+    .map((l) => l.trim())
+    .filter(Boolean);
   if (lines[0] === LEGACY_MARKER) return new Set([OUTPUT_MARKER, ...LEGACY_NAMES]);
   if (lines[0] !== MARKER_HEADER) return null;
   return new Set([OUTPUT_MARKER, ...lines.slice(1)]);
@@ -42,13 +65,16 @@ function namesWeWrote(dir: string): Set<string> | null {
 /** Why an existing output folder may not be replaced, or null when it may (absent, empty, or entirely ours). */
 function refusal(dir: string): string | null {
   if (!existsSync(dir)) return null;
-  if (!lstatSync(dir).isDirectory()) return `refusing to write ${dir}: it exists and is not a folder; choose another --out`;
+  if (!lstatSync(dir).isDirectory())
+    return `refusing to write ${dir}: it exists and is not a folder; choose another --out`;
   const names = readdirSync(dir);
   if (names.length === 0) return null;
   const ours = namesWeWrote(dir);
-  if (!ours) return `refusing to write into ${dir}: it exists, is not empty and was not created by cosmoledger (no ${OUTPUT_MARKER} file); choose another --out`;
+  if (!ours)
+    return `refusing to write into ${dir}: it exists, is not empty and was not created by cosmoledger (no ${OUTPUT_MARKER} file); choose another --out`;
   const foreign = names.filter((n) => !ours.has(n) && !/\.tmp-\d+-\d+$/.test(n));
-  if (foreign.length > 0) return `refusing to replace ${dir}: it holds ${foreign.map((n) => join(dir, n)).join(", ")}, which cosmoledger did not write; move it away or choose another --out`;
+  if (foreign.length > 0)
+    return `refusing to replace ${dir}: it holds ${foreign.map((n) => join(dir, n)).join(", ")}, which cosmoledger did not write; move it away or choose another --out`;
   return null;
 }
 

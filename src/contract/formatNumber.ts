@@ -1,10 +1,26 @@
 /** Significant digits shown on the pages: the engine is accurate to 1e-10, so all six are supported. */
 export const DISPLAY_DIGITS = 6;
 
-const SUPERSCRIPT: Record<string, string> = { "-": "\u207b", "0": "\u2070", "1": "\u00b9", "2": "\u00b2", "3": "\u00b3", "4": "\u2074", "5": "\u2075", "6": "\u2076", "7": "\u2077", "8": "\u2078", "9": "\u2079" };
+const SUPERSCRIPT: Record<string, string> = {
+  "-": "\u207b",
+  "0": "\u2070",
+  "1": "\u00b9",
+  "2": "\u00b2",
+  "3": "\u00b3",
+  "4": "\u2074",
+  "5": "\u2075",
+  "6": "\u2076",
+  "7": "\u2077",
+  "8": "\u2078",
+  "9": "\u2079",
+};
 
 /** A number's printed parts: sign, digits and (for scientific notation) the power of ten; null for no number. */
-export interface NumberParts { negative: boolean; mantissa: string; exponent: number | null }
+export interface NumberParts {
+  negative: boolean;
+  mantissa: string;
+  exponent: number | null;
+}
 
 /**
  * The digits a page prints for `x` rounded to `digits` significant figures: fixed notation for 1e-3 <= |x| < 1e6,
@@ -34,7 +50,10 @@ export function partsText(p: NumberParts | null): string {
   if (p === null) return "\u2014";
   const sign = p.negative ? "\u2212" : "";
   if (p.exponent === null) return sign + p.mantissa;
-  const e = String(p.exponent).split("").map((c) => SUPERSCRIPT[c] ?? c).join("");
+  const e = String(p.exponent)
+    .split("")
+    .map((c) => SUPERSCRIPT[c] ?? c)
+    .join("");
   return `${sign}${p.mantissa} \u00d7 10${e}`;
 }
 

@@ -17,7 +17,8 @@ export const VERSION_FORMAT = `${VERSION_FORMAT_PREFIX}2` as const;
 export type FormatFamily = "tables" | "version";
 
 const prefixOf = (family: FormatFamily) => (family === "tables" ? TABLES_FORMAT_PREFIX : VERSION_FORMAT_PREFIX);
-const numbersOf = (family: FormatFamily): readonly number[] => (family === "tables" ? TABLES_FORMAT_NUMBERS : VERSION_FORMAT_NUMBERS);
+const numbersOf = (family: FormatFamily): readonly number[] =>
+  family === "tables" ? TABLES_FORMAT_NUMBERS : VERSION_FORMAT_NUMBERS;
 
 /** The number N of a declared format "cosmoledger.<family>/N", or null when the value is not such a name. */
 export function formatNumber(declared: unknown, family: FormatFamily): number | null {
@@ -34,8 +35,10 @@ export function unreadableFormat(declared: unknown, family: FormatFamily): strin
   const n = formatNumber(declared, family);
   const known = numbersOf(family);
   const range = `${prefixOf(family)}${known[0]} to ${prefixOf(family)}${known.at(-1)}`;
-  if (n === null) return `not a cosmoledger ${family === "tables" ? "tables document" : "version record"} (format ${JSON.stringify(declared ?? null)}; this release reads ${range})`;
-  if (n > known.at(-1)!) return `written by a newer cosmoledger (format ${declared}; this release reads ${range}); upgrade cosmoledger to read it`;
+  if (n === null)
+    return `not a cosmoledger ${family === "tables" ? "tables document" : "version record"} (format ${JSON.stringify(declared ?? null)}; this release reads ${range})`;
+  if (n > known.at(-1)!)
+    return `written by a newer cosmoledger (format ${declared}; this release reads ${range}); upgrade cosmoledger to read it`;
   if (!known.includes(n)) return `format ${declared} was never released`;
   return null;
 }

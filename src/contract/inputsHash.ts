@@ -7,8 +7,14 @@ const sha256 = (text: string) => createHash("sha256").update(text, "utf8").diges
 /** The part of the resolved inputs that identifies a version: physics and tables inputs, not title or prose. */
 function identity(engineVersion: string, inputs: ResolvedInputsRecord) {
   return {
-    engine: engineVersion, id: inputs.id, baseline: inputs.baseline, redshifts: inputs.redshifts, grid: inputs.grid,
-    models: inputs.models.map((m) => ({ id: m.id, extends: m.extends, inputs: m.inputs })), targets: inputs.targets, surveys: inputs.surveys,
+    engine: engineVersion,
+    id: inputs.id,
+    baseline: inputs.baseline,
+    redshifts: inputs.redshifts,
+    grid: inputs.grid,
+    models: inputs.models.map((m) => ({ id: m.id, extends: m.extends, inputs: m.inputs })),
+    targets: inputs.targets,
+    surveys: inputs.surveys,
   };
 }
 

@@ -4,11 +4,17 @@ import type { ModelParameters, RowKey, SummaryKey, SurveyKey, TargetKey } from "
  * How each quantity of the tables document is named, grouped and united on pages, exports and diffs (display only;
  * no physics). Keys are typed by the contract generated from the newest schema, so a misspelled key fails the type check.
  */
-export interface QuantityInfo<K extends string = string> { key: K; label: string; unit: string }
+export interface QuantityInfo<K extends string = string> {
+  key: K;
+  label: string;
+  unit: string;
+}
 
 export const REDSHIFT_GROUPS: { title: string; id: string; quantities: QuantityInfo<RowKey>[] }[] = [
   {
-    title: "Distances", id: "distances", quantities: [
+    title: "Distances",
+    id: "distances",
+    quantities: [
       { key: "comoving_distance_Mpc", label: "Comoving distance D_C", unit: "Mpc" },
       { key: "transverse_comoving_distance_Mpc", label: "Transverse comoving distance D_M", unit: "Mpc" },
       { key: "angular_diameter_distance_Mpc", label: "Angular-diameter distance D_A", unit: "Mpc" },
@@ -17,14 +23,18 @@ export const REDSHIFT_GROUPS: { title: string; id: string; quantities: QuantityI
     ],
   },
   {
-    title: "Times", id: "times", quantities: [
+    title: "Times",
+    id: "times",
+    quantities: [
       { key: "lookback_time_Gyr", label: "Lookback time", unit: "Gyr" },
       { key: "age_Gyr", label: "Age at z", unit: "Gyr" },
       { key: "light_travel_distance_Gly", label: "Light-travel distance", unit: "Gly" },
     ],
   },
   {
-    title: "Scales and volumes", id: "scales", quantities: [
+    title: "Scales and volumes",
+    id: "scales",
+    quantities: [
       { key: "kpc_per_arcsec_proper", label: "Proper scale", unit: "kpc/arcsec" },
       { key: "kpc_per_arcsec_comoving", label: "Comoving scale", unit: "kpc/arcsec" },
       { key: "comoving_volume_Gpc3", label: "Comoving volume inside z (full sky)", unit: "Gpc^3" },
@@ -32,7 +42,9 @@ export const REDSHIFT_GROUPS: { title: string; id: string; quantities: QuantityI
     ],
   },
   {
-    title: "Expansion and horizons", id: "expansion", quantities: [
+    title: "Expansion and horizons",
+    id: "expansion",
+    quantities: [
       { key: "H_km_s_Mpc", label: "Hubble rate H(z)", unit: "km/s/Mpc" },
       { key: "H_over_1pz_km_s_Mpc", label: "H(z)/(1+z)", unit: "km/s/Mpc" },
       { key: "E", label: "E(z) = H/H0", unit: "" },
@@ -42,7 +54,9 @@ export const REDSHIFT_GROUPS: { title: string; id: string; quantities: QuantityI
     ],
   },
   {
-    title: "BAO distance ratios", id: "bao", quantities: [
+    title: "BAO distance ratios",
+    id: "bao",
+    quantities: [
       { key: "D_M_over_r_drag", label: "D_M / r_drag", unit: "" },
       { key: "D_H_over_r_drag", label: "D_H / r_drag", unit: "" },
       { key: "D_V_over_r_drag", label: "D_V / r_drag", unit: "" },
@@ -87,13 +101,38 @@ export const PARAMETERS: QuantityInfo<keyof ModelParameters>[] = [
 /** Early-universe quantities; the source of each fitting formula is named on the page. */
 export const EARLY_QUANTITIES: (QuantityInfo<SummaryKey> & { method: string })[] = [
   { key: "z_recombination", label: "Decoupling redshift z*", unit: "", method: "fitting formula, Hu & Sugiyama 1996" },
-  { key: "z_drag", label: "Drag-epoch redshift z_drag", unit: "", method: "fitting formula, Eisenstein & Hu 1998 (approximate, a few % low)" },
-  { key: "sound_horizon_recombination_Mpc", label: "Sound horizon at z*, r*", unit: "Mpc", method: "integral of c_s/H" },
-  { key: "sound_horizon_drag_Mpc", label: "Sound horizon at drag, r_drag", unit: "Mpc", method: "calibrated formula, Aubourg et al. 2015 eq. 16" },
-  { key: "sound_horizon_drag_integral_Mpc", label: "r_drag as the integral to z_drag", unit: "Mpc", method: "integral of c_s/H at the fitted z_drag" },
+  {
+    key: "z_drag",
+    label: "Drag-epoch redshift z_drag",
+    unit: "",
+    method: "fitting formula, Eisenstein & Hu 1998 (approximate, a few % low)",
+  },
+  {
+    key: "sound_horizon_recombination_Mpc",
+    label: "Sound horizon at z*, r*",
+    unit: "Mpc",
+    method: "integral of c_s/H",
+  },
+  {
+    key: "sound_horizon_drag_Mpc",
+    label: "Sound horizon at drag, r_drag",
+    unit: "Mpc",
+    method: "calibrated formula, Aubourg et al. 2015 eq. 16",
+  },
+  {
+    key: "sound_horizon_drag_integral_Mpc",
+    label: "r_drag as the integral to z_drag",
+    unit: "Mpc",
+    method: "integral of c_s/H at the fitted z_drag",
+  },
   { key: "theta_star_100", label: "100 theta* = 100 r*/D_M(z*)", unit: "", method: "ratio" },
   { key: "transverse_comoving_distance_recombination_Mpc", label: "D_M(z*)", unit: "Mpc", method: "integral" },
-  { key: "z_matter_radiation_equality", label: "Matter-radiation equality z_eq", unit: "", method: "root of rho_m = rho_r" },
+  {
+    key: "z_matter_radiation_equality",
+    label: "Matter-radiation equality z_eq",
+    unit: "",
+    method: "root of rho_m = rho_r",
+  },
   { key: "k_eq_1_Mpc", label: "k_eq = a_eq H(a_eq)/c", unit: "1/Mpc", method: "from z_eq" },
 ];
 
@@ -126,7 +165,16 @@ export const CHART_SERIES: QuantityInfo<RowKey>[] = [
 
 /** The charts of a scenario page; each offers the listed grid series (the first is shown by default). "bao" needs a baryon density. */
 export const CHARTS: { id: string; title: string; keys: RowKey[] }[] = [
-  { id: "distances", title: "Distances", keys: ["comoving_distance_Mpc", "transverse_comoving_distance_Mpc", "angular_diameter_distance_Mpc", "luminosity_distance_Mpc"] },
+  {
+    id: "distances",
+    title: "Distances",
+    keys: [
+      "comoving_distance_Mpc",
+      "transverse_comoving_distance_Mpc",
+      "angular_diameter_distance_Mpc",
+      "luminosity_distance_Mpc",
+    ],
+  },
   { id: "expansion", title: "Expansion rate H(z)/(1+z)", keys: ["H_over_1pz_km_s_Mpc"] },
   { id: "times", title: "Age and lookback time", keys: ["age_Gyr", "lookback_time_Gyr"] },
   { id: "scale", title: "Proper scale", keys: ["kpc_per_arcsec_proper"] },
@@ -136,8 +184,13 @@ export const CHARTS: { id: string; title: string; keys: RowKey[] }[] = [
 
 /** The catalogue as one document can show it: only the quantities its format holds, and those it lacks. */
 export interface DocumentCatalog {
-  REDSHIFT_GROUPS: typeof REDSHIFT_GROUPS; SUMMARY_QUANTITIES: typeof SUMMARY_QUANTITIES; PARAMETERS: typeof PARAMETERS;
-  EARLY_QUANTITIES: typeof EARLY_QUANTITIES; TARGET_QUANTITIES: typeof TARGET_QUANTITIES; CHART_SERIES: typeof CHART_SERIES; CHARTS: typeof CHARTS;
+  REDSHIFT_GROUPS: typeof REDSHIFT_GROUPS;
+  SUMMARY_QUANTITIES: typeof SUMMARY_QUANTITIES;
+  PARAMETERS: typeof PARAMETERS;
+  EARLY_QUANTITIES: typeof EARLY_QUANTITIES;
+  TARGET_QUANTITIES: typeof TARGET_QUANTITIES;
+  CHART_SERIES: typeof CHART_SERIES;
+  CHARTS: typeof CHARTS;
   /** Catalogue quantities that the document's format does not have ("not computed in this version"), by label. */
   notComputed: string[];
 }
@@ -146,15 +199,26 @@ export interface DocumentCatalog {
  * Filters the catalogue to the quantities a stored document holds (read from its first model), so that pages and
  * exports of an older format leave out a quantity added later instead of showing a blank that looks like a null.
  */
-export function catalogFor(doc: { models: readonly { summary: object; redshifts: readonly object[]; grid: object; targets: readonly object[]; parameters: object }[] }): DocumentCatalog {
+export function catalogFor(doc: {
+  models: readonly {
+    summary: object;
+    redshifts: readonly object[];
+    grid: object;
+    targets: readonly object[];
+    parameters: object;
+  }[];
+}): DocumentCatalog {
   const m = doc.models[0];
   const rowKeys = new Set(Object.keys(m.grid));
-  const has = (o: object | undefined, keys: Set<string> | null, k: string) => (keys ? keys.has(k) : o !== undefined && k in o);
+  const has = (o: object | undefined, keys: Set<string> | null, k: string) =>
+    keys ? keys.has(k) : o !== undefined && k in o;
   const notComputed: string[] = [];
   const keep = <Q extends QuantityInfo>(list: Q[], present: (k: string) => boolean): Q[] =>
     list.filter((q) => present(q.key) || (notComputed.includes(q.label) || notComputed.push(q.label), false));
   const row = (k: string) => has(undefined, rowKeys, k);
-  const groups = REDSHIFT_GROUPS.map((g) => ({ ...g, quantities: keep(g.quantities, row) })).filter((g) => g.quantities.length > 0);
+  const groups = REDSHIFT_GROUPS.map((g) => ({ ...g, quantities: keep(g.quantities, row) })).filter(
+    (g) => g.quantities.length > 0,
+  );
   return {
     REDSHIFT_GROUPS: groups,
     SUMMARY_QUANTITIES: keep(SUMMARY_QUANTITIES, (k) => k in m.summary),

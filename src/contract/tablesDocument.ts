@@ -39,6 +39,9 @@ export type SurveyKey = keyof SurveyRow;
  * A quantity of a stored record: its value, or undefined when the record's format does not have the quantity
  * ("not computed in this version"), which is never the same as null (computed: undefined or infinite).
  */
-export function quantityValue(record: object, key: RowKey | SummaryKey | TargetKey | SurveyKey): Num | string | undefined {
+export function quantityValue(
+  record: object,
+  key: RowKey | SummaryKey | TargetKey | SurveyKey,
+): Num | string | undefined {
   return key in record ? (record as Record<string, Num | string>)[key] : undefined;
 }

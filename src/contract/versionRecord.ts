@@ -3,7 +3,12 @@ import canonicalize from "canonicalize";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import { formatNumber, VERSION_FORMAT } from "./formats.js";
 import { inputsSha256UnderFormat } from "./inputsHash.js";
-import type { ResolvedInputsRecord, StoredTablesDocument, TablesDocument, TablesDocumentFormat1 } from "./tablesDocument.js";
+import type {
+  ResolvedInputsRecord,
+  StoredTablesDocument,
+  TablesDocument,
+  TablesDocumentFormat1,
+} from "./tablesDocument.js";
 
 export { VERSION_FORMAT };
 
@@ -30,7 +35,9 @@ export interface VersionRecordFormat1 extends VersionEnvelope {
 }
 
 /** Format 2: names the release that froze it, and embeds a tables document of format 2 or later (`T`). */
-export interface VersionRecordFormat2<T extends Exclude<StoredTablesDocument, TablesDocumentFormat1> = Exclude<StoredTablesDocument, TablesDocumentFormat1>> extends VersionEnvelope {
+export interface VersionRecordFormat2<
+  T extends Exclude<StoredTablesDocument, TablesDocumentFormat1> = Exclude<StoredTablesDocument, TablesDocumentFormat1>,
+> extends VersionEnvelope {
   format: "cosmoledger.version/2";
   tool: { name: "cosmoledger"; version: string };
   engine: T["engine"];
@@ -57,8 +64,16 @@ export function versionHash(record: object): string {
 }
 
 /** Assembles a version record of the current format and seals it with its hash. */
-export function sealVersion(fields: Omit<VersionRecord, "sha256" | "format" | "engine" | "tool">, toolVersion: string): VersionRecord {
-  const content = { format: VERSION_FORMAT, ...fields, tool: { name: "cosmoledger" as const, version: toolVersion }, engine: fields.tables.engine };
+export function sealVersion(
+  fields: Omit<VersionRecord, "sha256" | "format" | "engine" | "tool">,
+  toolVersion: string,
+): VersionRecord {
+  const content = {
+    format: VERSION_FORMAT,
+    ...fields,
+    tool: { name: "cosmoledger" as const, version: toolVersion },
+    engine: fields.tables.engine,
+  };
   return { ...content, sha256: versionHash(content) };
 }
 

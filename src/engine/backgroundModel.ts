@@ -14,7 +14,10 @@ export const DEFAULT_N_EFF = 3.044;
 export type Geometry = "flat" | "open" | "closed";
 
 /** How the curvature of a model is fixed: exactly one of these. */
-export type CurvatureSpec = { kind: "flat" } | { kind: "Omega_k"; Omega_k: number } | { kind: "Omega_de"; Omega_de: number };
+export type CurvatureSpec =
+  | { kind: "flat" }
+  | { kind: "Omega_k"; Omega_k: number }
+  | { kind: "Omega_de"; Omega_de: number };
 
 /** Radiation: photons at T_cmb plus N_eff massless neutrino species, or none at all. */
 export type RadiationSpec = { T_cmb_K: number; N_eff: number } | null;
@@ -79,7 +82,8 @@ export function makeBackgroundModel(input: BackgroundModelInput): BackgroundMode
   const Omega_gamma = radiation ? photonDensityParameter(radiation.T_cmb_K, H0_km_s_Mpc) : 0;
   const masses = (input.m_nu_eV ?? []).filter((m) => m > 0);
   if (masses.length > 3) throw new RangeError("at most three neutrino species can be massive");
-  if (masses.length > 0 && !radiation) throw new RangeError("massive neutrinos need thermal radiation (their temperature follows T_cmb)");
+  if (masses.length > 0 && !radiation)
+    throw new RangeError("massive neutrinos need thermal radiation (their temperature follows T_cmb)");
   // Convention: each massive species carries N_eff/3 of the early relativistic neutrino density, at temperature
   // T_nu = (4/11)^(1/3) T_cmb (instantaneous decoupling), and turns non-relativistic following the exact
   // Fermi-Dirac energy integral. The massless species share the rest.
@@ -93,11 +97,17 @@ export function makeBackgroundModel(input: BackgroundModelInput): BackgroundMode
   }));
   const Omega_nu_massive = massiveNeutrinos.reduce((sum, n) => sum + n.Omega_rel * Math.exp(lnEnergyRatio(n.lnY0)), 0);
   const Omega_cb = Omega_m - Omega_nu_massive;
-  if (Omega_cb < 0) throw new RangeError(`Omega_m = ${Omega_m} is smaller than the massive-neutrino density ${Omega_nu_massive.toPrecision(4)}`);
+  if (Omega_cb < 0)
+    throw new RangeError(
+      `Omega_m = ${Omega_m} is smaller than the massive-neutrino density ${Omega_nu_massive.toPrecision(4)}`,
+    );
   const h = H0_km_s_Mpc / 100;
   const b = input.baryons ?? null;
   const Omega_b = b === null ? null : "Omega_b" in b ? b.Omega_b : b.omega_b / (h * h);
-  if (Omega_b !== null && Omega_b > Omega_cb) throw new RangeError(`Omega_b = ${Omega_b.toPrecision(6)} exceeds the cold matter plus baryons ${Omega_cb.toPrecision(6)}`);
+  if (Omega_b !== null && Omega_b > Omega_cb)
+    throw new RangeError(
+      `Omega_b = ${Omega_b.toPrecision(6)} exceeds the cold matter plus baryons ${Omega_cb.toPrecision(6)}`,
+    );
   const Omega_r = Omega_gamma + Omega_nu;
   let Omega_de: number;
   let Omega_k: number;

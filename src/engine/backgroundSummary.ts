@@ -67,8 +67,12 @@ export function backgroundSummary(model: BackgroundModel): SummaryResult {
   let event: number;
   if (aMax === null) event = future.conformalToTurnaround * DH;
   else event = (past.conformalAge0 + 2 * future.conformalToTurnaround) * DH;
-  if (!Number.isFinite(age)) warnings.push("infinite age: the scale factor reaches zero only as t -> -infinity, so age, lookback-free ages and the particle horizon are not defined");
-  else if (!Number.isFinite(particle)) warnings.push("the particle horizon is infinite: light from every comoving distance has had time to arrive");
+  if (!Number.isFinite(age))
+    warnings.push(
+      "infinite age: the scale factor reaches zero only as t -> -infinity, so age, lookback-free ages and the particle horizon are not defined",
+    );
+  else if (!Number.isFinite(particle))
+    warnings.push("the particle horizon is infinite: light from every comoving distance has had time to arrive");
 
   let closedVolume: number | null = null;
   let identified: number | null = null;
@@ -79,8 +83,12 @@ export function backgroundSummary(model: BackgroundModel): SummaryResult {
     identified = closedVolume / 2;
     antipode = Math.PI * R;
     if (Number.isFinite(particle)) {
-      fraction = particle >= antipode ? 1 : Math.min(1, comovingVolumeWithin(particle, "closed", R) * 1e-9 / closedVolume);
-      if (particle >= antipode) warnings.push("the antipode lies inside today's particle horizon: light has had time to cross the whole 3-sphere");
+      fraction =
+        particle >= antipode ? 1 : Math.min(1, (comovingVolumeWithin(particle, "closed", R) * 1e-9) / closedVolume);
+      if (particle >= antipode)
+        warnings.push(
+          "the antipode lies inside today's particle horizon: light has had time to cross the whole 3-sphere",
+        );
     }
   }
   let fate: Fate = "expands_forever";
@@ -90,7 +98,9 @@ export function backgroundSummary(model: BackgroundModel): SummaryResult {
     fate = "recollapses";
     maxExpansionTime = finiteOrNull((past.age0 + future.timeToTurnaround) * tH);
     crunch = maxExpansionTime === null ? null : 2 * maxExpansionTime;
-    warnings.push(`recollapses: expansion stops at a = ${aMax.toPrecision(6)} and reverses (Friedmann equation is symmetric in time about the turnaround)`);
+    warnings.push(
+      `recollapses: expansion stops at a = ${aMax.toPrecision(6)} and reverses (Friedmann equation is symmetric in time about the turnaround)`,
+    );
   }
   return {
     summary: {

@@ -9,9 +9,16 @@ export type BaoColumns = Record<(typeof BAO_KEYS)[number], Float64Array>;
  */
 export function baoRatios(columns: RedshiftColumns, rDragMpc: number | null): BaoColumns {
   const n = columns.z.length;
-  const out: BaoColumns = { D_M_over_r_drag: new Float64Array(n), D_H_over_r_drag: new Float64Array(n), D_V_over_r_drag: new Float64Array(n) };
+  const out: BaoColumns = {
+    D_M_over_r_drag: new Float64Array(n),
+    D_H_over_r_drag: new Float64Array(n),
+    D_V_over_r_drag: new Float64Array(n),
+  };
   for (let i = 0; i < n; i++) {
-    if (rDragMpc === null) { out.D_M_over_r_drag[i] = out.D_H_over_r_drag[i] = out.D_V_over_r_drag[i] = NaN; continue; }
+    if (rDragMpc === null) {
+      out.D_M_over_r_drag[i] = out.D_H_over_r_drag[i] = out.D_V_over_r_drag[i] = NaN;
+      continue;
+    }
     const DM = columns.transverse_comoving_distance_Mpc[i];
     const DH = columns.hubble_radius_Mpc[i];
     out.D_M_over_r_drag[i] = DM / rDragMpc;

@@ -13,8 +13,20 @@ export function brentRoot(f: (x: number) => number, a: number, b: number, tolAbs
   let d = b - a;
   let e = d;
   for (let i = 0; i < maxIterations; i++) {
-    if (fb > 0 === fc > 0) { c = a; fc = fa; d = b - a; e = d; }
-    if (Math.abs(fc) < Math.abs(fb)) { a = b; b = c; c = a; fa = fb; fb = fc; fc = fa; }
+    if (fb > 0 === fc > 0) {
+      c = a;
+      fc = fa;
+      d = b - a;
+      e = d;
+    }
+    if (Math.abs(fc) < Math.abs(fb)) {
+      a = b;
+      b = c;
+      c = a;
+      fa = fb;
+      fb = fc;
+      fc = fa;
+    }
     const tol = 2 * Number.EPSILON * Math.abs(b) + 0.5 * tolAbs;
     const m = 0.5 * (c - b);
     if (Math.abs(m) <= tol || fb === 0) return b;
@@ -31,10 +43,19 @@ export function brentRoot(f: (x: number) => number, a: number, b: number, tolAbs
         p = s * (2 * m * qq * (qq - r) - (b - a) * (r - 1));
         q = (qq - 1) * (r - 1) * (s - 1);
       }
-      if (p > 0) q = -q; else p = -p;
-      if (2 * p < Math.min(3 * m * q - Math.abs(tol * q), Math.abs(e * q))) { e = d; d = p / q; }
-      else { d = m; e = d; }
-    } else { d = m; e = d; }
+      if (p > 0) q = -q;
+      else p = -p;
+      if (2 * p < Math.min(3 * m * q - Math.abs(tol * q), Math.abs(e * q))) {
+        e = d;
+        d = p / q;
+      } else {
+        d = m;
+        e = d;
+      }
+    } else {
+      d = m;
+      e = d;
+    }
     a = b;
     fa = fb;
     b += Math.abs(d) > tol ? d : m > 0 ? tol : -tol;

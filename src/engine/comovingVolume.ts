@@ -6,8 +6,13 @@ import type { Geometry } from "./backgroundModel.js";
  * (integral of 4 pi R^3 sinn^2 chi dchi; equal to Hogg 1999 eq. 29 for chi <= pi/2). Small chi uses the series,
  * so the flat limit is reached without cancellation. Closed: capped at the whole 3-sphere 2 pi^2 R^3 once chi >= pi.
  */
-export function comovingVolumeWithin(comovingDistance: number, geometry: Geometry, curvatureRadius: number | null): number {
-  if (geometry === "flat" || curvatureRadius === null) return (4 / 3) * Math.PI * comovingDistance * comovingDistance * comovingDistance;
+export function comovingVolumeWithin(
+  comovingDistance: number,
+  geometry: Geometry,
+  curvatureRadius: number | null,
+): number {
+  if (geometry === "flat" || curvatureRadius === null)
+    return (4 / 3) * Math.PI * comovingDistance * comovingDistance * comovingDistance;
   const R = curvatureRadius;
   const chi = comovingDistance / R;
   const closed = geometry === "closed";
@@ -19,7 +24,7 @@ export function comovingVolumeWithin(comovingDistance: number, geometry: Geometr
     let term = (x * x * x) / 6;
     bracket = term;
     for (let k = 2; k < 40; k++) {
-      term *= (x * x) / ((2 * k) * (2 * k + 1));
+      term *= (x * x) / (2 * k * (2 * k + 1));
       const signed = closed && k % 2 === 0 ? -term : term;
       bracket += signed;
       if (term < 1e-18 * Math.abs(bracket)) break;

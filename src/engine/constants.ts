@@ -16,7 +16,11 @@ export const CONSTANTS = {
   gigayear: { value: 1e9 * JULIAN_YEAR_S, unit: "s", source: "10^9 Julian years" },
   boltzmann_constant: { value: 1.380649e-23, unit: "J K^-1", source: "CODATA 2018 (exact in the 2019 SI)" },
   planck_constant: { value: 6.62607015e-34, unit: "J s", source: "CODATA 2018 (exact in the 2019 SI)" },
-  gravitational_constant: { value: 6.6743e-11, unit: "m^3 kg^-1 s^-2", source: "CODATA 2018 (relative uncertainty 2.2e-5)" },
+  gravitational_constant: {
+    value: 6.6743e-11,
+    unit: "m^3 kg^-1 s^-2",
+    source: "CODATA 2018 (relative uncertainty 2.2e-5)",
+  },
   electron_volt: { value: 1.602176634e-19, unit: "J", source: "CODATA 2018 (exact in the 2019 SI)" },
 } as const satisfies Record<string, Constant>;
 

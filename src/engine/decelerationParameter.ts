@@ -9,10 +9,14 @@ import { massiveNeutrinoParts } from "./massiveNeutrinoDensity.js";
  */
 export function decelerationSource(model: BackgroundModel, a: number): number {
   const { Omega_r, Omega_cb, Omega_de, w0, wa } = model;
-  const de = Omega_de === 0 ? 0 : Omega_de * darkEnergyDensityRatio(a, w0, wa) * (1 + 3 * darkEnergyEquationOfState(a, w0, wa));
+  const de =
+    Omega_de === 0 ? 0 : Omega_de * darkEnergyDensityRatio(a, w0, wa) * (1 + 3 * darkEnergyEquationOfState(a, w0, wa));
   let nu = 0;
-  if (model.massiveNeutrinos.length > 0) { const p = massiveNeutrinoParts(model, a); nu = p.rho + p.threeP; }
-  return 2 * Omega_r / a ** 4 + Omega_cb / a ** 3 + de + nu;
+  if (model.massiveNeutrinos.length > 0) {
+    const p = massiveNeutrinoParts(model, a);
+    nu = p.rho + p.threeP;
+  }
+  return (2 * Omega_r) / a ** 4 + Omega_cb / a ** 3 + de + nu;
 }
 
 /** Deceleration parameter q = -a a'' / a'^2 at scale factor a (q0 = Omega_r + Omega_m/2 + Omega_de (1 + 3 w0)/2 today). */

@@ -2,7 +2,13 @@ import { ENGINE_VERSION } from "./engineVersion.js";
 
 /** The model parameters a declared change may look at to say whether it applies (as a tables document stores them). */
 export interface ChangedModelParameters {
-  m_nu_eV: number[]; Omega_b: number | null; Omega_k: number; w0: number; wa: number; radiation: string; N_eff: number | null;
+  m_nu_eV: number[];
+  Omega_b: number | null;
+  Omega_k: number;
+  w0: number;
+  wa: number;
+  radiation: string;
+  N_eff: number | null;
 }
 
 /**
@@ -53,12 +59,19 @@ const patternOf = (p: string) => {
  * model of a version computed by `frozenEngine`, under the engine `currentEngine`; null when none does.
  */
 export function explainingChange(
-  quantity: string, parameters: ChangedModelParameters, frozenEngine: string,
-  changes: readonly DeclaredChange[] = DECLARED_CHANGES, currentEngine: string = ENGINE_VERSION,
+  quantity: string,
+  parameters: ChangedModelParameters,
+  frozenEngine: string,
+  changes: readonly DeclaredChange[] = DECLARED_CHANGES,
+  currentEngine: string = ENGINE_VERSION,
 ): DeclaredChange | null {
   const path = quantity.replace(/\[\]$/, "");
   for (const c of changes) {
-    if (compareEngineVersions(frozenEngine, c.engine_version) >= 0 || compareEngineVersions(c.engine_version, currentEngine) > 0) continue;
+    if (
+      compareEngineVersions(frozenEngine, c.engine_version) >= 0 ||
+      compareEngineVersions(c.engine_version, currentEngine) > 0
+    )
+      continue;
     if (c.quantities.some((q) => patternOf(q).test(path)) && c.applies(parameters)) return c;
   }
   return null;

@@ -9,7 +9,10 @@ export interface DominantTerm {
   readonly coefficient: number;
 }
 
-interface Term { power: number; coefficient: number }
+interface Term {
+  power: number;
+  coefficient: number;
+}
 
 /** A dark-energy power within 1e-12 of an ordinary one (w0 = -1/3, 0, 1/3) is taken as that power exactly. */
 function snap(power: number): number {
@@ -23,7 +26,11 @@ function terms(model: BackgroundModel, late: boolean): Term[] {
   if (model.Omega_cb !== 0) out.push({ power: 3, coefficient: model.Omega_cb });
   // Massive neutrinos: radiation (a^-4, massless-equivalent density) early, matter (a^-3) late.
   for (const n of model.massiveNeutrinos) {
-    out.push(late ? { power: 3, coefficient: n.Omega_rel * (FD_NUMBER / FD_ENERGY_MASSLESS) * Math.exp(n.lnY0) } : { power: 4, coefficient: n.Omega_rel });
+    out.push(
+      late
+        ? { power: 3, coefficient: n.Omega_rel * (FD_NUMBER / FD_ENERGY_MASSLESS) * Math.exp(n.lnY0) }
+        : { power: 4, coefficient: n.Omega_rel },
+    );
   }
   if (model.Omega_k !== 0) out.push({ power: 2, coefficient: model.Omega_k });
   if (model.Omega_de !== 0) {

@@ -35,14 +35,20 @@ export function dragSoundHorizonAubourgMpc(omega_cb: number, omega_b: number, om
  * s = sqrt(a) from the big bang.
  */
 export function soundHorizonMpc(model: BackgroundModel, z: number): number {
-  if (model.Omega_b === null || model.Omega_gamma === 0) throw new RangeError("the sound horizon needs baryons and photons");
+  if (model.Omega_b === null || model.Omega_gamma === 0)
+    throw new RangeError("the sound horizon needs baryons and photons");
   const e2 = expansionRateSquared(model);
   const k = (3 * model.Omega_b) / (4 * model.Omega_gamma);
   const s1 = 1 / Math.sqrt(1 + z);
-  const value = integrateScalar((s) => {
-    const a = s * s;
-    return 2 / (s * a * Math.sqrt(e2(a)) * Math.sqrt(3 * (1 + k * a)));
-  }, 0, s1, PANEL_REL_TOL).value;
+  const value = integrateScalar(
+    (s) => {
+      const a = s * s;
+      return 2 / (s * a * Math.sqrt(e2(a)) * Math.sqrt(3 * (1 + k * a)));
+    },
+    0,
+    s1,
+    PANEL_REL_TOL,
+  ).value;
   return hubbleDistanceMpc(model.H0_km_s_Mpc) * value;
 }
 
@@ -71,11 +77,22 @@ export function earlyUniverse(model: BackgroundModel): { values: EarlyUniverse; 
     kEq = (aEq * Math.sqrt(expansionRateSquared(model)(aEq))) / DH; // k_eq = a_eq H(a_eq) / c
   }
   const empty: EarlyUniverse = {
-    z_recombination: null, z_drag: null, sound_horizon_recombination_Mpc: null, sound_horizon_drag_Mpc: null,
-    sound_horizon_drag_integral_Mpc: null, theta_star_100: null, transverse_comoving_distance_recombination_Mpc: null, k_eq_1_Mpc: kEq,
+    z_recombination: null,
+    z_drag: null,
+    sound_horizon_recombination_Mpc: null,
+    sound_horizon_drag_Mpc: null,
+    sound_horizon_drag_integral_Mpc: null,
+    theta_star_100: null,
+    transverse_comoving_distance_recombination_Mpc: null,
+    k_eq_1_Mpc: kEq,
   };
-  if (model.Omega_b === null) return { values: empty, note: "no baryon density given (Omega_b or omega_b): sound horizons and recombination are not computed" };
-  if (model.Omega_gamma === 0) return { values: empty, note: "no radiation: sound horizons and recombination are not computed" };
+  if (model.Omega_b === null)
+    return {
+      values: empty,
+      note: "no baryon density given (Omega_b or omega_b): sound horizons and recombination are not computed",
+    };
+  if (model.Omega_gamma === 0)
+    return { values: empty, note: "no radiation: sound horizons and recombination are not computed" };
   const h2 = (model.H0_km_s_Mpc / 100) ** 2;
   const omega_b = model.Omega_b * h2;
   const omega_m = model.Omega_m * h2;

@@ -14,7 +14,10 @@ export function expansionRateSquared(model: BackgroundModel): (a: number) => num
   if (list.length === 1) {
     // One species (the common case): its constants captured, no loop (same sum as massiveNeutrinoDensity).
     const { Omega_rel: o, lnY0: l } = list[0];
-    return (a) => { const lnA = Math.log(a); return base(a) + o * Math.exp(lnEnergyRatio(l + lnA) - 4 * lnA); };
+    return (a) => {
+      const lnA = Math.log(a);
+      return base(a) + o * Math.exp(lnEnergyRatio(l + lnA) - 4 * lnA);
+    };
   }
   return (a) => base(a) + massiveNeutrinoDensity(model, a);
 }
@@ -26,16 +29,28 @@ function withoutMassiveNeutrinos(model: BackgroundModel): (a: number) => number 
   const de = model.Omega_de;
   const { w0, wa } = model;
   if (de === 0) {
-    return (a) => { const ia = 1 / a; return ia * ia * (k + ia * (m + ia * r)); };
+    return (a) => {
+      const ia = 1 / a;
+      return ia * ia * (k + ia * (m + ia * r));
+    };
   }
   if (wa === 0 && w0 === -1) {
-    return (a) => { const ia = 1 / a; return ia * ia * (k + ia * (m + ia * r)) + de; };
+    return (a) => {
+      const ia = 1 / a;
+      return ia * ia * (k + ia * (m + ia * r)) + de;
+    };
   }
   if (wa === 0) {
     const p = -3 * (1 + w0);
-    return (a) => { const ia = 1 / a; return ia * ia * (k + ia * (m + ia * r)) + de * Math.exp(p * Math.log(a)); };
+    return (a) => {
+      const ia = 1 / a;
+      return ia * ia * (k + ia * (m + ia * r)) + de * Math.exp(p * Math.log(a));
+    };
   }
   const p = -3 * (1 + w0 + wa);
   const q = -3 * wa;
-  return (a) => { const ia = 1 / a; return ia * ia * (k + ia * (m + ia * r)) + de * Math.exp(p * Math.log(a) + q * (1 - a)); };
+  return (a) => {
+    const ia = 1 / a;
+    return ia * ia * (k + ia * (m + ia * r)) + de * Math.exp(p * Math.log(a) + q * (1 - a));
+  };
 }

@@ -15,12 +15,28 @@ const STEP = 0.02;
 /** F(y) = int_0^inf x^2 sqrt(x^2 + y^2) / (e^x + 1) dx by adaptive quadrature (the energy density of one fermion species). */
 export function fermiDiracEnergyIntegral(y: number): number {
   // 1/(e^x + 1) written as e^-x / (1 + e^-x); beyond x = 60 the integrand is below 1e-20 of the integral.
-  return integrateScalar((x) => { const e = Math.exp(-x); return (x * x * Math.sqrt(x * x + y * y) * e) / (1 + e); }, 0, 60, 1e-12).value;
+  return integrateScalar(
+    (x) => {
+      const e = Math.exp(-x);
+      return (x * x * Math.sqrt(x * x + y * y) * e) / (1 + e);
+    },
+    0,
+    60,
+    1e-12,
+  ).value;
 }
 
 /** dF/dy = int_0^inf x^2 y / sqrt(x^2 + y^2) / (e^x + 1) dx. */
 function fermiDiracEnergySlope(y: number): number {
-  return integrateScalar((x) => { const e = Math.exp(-x); return (x * x * y * e) / (Math.sqrt(x * x + y * y) * (1 + e)); }, 0, 60, 1e-12).value;
+  return integrateScalar(
+    (x) => {
+      const e = Math.exp(-x);
+      return (x * x * y * e) / (Math.sqrt(x * x + y * y) * (1 + e));
+    },
+    0,
+    60,
+    1e-12,
+  ).value;
 }
 
 let table: { lnR: Float64Array; slope: Float64Array } | null = null;
@@ -49,10 +65,15 @@ const SMALL = 5 / (7 * Math.PI ** 2); // F(y) = F(0) (1 + 5 y^2 / (7 pi^2) + O(y
  * tested); series in y below 1e-3 and the expansion F = (3 zeta(3)/2) y + (45 zeta(5)/4)/(2 y) - ... above 1e3.
  */
 export function lnEnergyRatio(lnY: number): number {
-  if (lnY <= LN_Y_MIN) { const y = Math.exp(lnY); return Math.log1p(SMALL * y * y); }
+  if (lnY <= LN_Y_MIN) {
+    const y = Math.exp(lnY);
+    return Math.log1p(SMALL * y * y);
+  }
   if (lnY >= LN_Y_MAX) {
     const iy2 = Math.exp(-2 * lnY);
-    return lnY + Math.log(FD_NUMBER + iy2 * (11.25 * ZETA5 - iy2 * (708.75 * ZETA7) / 8)) - Math.log(FD_ENERGY_MASSLESS);
+    return (
+      lnY + Math.log(FD_NUMBER + iy2 * (11.25 * ZETA5 - (iy2 * (708.75 * ZETA7)) / 8)) - Math.log(FD_ENERGY_MASSLESS)
+    );
   }
   const tbl = table ?? nodes();
   const lnR = tbl.lnR;
@@ -62,7 +83,12 @@ export function lnEnergyRatio(lnY: number): number {
   const s = t - i;
   const s2 = s * s;
   const s3 = s2 * s;
-  return (2 * s3 - 3 * s2 + 1) * lnR[i] + (s3 - 2 * s2 + s) * STEP * slope[i] + (-2 * s3 + 3 * s2) * lnR[i + 1] + (s3 - s2) * STEP * slope[i + 1];
+  return (
+    (2 * s3 - 3 * s2 + 1) * lnR[i] +
+    (s3 - 2 * s2 + s) * STEP * slope[i] +
+    (-2 * s3 + 3 * s2) * lnR[i + 1] +
+    (s3 - s2) * STEP * slope[i + 1]
+  );
 }
 
 /**
@@ -70,11 +96,14 @@ export function lnEnergyRatio(lnY: number): number {
  * w = (1 - G/1) / 3 ... precisely 1 + 3w = 2 - G, from rho ~ a^-4 R(y) and d ln rho / d ln a = -3 (1 + w).
  */
 export function energyRatioSlope(lnY: number): number {
-  if (lnY <= LN_Y_MIN) { const y2 = Math.exp(2 * lnY); return (2 * SMALL * y2) / (1 + SMALL * y2); }
+  if (lnY <= LN_Y_MIN) {
+    const y2 = Math.exp(2 * lnY);
+    return (2 * SMALL * y2) / (1 + SMALL * y2);
+  }
   if (lnY >= LN_Y_MAX) {
     const iy2 = Math.exp(-2 * lnY);
-    const F = FD_NUMBER + iy2 * (11.25 * ZETA5 - iy2 * (708.75 * ZETA7) / 8);
-    const yFp = FD_NUMBER - iy2 * (11.25 * ZETA5 - iy2 * (3 * 708.75 * ZETA7) / 8);
+    const F = FD_NUMBER + iy2 * (11.25 * ZETA5 - (iy2 * (708.75 * ZETA7)) / 8);
+    const yFp = FD_NUMBER - iy2 * (11.25 * ZETA5 - (iy2 * (3 * 708.75 * ZETA7)) / 8);
     return yFp / F;
   }
   const { lnR, slope } = nodes();
@@ -83,5 +112,9 @@ export function energyRatioSlope(lnY: number): number {
   const s = t - i;
   const s2 = s * s;
   // Derivative of the Hermite cubic with respect to ln y.
-  return ((6 * s2 - 6 * s) * lnR[i] + (-6 * s2 + 6 * s) * lnR[i + 1]) / STEP + (3 * s2 - 4 * s + 1) * slope[i] + (3 * s2 - 2 * s) * slope[i + 1];
+  return (
+    ((6 * s2 - 6 * s) * lnR[i] + (-6 * s2 + 6 * s) * lnR[i + 1]) / STEP +
+    (3 * s2 - 4 * s + 1) * slope[i] +
+    (3 * s2 - 2 * s) * slope[i + 1]
+  );
 }

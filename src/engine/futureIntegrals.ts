@@ -33,7 +33,18 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
     const err1 = new Float64Array(1);
     if (!Number.isFinite(late.power)) {
       // CPL with wa > 0: E grows faster than any power, so int_0^1 du / E(1/u) has a smooth integrand.
-      one.integrate((u, out) => { const E2 = e2(1 / u); out[0] = Number.isFinite(E2) ? 1 / Math.sqrt(E2) : 0; }, 0, 1, PANEL_REL_TOL, 0, v1, err1);
+      one.integrate(
+        (u, out) => {
+          const E2 = e2(1 / u);
+          out[0] = Number.isFinite(E2) ? 1 / Math.sqrt(E2) : 0;
+        },
+        0,
+        1,
+        PANEL_REL_TOL,
+        0,
+        v1,
+        err1,
+      );
       return { timeToTurnaround: Infinity, conformalToTurnaround: v1[0] };
     }
     // Power-law terms only (wa = 0): E^2(1/u) = u^p S(u), S(u) = sum_i c_i u^(p_i - p) -> late coefficient as u -> 0.
@@ -43,7 +54,9 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
     const k = p > 0 ? 2 / (2 - p) : 1;
     const vPower = k - 1 - (k * p) / 2;
     const terms: [number, number][] = [
-      [model.Omega_r, 4], [model.Omega_cb, 3], [model.Omega_k, 2],
+      [model.Omega_r, 4],
+      [model.Omega_cb, 3],
+      [model.Omega_k, 2],
       [model.Omega_de, 3 * (1 + model.w0)],
     ];
     const live = terms.filter(([c]) => c !== 0).map(([c, pi]) => [c, (pi - p) * k] as [number, number]);
@@ -53,10 +66,16 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
         let S = 0;
         for (const [c, q] of live) S += q === 0 ? c : c * Math.exp(q * lnv);
         // Massive neutrinos: Omega_rel u^(4-p) R(y0/u), summed in logarithms.
-        for (const nu of model.massiveNeutrinos) S += nu.Omega_rel * Math.exp((4 - p) * k * lnv + lnEnergyRatio(nu.lnY0 - k * lnv));
+        for (const nu of model.massiveNeutrinos)
+          S += nu.Omega_rel * Math.exp((4 - p) * k * lnv + lnEnergyRatio(nu.lnY0 - k * lnv));
         out[0] = (vPower === 0 ? k : k * Math.exp(vPower * lnv)) / Math.sqrt(S);
       },
-      0, 1, PANEL_REL_TOL, 0, v1, err1,
+      0,
+      1,
+      PANEL_REL_TOL,
+      0,
+      v1,
+      err1,
     );
     return { timeToTurnaround: Infinity, conformalToTurnaround: v1[0] };
   }
@@ -73,7 +92,12 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
         out[0] = 1 / E;
         out[1] = 1 / (a * E);
       },
-      0, Math.log(aMid), PANEL_REL_TOL, 0, value, error,
+      0,
+      Math.log(aMid),
+      PANEL_REL_TOL,
+      0,
+      value,
+      error,
     );
     t += value[0];
     c += value[1];
@@ -85,7 +109,12 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
       out[0] = g;
       out[1] = g / a;
     },
-    0, Math.sqrt(aMax - aMid), PANEL_REL_TOL, 0, value, error,
+    0,
+    Math.sqrt(aMax - aMid),
+    PANEL_REL_TOL,
+    0,
+    value,
+    error,
   );
   t += value[0];
   c += value[1];
@@ -98,7 +127,11 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
  */
 function expansionRateSquaredBelowTurnaround(model: BackgroundModel, aMax: number): (v: number) => number {
   const { Omega_r, Omega_cb, Omega_k, Omega_de, w0, wa } = model;
-  const powers: [number, number][] = [[Omega_r, 4], [Omega_cb, 3], [Omega_k, 2]];
+  const powers: [number, number][] = [
+    [Omega_r, 4],
+    [Omega_cb, 3],
+    [Omega_k, 2],
+  ];
   const lnAMax = Math.log(aMax);
   const nus = model.massiveNeutrinos.map((n) => {
     const x = n.lnY0 + lnAMax;

@@ -64,7 +64,14 @@ export class GaussKronrodIntegrator {
   }
 
   /** One QK15 rule on [a, b]; writes k results and k error estimates at offset. */
-  private rule(f: VectorIntegrand, a: number, b: number, result: Float64Array, error: Float64Array, offset: number): void {
+  private rule(
+    f: VectorIntegrand,
+    a: number,
+    b: number,
+    result: Float64Array,
+    error: Float64Array,
+    offset: number,
+  ): void {
     const k = this.components;
     const centr = 0.5 * (a + b);
     const hlgth = 0.5 * (b - a);
@@ -113,10 +120,18 @@ export class GaussKronrodIntegrator {
   private grow(): void {
     const n = this.lo.length * 2;
     const k = this.components;
-    const lo = new Float64Array(n); lo.set(this.lo); this.lo = lo;
-    const hi = new Float64Array(n); hi.set(this.hi); this.hi = hi;
-    const res = new Float64Array(n * k); res.set(this.res); this.res = res;
-    const err = new Float64Array(n * k); err.set(this.err); this.err = err;
+    const lo = new Float64Array(n);
+    lo.set(this.lo);
+    this.lo = lo;
+    const hi = new Float64Array(n);
+    hi.set(this.hi);
+    this.hi = hi;
+    const res = new Float64Array(n * k);
+    res.set(this.res);
+    this.res = res;
+    const err = new Float64Array(n * k);
+    err.set(this.err);
+    this.err = err;
   }
 
   /**
@@ -124,30 +139,53 @@ export class GaussKronrodIntegrator {
    * epsRel is raised to 50 machine epsilons at least (QUADPACK's floor).
    * Throws QuadratureError when the tolerance is not met within maxIntervals subdivisions or a value is not finite.
    */
-  integrate(f: VectorIntegrand, a: number, b: number, epsRel: number, epsAbs: number, value: Float64Array, error: Float64Array): void {
+  integrate(
+    f: VectorIntegrand,
+    a: number,
+    b: number,
+    epsRel: number,
+    epsAbs: number,
+    value: Float64Array,
+    error: Float64Array,
+  ): void {
     const k = this.components;
     // As QUADPACK: a relative tolerance below 50 machine epsilons cannot be met; ask for that floor instead.
     epsRel = Math.max(epsRel, 50 * EPMACH);
     if (a === b) {
-      for (let c = 0; c < k; c++) { value[c] = 0; error[c] = 0; }
+      for (let c = 0; c < k; c++) {
+        value[c] = 0;
+        error[c] = 0;
+      }
       return;
     }
     this.rule(f, a, b, value, error, 0);
     let done = true;
     for (let c = 0; c < k; c++) {
-      if (!(error[c] <= Math.max(epsAbs, epsRel * Math.abs(value[c])))) { done = false; break; }
+      if (!(error[c] <= Math.max(epsAbs, epsRel * Math.abs(value[c])))) {
+        done = false;
+        break;
+      }
     }
     if (done) return;
     // Subdivide.
     let n = 1;
     this.lo[0] = a;
     this.hi[0] = b;
-    for (let c = 0; c < k; c++) { this.res[c] = value[c]; this.err[c] = error[c]; }
+    for (let c = 0; c < k; c++) {
+      this.res[c] = value[c];
+      this.err[c] = error[c];
+    }
     for (;;) {
       // Totals and the worst interval.
-      for (let c = 0; c < k; c++) { value[c] = 0; error[c] = 0; }
+      for (let c = 0; c < k; c++) {
+        value[c] = 0;
+        error[c] = 0;
+      }
       for (let i = 0; i < n; i++) {
-        for (let c = 0; c < k; c++) { value[c] += this.res[i * k + c]; error[c] += this.err[i * k + c]; }
+        for (let c = 0; c < k; c++) {
+          value[c] += this.res[i * k + c];
+          error[c] += this.err[i * k + c];
+        }
       }
       let ok = true;
       for (let c = 0; c < k; c++) {
@@ -169,7 +207,10 @@ export class GaussKronrodIntegrator {
           const s = this.err[i * k + c] / tol;
           if (s > score) score = s;
         }
-        if (score > worstScore) { worstScore = score; worst = i; }
+        if (score > worstScore) {
+          worstScore = score;
+          worst = i;
+        }
       }
       if (n + 1 > this.lo.length) this.grow();
       const left = this.lo[worst];
@@ -200,6 +241,16 @@ export function integrateScalar(
   epsRel = 1e-13,
   epsAbs = 0,
 ): { value: number; error: number } {
-  scalarIntegrator.integrate((x, out) => { out[0] = f(x); }, a, b, epsRel, epsAbs, scalarValue, scalarError);
+  scalarIntegrator.integrate(
+    (x, out) => {
+      out[0] = f(x);
+    },
+    a,
+    b,
+    epsRel,
+    epsAbs,
+    scalarValue,
+    scalarError,
+  );
   return { value: scalarValue[0], error: scalarError[0] };
 }

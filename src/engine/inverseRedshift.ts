@@ -22,7 +22,8 @@ function solveIncreasing(F: (z: number) => number, target: number, what: string,
   let xHi = Math.log(2);
   while (F(Math.expm1(xHi)) < target) {
     xHi *= 2;
-    if (Math.expm1(xHi) > Z_CEILING) throw new NoSuchRedshiftError(`no redshift below ${Z_CEILING} has ${what} ${target}`);
+    if (Math.expm1(xHi) > Z_CEILING)
+      throw new NoSuchRedshiftError(`no redshift below ${Z_CEILING} has ${what} ${target}`);
   }
   const x = brentRoot((x) => F(Math.expm1(x)) - target, 0, xHi, 1e-15);
   return Math.expm1(x);
@@ -49,7 +50,8 @@ export function redshiftAtLookbackTime(model: BackgroundModel, lookbackGyr: numb
 
 /** Redshift at which the age of the universe equals ageGyr (must be positive and at most today's age). */
 export function redshiftAtAge(model: BackgroundModel, ageGyr: number): number {
-  if (!earlyIntegralsConverge(model).age) throw new NoSuchRedshiftError("this model has no finite age, so no redshift has a given age");
+  if (!earlyIntegralsConverge(model).age)
+    throw new NoSuchRedshiftError("this model has no finite age, so no redshift has a given age");
   const tH = hubbleTimeGyr(model.H0_km_s_Mpc);
   const { time } = integrands(model);
   const ageAt = (z: number) => tH * integrateScalar(time, 0, 1 / Math.sqrt(1 + z), PANEL_REL_TOL).value;
@@ -67,6 +69,8 @@ export function redshiftAtComovingDistance(model: BackgroundModel, distanceMpc: 
   const DH = hubbleDistanceMpc(model.H0_km_s_Mpc);
   const { conformal } = integrands(model);
   const DC = (z: number) => DH * integrateScalar(conformal, 1 / Math.sqrt(1 + z), 1, PANEL_REL_TOL).value;
-  const horizon = earlyIntegralsConverge(model).conformal ? DH * integrateScalar(conformal, 0, 1, PANEL_REL_TOL).value : Infinity;
+  const horizon = earlyIntegralsConverge(model).conformal
+    ? DH * integrateScalar(conformal, 0, 1, PANEL_REL_TOL).value
+    : Infinity;
   return solveIncreasing(DC, distanceMpc, "comoving distance (Mpc)", horizon);
 }

@@ -102,7 +102,18 @@ export function pastIntegrals(model: BackgroundModel, redshifts: ArrayLike<numbe
     const one = new GaussKronrodIntegrator(1);
     const v1 = new Float64Array(1);
     const e1 = new Float64Array(1);
-    one.integrate((s, out) => { f(s, value); out[0] = value[0]; }, 0, sLow, PANEL_REL_TOL, 0, v1, e1);
+    one.integrate(
+      (s, out) => {
+        f(s, value);
+        out[0] = value[0];
+      },
+      0,
+      sLow,
+      PANEL_REL_TOL,
+      0,
+      v1,
+      e1,
+    );
     baseT = v1[0];
   }
   const upT = new NeumaierSum();

@@ -10,7 +10,7 @@ export function photonDensityParameter(T_cmb_K: number, H0_km_s_Mpc: number): nu
   const c = CONSTANTS.speed_of_light.value;
   const G = CONSTANTS.gravitational_constant.value;
   const kT = k * T_cmb_K;
-  const rhoGamma_J_m3 = ((Math.PI ** 2) / 15) * (kT ** 4) / (hbar * c) ** 3;
+  const rhoGamma_J_m3 = ((Math.PI ** 2 / 15) * kT ** 4) / (hbar * c) ** 3;
   const H0_s = (H0_km_s_Mpc * 1000) / MPC_M;
   const rhoCrit_J_m3 = (3 * H0_s * H0_s * c * c) / (8 * Math.PI * G);
   return rhoGamma_J_m3 / rhoCrit_J_m3;

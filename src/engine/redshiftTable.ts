@@ -33,10 +33,25 @@ export interface RedshiftColumns {
 }
 
 export const REDSHIFT_COLUMN_KEYS = [
-  "z", "H_km_s_Mpc", "H_over_1pz_km_s_Mpc", "E", "Omega_m_z", "comoving_distance_Mpc", "transverse_comoving_distance_Mpc",
-  "angular_diameter_distance_Mpc", "luminosity_distance_Mpc", "distance_modulus_mag", "lookback_time_Gyr", "age_Gyr",
-  "comoving_volume_Gpc3", "comoving_volume_element_Mpc3_sr", "kpc_per_arcsec_proper", "kpc_per_arcsec_comoving",
-  "hubble_radius_Mpc", "particle_horizon_Mpc", "light_travel_distance_Gly",
+  "z",
+  "H_km_s_Mpc",
+  "H_over_1pz_km_s_Mpc",
+  "E",
+  "Omega_m_z",
+  "comoving_distance_Mpc",
+  "transverse_comoving_distance_Mpc",
+  "angular_diameter_distance_Mpc",
+  "luminosity_distance_Mpc",
+  "distance_modulus_mag",
+  "lookback_time_Gyr",
+  "age_Gyr",
+  "comoving_volume_Gpc3",
+  "comoving_volume_element_Mpc3_sr",
+  "kpc_per_arcsec_proper",
+  "kpc_per_arcsec_comoving",
+  "hubble_radius_Mpc",
+  "particle_horizon_Mpc",
+  "light_travel_distance_Gly",
 ] as const satisfies readonly (keyof RedshiftColumns)[];
 
 /**
@@ -55,11 +70,25 @@ export function redshiftTable(model: BackgroundModel, redshifts: ArrayLike<numbe
   const past = pastIntegrals(model, redshifts);
   const col = () => new Float64Array(n);
   const out: RedshiftColumns = {
-    z: col(), H_km_s_Mpc: col(), H_over_1pz_km_s_Mpc: col(), E: col(), Omega_m_z: col(), comoving_distance_Mpc: col(),
-    transverse_comoving_distance_Mpc: col(), angular_diameter_distance_Mpc: col(), luminosity_distance_Mpc: col(),
-    distance_modulus_mag: col(), lookback_time_Gyr: col(), age_Gyr: col(), comoving_volume_Gpc3: col(),
-    comoving_volume_element_Mpc3_sr: col(), kpc_per_arcsec_proper: col(), kpc_per_arcsec_comoving: col(),
-    hubble_radius_Mpc: col(), particle_horizon_Mpc: col(), light_travel_distance_Gly: col(),
+    z: col(),
+    H_km_s_Mpc: col(),
+    H_over_1pz_km_s_Mpc: col(),
+    E: col(),
+    Omega_m_z: col(),
+    comoving_distance_Mpc: col(),
+    transverse_comoving_distance_Mpc: col(),
+    angular_diameter_distance_Mpc: col(),
+    luminosity_distance_Mpc: col(),
+    distance_modulus_mag: col(),
+    lookback_time_Gyr: col(),
+    age_Gyr: col(),
+    comoving_volume_Gpc3: col(),
+    comoving_volume_element_Mpc3_sr: col(),
+    kpc_per_arcsec_proper: col(),
+    kpc_per_arcsec_comoving: col(),
+    hubble_radius_Mpc: col(),
+    particle_horizon_Mpc: col(),
+    light_travel_distance_Gly: col(),
   };
   const kpcPerMpcArcsec = 1000 * ARCSEC_RAD;
   const hasNu = model.massiveNeutrinos.length > 0;

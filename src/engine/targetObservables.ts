@@ -2,7 +2,9 @@ import { MPC_CM } from "./constants.js";
 
 /** Angular size in arcsec of a proper size in kpc at a proper scale in kpc per arcsec: theta = l / D_A (Hogg 1999 eq. 18). */
 export function angularSizeArcsec(sizeKpc: number, kpcPerArcsecProper: number): number | null {
-  return kpcPerArcsecProper !== 0 && Number.isFinite(kpcPerArcsecProper) ? sizeKpc / Math.abs(kpcPerArcsecProper) : null;
+  return kpcPerArcsecProper !== 0 && Number.isFinite(kpcPerArcsecProper)
+    ? sizeKpc / Math.abs(kpcPerArcsecProper)
+    : null;
 }
 
 /** Apparent magnitude m = M + mu, without K-correction (Hogg 1999 eq. 24 and the definition of the distance modulus). */

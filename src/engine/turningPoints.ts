@@ -63,7 +63,10 @@ function scanForZero(model: BackgroundModel, far: number): number | null {
   const s = scaled(model, late);
   const dom = late ? dominantTermLate(model) : dominantTermEarly(model);
   const t = new Float64Array(5);
-  const g = (u: number) => { s.terms(u, t); return t[0] + t[1] + t[2] + t[3] + t[4]; };
+  const g = (u: number) => {
+    s.terms(u, t);
+    return t[0] + t[1] + t[2] + t[3] + t[4];
+  };
   // Lower bound of the scaled neutrino term when it shares the dominant power: R(y) >= 1 (early, a^-4) and
   // R(y) >= y (3 zeta(3)/2)/F(0) (late, a^-3), since sqrt(x^2 + y^2) >= max(x, y).
   let nuFloor = 0;
@@ -89,7 +92,8 @@ function scanForZero(model: BackgroundModel, far: number): number | null {
       const powers = [4, 3, 2, NaN];
       for (let j = 0; j < 4; j++) {
         const isDom = j < 3 ? powers[j] === dom.power : isDarkEnergyDominant(model, dom.power, late);
-        if (isDom) domPart += t[j]; else if (t[j] < 0) negative -= t[j];
+        if (isDom) domPart += t[j];
+        else if (t[j] < 0) negative -= t[j];
       }
       if (domPart > 4 * negative) return null;
     }

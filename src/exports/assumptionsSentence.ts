@@ -17,14 +17,20 @@ const SYMBOL: Record<string, { plain: string; tex: string; unit?: string; texUni
   N_eff: { plain: "N_eff", tex: "N_\\mathrm{eff}" },
 };
 
-interface Piece { plain: string; tex: string }
+interface Piece {
+  plain: string;
+  tex: string;
+}
 const texNumber = (x: number) => {
   const [m, e] = String(x).split("e");
   return e === undefined ? m : `${m}\\times10^{${Number(e)}}`;
 };
 const assign = (key: string, x: number): Piece => {
   const s = SYMBOL[key];
-  return { plain: `${s.plain} = ${x}${s.unit ? ` ${s.unit}` : ""}`, tex: `$${s.tex} = ${texNumber(x)}${s.texUnit ?? ""}$` };
+  return {
+    plain: `${s.plain} = ${x}${s.unit ? ` ${s.unit}` : ""}`,
+    tex: `$${s.tex} = ${texNumber(x)}${s.texUnit ?? ""}$`,
+  };
 };
 
 /** The inputs of one model that have the given provenance, in a fixed order. */
@@ -45,10 +51,21 @@ function inputs(m: StoredModelTables, provenance: "set" | "default" | "inherited
   if (pv.omega_b === provenance && p.omega_b !== null) out.push(assign("omega_b", p.omega_b));
   if (pv.m_nu_eV === provenance) {
     const ms = p.m_nu_eV;
-    out.push(ms.length === 0 ? { plain: "massless neutrinos", tex: "massless neutrinos" }
-      : { plain: `massive neutrino${ms.length === 1 ? "" : "s"} of ${ms.join(", ")} eV`, tex: `massive neutrino${ms.length === 1 ? "" : "s"} of $${ms.join(", ")}\\,\\mathrm{eV}$` });
+    out.push(
+      ms.length === 0
+        ? { plain: "massless neutrinos", tex: "massless neutrinos" }
+        : {
+            plain: `massive neutrino${ms.length === 1 ? "" : "s"} of ${ms.join(", ")} eV`,
+            tex: `massive neutrino${ms.length === 1 ? "" : "s"} of $${ms.join(", ")}\\,\\mathrm{eV}$`,
+          },
+    );
   }
-  if (pv.radiation === provenance) out.push(p.radiation === "none" ? { plain: "no radiation", tex: "no radiation" } : { plain: "thermal radiation", tex: "thermal radiation" });
+  if (pv.radiation === provenance)
+    out.push(
+      p.radiation === "none"
+        ? { plain: "no radiation", tex: "no radiation" }
+        : { plain: "thermal radiation", tex: "thermal radiation" },
+    );
   if (pv.T_cmb === provenance && p.T_cmb !== null) out.push(assign("T_cmb", p.T_cmb));
   if (pv.N_eff === provenance && p.N_eff !== null) out.push(assign("N_eff", p.N_eff));
   return out;
@@ -56,7 +73,10 @@ function inputs(m: StoredModelTables, provenance: "set" | "default" | "inherited
 
 /** Model labels are quoted, since they may hold commas. */
 const quoted = (label: string): Piece => ({ plain: `"${label}"`, tex: `\`\`${escapeLatex(label)}''` });
-const join = (xs: Piece[], sep = ", "): Piece => ({ plain: xs.map((x) => x.plain).join(sep), tex: xs.map((x) => x.tex).join(sep) });
+const join = (xs: Piece[], sep = ", "): Piece => ({
+  plain: xs.map((x) => x.plain).join(sep),
+  tex: xs.map((x) => x.tex).join(sep),
+});
 
 /**
  * The assumptions behind a page, as one paragraph for the methods section of a proposal or paper, in plain text and
@@ -67,18 +87,25 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
   const labelOf = (id: string) => doc.models.find((m) => m.id === id)?.label ?? id;
   const models = doc.models.map((m) => {
     const set = inputs(m, "set");
-    const base = m.extends ? { plain: `as ${quoted(labelOf(m.extends)).plain} but `, tex: `as ${quoted(labelOf(m.extends)).tex} but ` } : { plain: "", tex: "" };
+    const base = m.extends
+      ? { plain: `as ${quoted(labelOf(m.extends)).plain} but `, tex: `as ${quoted(labelOf(m.extends)).tex} but ` }
+      : { plain: "", tex: "" };
     const body = set.length ? join(set) : { plain: "no parameter of its own", tex: "no parameter of its own" };
     const baseline = m.id === doc.scenario.baseline ? " (baseline)" : "";
-    return { plain: `${quoted(m.label).plain}${baseline}: ${base.plain}${body.plain}`, tex: `${quoted(m.label).tex}${baseline}: ${base.tex}${body.tex}` };
+    return {
+      plain: `${quoted(m.label).plain}${baseline}: ${base.plain}${body.plain}`,
+      tex: `${quoted(m.label).tex}${baseline}: ${base.tex}${body.tex}`,
+    };
   });
   // Defaults: each default once, with the models it applies to; defaults shared by the same models go together.
   const byPiece = new Map<string, { piece: Piece; models: string[] }>();
-  doc.models.forEach((m) => inputs(m, "default").forEach((d) => {
-    const entry = byPiece.get(d.plain) ?? { piece: d, models: [] };
-    entry.models.push(m.label);
-    byPiece.set(d.plain, entry);
-  }));
+  doc.models.forEach((m) =>
+    inputs(m, "default").forEach((d) => {
+      const entry = byPiece.get(d.plain) ?? { piece: d, models: [] };
+      entry.models.push(m.label);
+      byPiece.set(d.plain, entry);
+    }),
+  );
   const groups = new Map<string, { pieces: Piece[]; models: string[] }>();
   for (const { piece, models } of byPiece.values()) {
     const key = models.join("\u0000");
@@ -87,27 +114,51 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
     groups.set(key, g);
   }
   const defaults: Piece[] = [...groups.values()].map((g) => {
-    const where = doc.models.length === 1 ? "" : g.models.length === doc.models.length ? " in every model" : ` in ${g.models.map((l) => quoted(l).plain).join(", ")}`;
-    const texWhere = doc.models.length === 1 ? "" : g.models.length === doc.models.length ? " in every model" : ` in ${g.models.map((l) => quoted(l).tex).join(", ")}`;
+    const where =
+      doc.models.length === 1
+        ? ""
+        : g.models.length === doc.models.length
+          ? " in every model"
+          : ` in ${g.models.map((l) => quoted(l).plain).join(", ")}`;
+    const texWhere =
+      doc.models.length === 1
+        ? ""
+        : g.models.length === doc.models.length
+          ? " in every model"
+          : ` in ${g.models.map((l) => quoted(l).tex).join(", ")}`;
     return { plain: `${join(g.pieces).plain}${where}`, tex: `${join(g.pieces).tex}${texWhere}` };
   });
   const early = doc.models.some((m) => m.parameters.Omega_b !== null);
-  const version = p.version === null ? `an unfrozen draft (inputs SHA-256 ${p.inputs_sha256})` : `${versionLabel(p)} (SHA-256 ${p.version_sha256})`;
+  const version =
+    p.version === null
+      ? `an unfrozen draft (inputs SHA-256 ${p.inputs_sha256})`
+      : `${versionLabel(p)} (SHA-256 ${p.version_sha256})`;
   const plain = [
     `Background quantities were computed for ${doc.models.length} FLRW model${doc.models.length === 1 ? "" : "s"} of the scenario "${doc.scenario.title}": ${models.map((m) => m.plain).join("; ")}.`,
     defaults.length ? `Defaults applied: ${defaults.map((d) => d.plain).join("; ")}.` : "No defaults were applied.",
     `Curvature follows from the closure relation; integrals were evaluated by adaptive Gauss-Kronrod quadrature to a relative tolerance of ${doc.engine.tolerance}.`,
-    early ? "Recombination and drag redshifts come from the fitting formulas of Hu & Sugiyama (1996) and Eisenstein & Hu (1998), and r_drag from the calibrated formula of Aubourg et al. (2015)." : "",
+    early
+      ? "Recombination and drag redshifts come from the fitting formulas of Hu & Sugiyama (1996) and Eisenstein & Hu (1998), and r_drag from the calibrated formula of Aubourg et al. (2015)."
+      : "",
     "The model is the homogeneous background only: perturbations, lensing and peculiar velocities are not included.",
     `Computed with cosmoledger ${p.tool_version} (engine ${doc.engine.version}); scenario ${doc.scenario.id}, ${version}.`,
-  ].filter(Boolean).join(" ");
+  ]
+    .filter(Boolean)
+    .join(" ");
   const tex = [
     `Background quantities were computed for ${doc.models.length} FLRW model${doc.models.length === 1 ? "" : "s"} of the scenario \`\`${escapeLatex(doc.scenario.title)}'': ${models.map((m) => m.tex).join("; ")}.`,
     defaults.length ? `Defaults applied: ${defaults.map((d) => d.tex).join("; ")}.` : "No defaults were applied.",
     `Curvature follows from the closure relation; integrals were evaluated by adaptive Gauss--Kronrod quadrature to a relative tolerance of $${texNumber(doc.engine.tolerance)}$.`,
-    early ? "Recombination and drag redshifts come from the fitting formulas of Hu \\& Sugiyama (1996) and Eisenstein \\& Hu (1998), and $r_\\mathrm{drag}$ from the calibrated formula of Aubourg et al.\\ (2015)." : "",
+    early
+      ? "Recombination and drag redshifts come from the fitting formulas of Hu \\& Sugiyama (1996) and Eisenstein \\& Hu (1998), and $r_\\mathrm{drag}$ from the calibrated formula of Aubourg et al.\\ (2015)."
+      : "",
     "The model is the homogeneous background only: perturbations, lensing and peculiar velocities are not included.",
     `Computed with cosmoledger ${escapeLatex(p.tool_version)} (engine ${escapeLatex(doc.engine.version)}); scenario \\texttt{${escapeLatex(doc.scenario.id)}}, ${escapeLatex(version)}.`,
-  ].filter(Boolean).join("\n");
-  return { plain: `${plain}\n\nSource: ${provenanceLine(p)}\n`, tex: `% source: scenario ${doc.scenario.id}, ${versionLabel(p)}; page ${p.page}\n${tex}\n` };
+  ]
+    .filter(Boolean)
+    .join("\n");
+  return {
+    plain: `${plain}\n\nSource: ${provenanceLine(p)}\n`,
+    tex: `% source: scenario ${doc.scenario.id}, ${versionLabel(p)}; page ${p.page}\n${tex}\n`,
+  };
 }

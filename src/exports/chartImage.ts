@@ -33,7 +33,15 @@ function registerFont(): void {
   fontReady = true;
 }
 
-export interface ChartSpec { id: string; key: string; title: string; yLabel: string; alt: string; log: boolean; datasets: { label: string; points: { x: number; y: number | null }[] }[] }
+export interface ChartSpec {
+  id: string;
+  key: string;
+  title: string;
+  yLabel: string;
+  alt: string;
+  log: boolean;
+  datasets: { label: string; points: { x: number; y: number | null }[] }[];
+}
 
 /** Every exportable chart of a page: one per chart and series, as the page offers them (log redshift axis, the page's default). */
 export function chartSpecs(doc: StoredTablesDocument): ChartSpec[] {
@@ -47,11 +55,19 @@ export function chartSpecs(doc: StoredTablesDocument): ChartSpec[] {
       const s = CHART_SERIES.find((x) => x.key === key)!;
       const yLabel = s.unit ? `${s.label} [${unitText(s.unit)}]` : s.label;
       const keep = z.map((x) => x > 0);
-      const datasets = doc.models.map((m) => ({ label: m.label, points: z.flatMap((x, i) => (keep[i] ? [{ x, y: (m.grid as unknown as Record<string, (number | null)[]>)[key][i] }] : [])) }));
+      const datasets = doc.models.map((m) => ({
+        label: m.label,
+        points: z.flatMap((x, i) =>
+          keep[i] ? [{ x, y: (m.grid as unknown as Record<string, (number | null)[]>)[key][i] }] : [],
+        ),
+      }));
       const zs = z.filter((x) => x > 0);
       const last = datasets.map((d) => d.points.at(-1)?.y).filter((y): y is number => typeof y === "number");
-      const range = last.length ? `At z = ${formatNumber(zs.at(-1)!)} the values run from ${formatNumber(Math.min(...last))} to ${formatNumber(Math.max(...last))}${s.unit ? ` ${unitText(s.unit)}` : ""}.` : "";
-      const alt = `Line chart of ${yLabel} against redshift z from ${formatNumber(zs[0])} to ${formatNumber(zs.at(-1)!)} (logarithmic axis) for ${doc.models.length} model${doc.models.length === 1 ? "" : "s"}: ${doc.models.map((m) => m.label).join(", ")}. ${range}`.trim();
+      const range = last.length
+        ? `At z = ${formatNumber(zs.at(-1)!)} the values run from ${formatNumber(Math.min(...last))} to ${formatNumber(Math.max(...last))}${s.unit ? ` ${unitText(s.unit)}` : ""}.`
+        : "";
+      const alt =
+        `Line chart of ${yLabel} against redshift z from ${formatNumber(zs[0])} to ${formatNumber(zs.at(-1)!)} (logarithmic axis) for ${doc.models.length} model${doc.models.length === 1 ? "" : "s"}: ${doc.models.map((m) => m.label).join(", ")}. ${range}`.trim();
       specs.push({ id: c.id, key, title: `${c.title}: ${s.label}`, yLabel, alt, log: true, datasets });
     }
   }
@@ -99,20 +115,41 @@ function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfi
     type: "line",
     data: {
       datasets: spec.datasets.map((d, i) => ({
-        label: d.label, data: d.points, borderColor: COLOURS[i % COLOURS.length], backgroundColor: COLOURS[i % COLOURS.length],
-        borderDash: DASHES[i % DASHES.length], borderWidth: 1.6, pointRadius: 0, spanGaps: false, fill: false,
+        label: d.label,
+        data: d.points,
+        borderColor: COLOURS[i % COLOURS.length],
+        backgroundColor: COLOURS[i % COLOURS.length],
+        borderDash: DASHES[i % DASHES.length],
+        borderWidth: 1.6,
+        pointRadius: 0,
+        spanGaps: false,
+        fill: false,
       })),
     },
     options: {
-      parsing: false, responsive: false, animation: false, devicePixelRatio: scale,
+      parsing: false,
+      responsive: false,
+      animation: false,
+      devicePixelRatio: scale,
       layout: { padding: { bottom: 20, right: 8 } },
       color: INK,
       scales: {
         x: {
-          type: spec.log ? "logarithmic" : "linear", title: { display: true, text: "redshift z", color: INK, font: { family: FONT, size: 11 } },
-          ticks: { color: INK, maxRotation: 0, autoSkip: false, font: { family: FONT, size: 9 }, callback: spec.log ? logTick : undefined },
+          type: spec.log ? "logarithmic" : "linear",
+          title: { display: true, text: "redshift z", color: INK, font: { family: FONT, size: 11 } },
+          ticks: {
+            color: INK,
+            maxRotation: 0,
+            autoSkip: false,
+            font: { family: FONT, size: 9 },
+            callback: spec.log ? logTick : undefined,
+          },
         },
-        y: { type: "linear", title: { display: true, text: spec.yLabel, color: INK, font: { family: FONT, size: 11 } }, ticks: { color: INK, font: { family: FONT, size: 9 } } },
+        y: {
+          type: "linear",
+          title: { display: true, text: spec.yLabel, color: INK, font: { family: FONT, size: 11 } },
+          ticks: { color: INK, font: { family: FONT, size: 9 } },
+        },
       },
       plugins: {
         title: { display: true, text: spec.title, color: INK, font: { family: FONT, size: 13, weight: "bold" } },
@@ -120,12 +157,23 @@ function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfi
         legend: {
           position: "bottom",
           labels: {
-            color: INK, usePointStyle: true, pointStyleWidth: 30, font: { family: FONT, size: 9 },
+            color: INK,
+            usePointStyle: true,
+            pointStyleWidth: 30,
+            font: { family: FONT, size: 9 },
             // Chart.js's own labels take a point style's (undashed) look; these carry each line's dash pattern.
-            generateLabels: (chart) => chart.data.datasets.map((d, i) => ({
-              text: String(d.label), datasetIndex: i, pointStyle: "line", fillStyle: COLOURS[i % COLOURS.length], strokeStyle: COLOURS[i % COLOURS.length],
-              lineWidth: 2, lineDash: DASHES[i % DASHES.length], fontColor: INK, hidden: false,
-            })),
+            generateLabels: (chart) =>
+              chart.data.datasets.map((d, i) => ({
+                text: String(d.label),
+                datasetIndex: i,
+                pointStyle: "line",
+                fillStyle: COLOURS[i % COLOURS.length],
+                strokeStyle: COLOURS[i % COLOURS.length],
+                lineWidth: 2,
+                lineDash: DASHES[i % DASHES.length],
+                fontColor: INK,
+                hidden: false,
+              })),
           },
         },
       },
@@ -155,7 +203,12 @@ export async function chartPng(spec: ChartSpec, p: ExportProvenance): Promise<Bu
   registerFont();
   const canvas = createCanvas(CHART_WIDTH, CHART_HEIGHT);
   const encoding = drawThen(canvas.getContext("2d"), spec, p, PNG_SCALE, () => canvas.encode("png"));
-  return withPngText(await encoding, { Title: spec.title, Description: spec.alt, Source: provenanceLine(p), Software: `${p.tool} ${p.tool_version}` });
+  return withPngText(await encoding, {
+    Title: spec.title,
+    Description: spec.alt,
+    Source: provenanceLine(p),
+    Software: `${p.tool} ${p.tool_version}`,
+  });
 }
 
 /** The same drawing as SVG (Skia's SVG back end: true vector paths, text as outlines), with title and description for screen readers. */
@@ -165,5 +218,9 @@ export function chartSvg(spec: ChartSpec, p: ExportProvenance): string {
   const svg = drawThen(canvas.getContext("2d"), spec, p, 1, () => canvas.getContent().toString("utf8"));
   const withFallback = svg.replace(/font-family="DejaVu Sans"/g, 'font-family="DejaVu Sans, Verdana, sans-serif"');
   const esc = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;");
-  return withFallback.replace(/<svg\b([^>]*)>/, (open, attrs: string) => `<svg${attrs} role="img" aria-labelledby="title desc"><title id="title">${esc(spec.title)}</title><desc id="desc">${esc(spec.alt)} Source: ${esc(provenanceLine(p))}</desc><metadata>${esc(JSON.stringify(p))}</metadata>`);
+  return withFallback.replace(
+    /<svg\b([^>]*)>/,
+    (open, attrs: string) =>
+      `<svg${attrs} role="img" aria-labelledby="title desc"><title id="title">${esc(spec.title)}</title><desc id="desc">${esc(spec.alt)} Source: ${esc(provenanceLine(p))}</desc><metadata>${esc(JSON.stringify(p))}</metadata>`,
+  );
 }

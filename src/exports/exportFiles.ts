@@ -29,15 +29,29 @@ export interface ExportIndex {
  * the site root; each table's provenance points at its section.
  */
 /** How chart images are made; the site passes a cached version of the same functions. */
-export interface ChartRenderers { png: (spec: ChartSpec, p: ExportProvenance) => Promise<Buffer>; svg: (spec: ChartSpec, p: ExportProvenance) => string }
+export interface ChartRenderers {
+  png: (spec: ChartSpec, p: ExportProvenance) => Promise<Buffer>;
+  svg: (spec: ChartSpec, p: ExportProvenance) => string;
+}
 
 /** A file's content, or for an image a function that draws it when the file is written (see writeExportFiles). */
 export type ExportContent = string | Buffer | (() => Promise<Buffer>);
 
-export function exportFiles(doc: StoredTablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string, formats: readonly ExportFormat[] = EXPORT_FORMATS, render: ChartRenderers = { png: chartPng, svg: chartSvg }): { files: { name: string; content: ExportContent }[]; index: ExportIndex } {
+export function exportFiles(
+  doc: StoredTablesDocument,
+  base: Omit<ExportProvenance, "page">,
+  pageAddress: string,
+  formats: readonly ExportFormat[] = EXPORT_FORMATS,
+  render: ChartRenderers = { png: chartPng, svg: chartSvg },
+): { files: { name: string; content: ExportContent }[]; index: ExportIndex } {
   const files: { name: string; content: ExportContent }[] = [];
   const provenance = (anchor: string): ExportProvenance => ({ ...base, page: `${pageAddress}#${anchor}` });
-  const index: ExportIndex = { tables: [], charts: [], assumptions: { txt: "assumptions.txt", tex: "assumptions.tex", plain: "", latex: "" }, copy: {} };
+  const index: ExportIndex = {
+    tables: [],
+    charts: [],
+    assumptions: { txt: "assumptions.txt", tex: "assumptions.tex", plain: "", latex: "" },
+    copy: {},
+  };
   const tables: ExportTable[] = exportTables(doc);
   for (const t of tables) {
     const p = provenance(t.anchor);
@@ -55,17 +69,45 @@ export function exportFiles(doc: StoredTablesDocument, base: Omit<ExportProvenan
   if (wantCharts.length > 0) {
     for (const spec of chartSpecs(doc)) {
       const p = provenance("charts");
-      const entry: ExportIndex["charts"][number] = { id: spec.id, key: spec.key, title: spec.title, alt: spec.alt, files: {} };
+      const entry: ExportIndex["charts"][number] = {
+        id: spec.id,
+        key: spec.key,
+        title: spec.title,
+        alt: spec.alt,
+        files: {},
+      };
       const stem = `chart-${spec.id}-${spec.key}`;
-      if (wantCharts.includes("png")) files.push({ name: (entry.files.png = `${stem}.png`), content: () => render.png(spec, p) });
-      if (wantCharts.includes("svg")) files.push({ name: (entry.files.svg = `${stem}.svg`), content: () => Promise.resolve(Buffer.from(render.svg(spec, p), "utf8")) });
+      if (wantCharts.includes("png"))
+        files.push({ name: (entry.files.png = `${stem}.png`), content: () => render.png(spec, p) });
+      if (wantCharts.includes("svg"))
+        files.push({
+          name: (entry.files.svg = `${stem}.svg`),
+          content: () => Promise.resolve(Buffer.from(render.svg(spec, p), "utf8")),
+        });
       index.charts.push(entry);
     }
     // Ready-made image references with their alt text, for a wiki page (Markdown) or any HTML page.
     const image = (c: ExportIndex["charts"][number]) => c.files.png ?? c.files.svg!;
     const source = provenanceLine(provenance("charts"));
-    files.push({ name: "charts.md", content: [...index.charts.map((c) => `![${escapeMarkdown(c.alt)}](${image(c)})`), "", `Source: ${escapeMarkdown(source)}`, ""].join("\n\n") });
-    files.push({ name: "charts.html", content: [...index.charts.map((c) => `<figure class="cosmoledger-export"><img src="${escapeHtml(image(c))}" alt="${escapeHtml(c.alt)}" width="600" height="340"><figcaption>${escapeHtml(c.title)}. Source: ${escapeHtml(source)}</figcaption></figure>`), ""].join("\n") });
+    files.push({
+      name: "charts.md",
+      content: [
+        ...index.charts.map((c) => `![${escapeMarkdown(c.alt)}](${image(c)})`),
+        "",
+        `Source: ${escapeMarkdown(source)}`,
+        "",
+      ].join("\n\n"),
+    });
+    files.push({
+      name: "charts.html",
+      content: [
+        ...index.charts.map(
+          (c) =>
+            `<figure class="cosmoledger-export"><img src="${escapeHtml(image(c))}" alt="${escapeHtml(c.alt)}" width="600" height="340"><figcaption>${escapeHtml(c.title)}. Source: ${escapeHtml(source)}</figcaption></figure>`,
+        ),
+        "",
+      ].join("\n"),
+    });
   }
   const sentence = assumptionsSentence(doc, provenance("assumptions"));
   files.push({ name: "assumptions.txt", content: sentence.plain }, { name: "assumptions.tex", content: sentence.tex });
@@ -78,7 +120,11 @@ export function exportFiles(doc: StoredTablesDocument, base: Omit<ExportProvenan
  * Resolves every file's content (drawing images) with at most `inFlight` images pending at once, handing each to
  * `write` as soon as it is ready, in any order. Bounded so that a large site never holds many bitmaps in memory.
  */
-export async function writeExportFiles<T extends { content: ExportContent }>(files: T[], write: (file: T, content: string | Buffer) => void, inFlight = 4): Promise<void> {
+export async function writeExportFiles<T extends { content: ExportContent }>(
+  files: T[],
+  write: (file: T, content: string | Buffer) => void,
+  inFlight = 4,
+): Promise<void> {
   const pending = new Set<Promise<void>>();
   let failure: { error: unknown } | null = null; // the first failure, raised once every started image has settled
   for (const f of files) {
@@ -87,9 +133,13 @@ export async function writeExportFiles<T extends { content: ExportContent }>(fil
       write(f, f.content);
       continue;
     }
-    const job: Promise<void> = f.content().then((content) => write(f, content)).catch((error) => {
-      failure ??= { error };
-    }).finally(() => pending.delete(job));
+    const job: Promise<void> = f
+      .content()
+      .then((content) => write(f, content))
+      .catch((error) => {
+        failure ??= { error };
+      })
+      .finally(() => pending.delete(job));
     pending.add(job);
     if (pending.size >= inFlight) await Promise.race(pending);
   }

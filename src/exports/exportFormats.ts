@@ -19,34 +19,61 @@ const spanOf = (t: ExportTable, column: number) => {
  * The header as one row of cells: the stub, then each column; under several spans a column is named after its
  * quantity too ("Comoving distance D_C [Mpc]: Flat"), since CSV and Markdown have a single header row.
  */
-const header = (t: ExportTable) => [t.stub, ...t.columns.map((c, i) => {
-  const own = labelWithUnit(c.label, c.unit);
-  const span = t.spans && t.spans.length > 1 ? spanOf(t, i) : null;
-  return span ? `${labelWithUnit(span.label, span.unit)}: ${own}` : own;
-})];
+const header = (t: ExportTable) => [
+  t.stub,
+  ...t.columns.map((c, i) => {
+    const own = labelWithUnit(c.label, c.unit);
+    const span = t.spans && t.spans.length > 1 ? spanOf(t, i) : null;
+    return span ? `${labelWithUnit(span.label, span.unit)}: ${own}` : own;
+  }),
+];
 /** The table's heading: its title, with the quantity's unit for a table of one quantity. */
-const heading = (t: ExportTable) => (t.spans?.length === 1 && t.spans[0].unit ? `${t.title} [${unitText(t.spans[0].unit)}]` : t.title);
+const heading = (t: ExportTable) =>
+  t.spans?.length === 1 && t.spans[0].unit ? `${t.title} [${unitText(t.spans[0].unit)}]` : t.title;
 
 /**
  * RFC 4180 CSV (csv-stringify) at full precision, empty cell = null; provenance in leading "#" comment lines.
  * Any field holding "#" is quoted, so that readers that treat "#" as a comment anywhere on a line keep it.
  */
 export function tableCsv(t: ExportTable, p: ExportProvenance): string {
-  const comments = [`# ${heading(t)}`, `# source: ${provenanceLine(p)}`, "# numbers at full precision; an empty cell is an infinite or undefined quantity"];
+  const comments = [
+    `# ${heading(t)}`,
+    `# source: ${provenanceLine(p)}`,
+    "# numbers at full precision; an empty cell is an infinite or undefined quantity",
+  ];
   const value = (c: ExportCell) => (c.value === null ? "" : String(c.value));
-  const body = stringify([header(t), ...t.rows.map((r) => [labelWithUnit(r.label, r.unit), ...r.cells.map(value)])], { record_delimiter: "\r\n", quoted_match: /#/ });
+  const body = stringify([header(t), ...t.rows.map((r) => [labelWithUnit(r.label, r.unit), ...r.cells.map(value)])], {
+    record_delimiter: "\r\n",
+    quoted_match: /#/,
+  });
   return comments.join("\r\n") + "\r\n" + body;
 }
 
 /** JSON: provenance, then the table with raw values (full precision) and the page's text for every cell. */
 export function tableJson(t: ExportTable, p: ExportProvenance): string {
-  return JSON.stringify({
-    format: EXPORT_FORMAT, provenance: { ...p, version_label: versionLabel(p), line: provenanceLine(p) },
-    table: {
-      id: t.id, title: t.title, spans: t.spans, stub: t.stub, columns: t.columns,
-      rows: t.rows.map((r) => ({ label: r.label, unit: r.unit, values: r.cells.map((c) => c.value), text: r.cells.map((c) => c.text) })),
-    },
-  }, null, 2) + "\n";
+  return (
+    JSON.stringify(
+      {
+        format: EXPORT_FORMAT,
+        provenance: { ...p, version_label: versionLabel(p), line: provenanceLine(p) },
+        table: {
+          id: t.id,
+          title: t.title,
+          spans: t.spans,
+          stub: t.stub,
+          columns: t.columns,
+          rows: t.rows.map((r) => ({
+            label: r.label,
+            unit: r.unit,
+            values: r.cells.map((c) => c.value),
+            text: r.cells.map((c) => c.text),
+          })),
+        },
+      },
+      null,
+      2,
+    ) + "\n"
+  );
 }
 
 /** Characters that Markdown (CommonMark with GFM tables) could read as markup; each is backslash-escaped. */
@@ -57,19 +84,53 @@ export const escapeMarkdown = (s: string) => s.replace(MARKDOWN_SPECIAL, (c) => 
 export function tableMarkdown(t: ExportTable, p: ExportProvenance): string {
   const row = (cells: string[]) => `| ${cells.map(escapeMarkdown).join(" | ")} |`;
   const align = `| ${["---", ...t.columns.map(() => "---:")].join(" | ")} |`;
-  const lines = [`**${escapeMarkdown(heading(t))}**`, "", row(header(t)), align,
-    ...t.rows.map((r) => row([labelWithUnit(r.label, r.unit), ...r.cells.map((c) => c.text)])), "", `Source: ${escapeMarkdown(provenanceLine(p))}`, ""];
+  const lines = [
+    `**${escapeMarkdown(heading(t))}**`,
+    "",
+    row(header(t)),
+    align,
+    ...t.rows.map((r) => row([labelWithUnit(r.label, r.unit), ...r.cells.map((c) => c.text)])),
+    "",
+    `Source: ${escapeMarkdown(provenanceLine(p))}`,
+    "",
+  ];
   return lines.join("\n");
 }
 
 const LATEX_SPECIAL: Record<string, string> = {
-  "\\": "\\textbackslash{}", "&": "\\&", "%": "\\%", "$": "\\$", "#": "\\#", "_": "\\_", "{": "\\{", "}": "\\}",
-  "~": "\\textasciitilde{}", "^": "\\textasciicircum{}", "|": "\\textbar{}", "<": "\\textless{}", ">": "\\textgreater{}",
-  "\u2212": "$-$", "\u00d7": "$\\times$", "\u00b2": "\\textsuperscript{2}", "\u00b3": "\\textsuperscript{3}", "\u03c0": "$\\pi$",
-  "\u2264": "$\\le$", "\u2265": "$\\ge$", "\u2013": "--", "\u2014": "---", "\u00b7": "\\textperiodcentered{}", "\u2192": "$\\rightarrow$",
+  "\\": "\\textbackslash{}",
+  "&": "\\&",
+  "%": "\\%",
+  $: "\\$",
+  "#": "\\#",
+  _: "\\_",
+  "{": "\\{",
+  "}": "\\}",
+  "~": "\\textasciitilde{}",
+  "^": "\\textasciicircum{}",
+  "|": "\\textbar{}",
+  "<": "\\textless{}",
+  ">": "\\textgreater{}",
+  "\u2212": "$-$",
+  "\u00d7": "$\\times$",
+  "\u00b2": "\\textsuperscript{2}",
+  "\u00b3": "\\textsuperscript{3}",
+  "\u03c0": "$\\pi$",
+  "\u2264": "$\\le$",
+  "\u2265": "$\\ge$",
+  "\u2013": "--",
+  "\u2014": "---",
+  "\u00b7": "\\textperiodcentered{}",
+  "\u2192": "$\\rightarrow$",
 };
 /** Text for LaTeX: the ten special characters, | < > and the few non-ASCII symbols our labels use. */
-export const escapeLatex = (s: string) => s.replace(/[\\&%$#_{}~^|<>\u2212\u00d7\u00b2\u00b3\u03c0\u2264\u2265\u2013\u2014\u00b7\u2192]/g, (c) => LATEX_SPECIAL[c]).replace(/\r?\n/g, " ");
+export const escapeLatex = (s: string) =>
+  s
+    .replace(
+      /[\\&%$#_{}~^|<>\u2212\u00d7\u00b2\u00b3\u03c0\u2264\u2265\u2013\u2014\u00b7\u2192]/g,
+      (c) => LATEX_SPECIAL[c],
+    )
+    .replace(/\r?\n/g, " ");
 
 /** A number in LaTeX with the digits the page shows: 0.306, $-0.015$, $7.76720\times10^{-5}$; no number is ---. */
 export function latexNumber(p: NumberParts | null): string {
@@ -78,7 +139,8 @@ export function latexNumber(p: NumberParts | null): string {
   return `$${p.negative ? "-" : ""}${p.mantissa}\\times10^{${p.exponent}}$`;
 }
 const latexUnit = (u: string) => escapeLatex(u).replace(/\\textasciicircum\{\}(\d)/g, "\\textsuperscript{$1}");
-const latexLabel = (label: string, unit: string) => (unit ? `${escapeLatex(label)} [${latexUnit(unit)}]` : escapeLatex(label));
+const latexLabel = (label: string, unit: string) =>
+  unit ? `${escapeLatex(label)} [${latexUnit(unit)}]` : escapeLatex(label);
 
 /** A tabular with booktabs rules (\usepackage{booktabs}); units in the header; provenance in % comments above it. */
 export function tableLatex(t: ExportTable, p: ExportProvenance): string {
@@ -102,13 +164,17 @@ export function tableLatex(t: ExportTable, p: ExportProvenance): string {
     });
     lines.push(` & ${cells.join(" & ")} \\\\`, rules.join(" "));
   }
-  lines.push(`${escapeLatex(t.stub)} & ${t.columns.map((c) => latexLabel(c.label, c.unit)).join(" & ")} \\\\`, "\\midrule");
+  lines.push(
+    `${escapeLatex(t.stub)} & ${t.columns.map((c) => latexLabel(c.label, c.unit)).join(" & ")} \\\\`,
+    "\\midrule",
+  );
   for (const r of t.rows) lines.push(`${latexLabel(r.label, r.unit)} & ${r.cells.map(cell).join(" & ")} \\\\`);
   lines.push("\\bottomrule", "\\end{tabular}", "");
   return lines.join("\n");
 }
 
-export const escapeHtml = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
+export const escapeHtml = (s: string) =>
+  s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
 
 /** A self-contained HTML fragment for a wiki: one figure with the table, inline styles only, the source as its caption. */
 export function tableHtml(t: ExportTable, p: ExportProvenance): string {
@@ -120,12 +186,27 @@ export function tableHtml(t: ExportTable, p: ExportProvenance): string {
     `<caption style="text-align:left;font-weight:bold">${escapeHtml(heading(t))}</caption>`,
     "<thead>",
   ];
-  if (t.spans) out.push(`<tr><th></th>${t.spans.map((s) => `<th scope="colgroup" colspan="${s.columns}" style="${th};text-align:center">${escapeHtml(labelWithUnit(s.label, s.unit))}</th>`).join("")}</tr>`);
+  if (t.spans)
+    out.push(
+      `<tr><th></th>${t.spans.map((s) => `<th scope="colgroup" colspan="${s.columns}" style="${th};text-align:center">${escapeHtml(labelWithUnit(s.label, s.unit))}</th>`).join("")}</tr>`,
+    );
   const own = [t.stub, ...t.columns.map((c) => labelWithUnit(c.label, c.unit))];
-  out.push(`<tr>${own.map((h) => `<th scope="col" style="${th}">${escapeHtml(h)}</th>`).join("")}</tr>`, "</thead>", "<tbody>");
+  out.push(
+    `<tr>${own.map((h) => `<th scope="col" style="${th}">${escapeHtml(h)}</th>`).join("")}</tr>`,
+    "</thead>",
+    "<tbody>",
+  );
   for (const r of t.rows) {
-    out.push(`<tr><th scope="row" style="${th};border-bottom:0">${escapeHtml(labelWithUnit(r.label, r.unit))}</th>${r.cells.map((c) => `<td style="${c.kind === "number" ? td : "padding:2px 8px"}">${escapeHtml(c.text)}</td>`).join("")}</tr>`);
+    out.push(
+      `<tr><th scope="row" style="${th};border-bottom:0">${escapeHtml(labelWithUnit(r.label, r.unit))}</th>${r.cells.map((c) => `<td style="${c.kind === "number" ? td : "padding:2px 8px"}">${escapeHtml(c.text)}</td>`).join("")}</tr>`,
+    );
   }
-  out.push("</tbody>", "</table>", `<figcaption style="font-size:smaller">Source: ${escapeHtml(provenanceLine(p))}</figcaption>`, "</figure>", "");
+  out.push(
+    "</tbody>",
+    "</table>",
+    `<figcaption style="font-size:smaller">Source: ${escapeHtml(provenanceLine(p))}</figcaption>`,
+    "</figure>",
+    "",
+  );
   return out.join("\n");
 }

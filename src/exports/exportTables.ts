@@ -3,8 +3,17 @@ import { catalogFor } from "../contract/quantityCatalog.js";
 import { exactParts, numberParts, partsText, type NumberParts } from "../contract/formatNumber.js";
 
 /** One cell: the raw value (full precision, for CSV and JSON) and what the page prints (number parts or text). */
-export interface ExportCell { kind: "number" | "text"; value: number | string | null; parts: NumberParts | null; text: string }
-export interface ExportRow { label: string; unit: string; cells: ExportCell[] }
+export interface ExportCell {
+  kind: "number" | "text";
+  value: number | string | null;
+  parts: NumberParts | null;
+  text: string;
+}
+export interface ExportRow {
+  label: string;
+  unit: string;
+  cells: ExportCell[];
+}
 
 /** A table as the page shows it, ready for every export format. Units sit in the row labels or in `spans`. */
 export interface ExportTable {
@@ -30,7 +39,12 @@ const exact = (x: number | null | undefined): ExportCell => {
   const parts = exactParts(x);
   return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
 };
-const text = (s: string | null | undefined): ExportCell => ({ kind: "text", value: s ?? null, parts: null, text: s ?? "" });
+const text = (s: string | null | undefined): ExportCell => ({
+  kind: "text",
+  value: s ?? null,
+  parts: null,
+  text: s ?? "",
+});
 const hasEarly = (doc: StoredTablesDocument) => doc.models.some((m) => m.parameters.Omega_b !== null);
 
 /** Every table of a scenario page in page order: models, at a glance, each redshift table, early universe, targets, surveys. */
@@ -39,71 +53,146 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
   const { EARLY_QUANTITIES, PARAMETERS, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES } = catalogFor(doc);
   const models = doc.models;
   const columns = models.map((m) => ({ label: m.label, unit: "" }));
-  const perModel = (label: string, unit: string, f: (m: StoredModelTables) => ExportCell): ExportRow => ({ label, unit, cells: models.map(f) });
+  const perModel = (label: string, unit: string, f: (m: StoredModelTables) => ExportCell): ExportRow => ({
+    label,
+    unit,
+    cells: models.map(f),
+  });
   const tables: ExportTable[] = [];
   tables.push({
-    id: "models", title: "Models side by side", anchor: "models", spans: null, stub: "Parameter", columns,
+    id: "models",
+    title: "Models side by side",
+    anchor: "models",
+    spans: null,
+    stub: "Parameter",
+    columns,
     rows: [
-      ...PARAMETERS.map((p) => perModel(p.label, p.unit, (m) => {
-        const v = (m.parameters as unknown as Record<string, number | null>)[p.key];
-        return ((m.provenance as Record<string, string>)[p.key] ?? "derived") === "derived" ? num(v) : exact(v);
-      })),
-      perModel("Massive neutrinos", "eV", (m) => text(m.parameters.m_nu_eV.length ? m.parameters.m_nu_eV.join(", ") : "none")),
+      ...PARAMETERS.map((p) =>
+        perModel(p.label, p.unit, (m) => {
+          const v = (m.parameters as unknown as Record<string, number | null>)[p.key];
+          return ((m.provenance as Record<string, string>)[p.key] ?? "derived") === "derived" ? num(v) : exact(v);
+        }),
+      ),
+      perModel("Massive neutrinos", "eV", (m) =>
+        text(m.parameters.m_nu_eV.length ? m.parameters.m_nu_eV.join(", ") : "none"),
+      ),
       perModel("Radiation", "", (m) => text(m.parameters.radiation)),
       perModel("Curvature fixed by", "", (m) => text(m.parameters.curvature_from)),
       perModel("Notes", "", (m) => text(m.notes)),
     ],
   });
   tables.push({
-    id: "glance", title: "At a glance", anchor: "glance", spans: null, stub: "Quantity", columns,
+    id: "glance",
+    title: "At a glance",
+    anchor: "glance",
+    spans: null,
+    stub: "Quantity",
+    columns,
     rows: [
       perModel("Geometry", "", (m) => text(m.summary.geometry as string)),
       perModel("Fate", "", (m) => text(m.summary.fate === "recollapses" ? "recollapses" : "expands forever")),
-      ...SUMMARY_QUANTITIES.map((q) => perModel(q.label, q.unit, (m) => num(quantityValue(m.summary, q.key) as number | null))),
+      ...SUMMARY_QUANTITIES.map((q) =>
+        perModel(q.label, q.unit, (m) => num(quantityValue(m.summary, q.key) as number | null)),
+      ),
     ],
   });
   for (const g of REDSHIFT_GROUPS) {
     if (g.id === "bao" && !hasEarly(doc)) continue;
     // The whole group in one table (a column block per quantity), then each quantity's table as the page shows it.
     tables.push({
-      id: `group-${g.id}`, title: g.title, anchor: `group-${g.id}`, spans: g.quantities.map((q) => ({ label: q.label, unit: q.unit, columns: models.length })), stub: "z",
+      id: `group-${g.id}`,
+      title: g.title,
+      anchor: `group-${g.id}`,
+      spans: g.quantities.map((q) => ({ label: q.label, unit: q.unit, columns: models.length })),
+      stub: "z",
       columns: g.quantities.flatMap(() => columns),
-      rows: models[0].redshifts.map((r, i) => ({ label: exact(r.z).text, unit: "", cells: g.quantities.flatMap((q) => models.map((m) => num(quantityValue(m.redshifts[i], q.key) as number | null))) })),
+      rows: models[0].redshifts.map((r, i) => ({
+        label: exact(r.z).text,
+        unit: "",
+        cells: g.quantities.flatMap((q) =>
+          models.map((m) => num(quantityValue(m.redshifts[i], q.key) as number | null)),
+        ),
+      })),
     });
     for (const q of g.quantities) {
       tables.push({
-        id: `z-${q.key}`, title: `${g.title}: ${q.label}`, anchor: `group-${g.id}`, spans: [{ label: q.label, unit: q.unit, columns: models.length }], stub: "z", columns,
-        rows: models[0].redshifts.map((r, i) => ({ label: exact(r.z).text, unit: "", cells: models.map((m) => num(quantityValue(m.redshifts[i], q.key) as number | null)) })),
+        id: `z-${q.key}`,
+        title: `${g.title}: ${q.label}`,
+        anchor: `group-${g.id}`,
+        spans: [{ label: q.label, unit: q.unit, columns: models.length }],
+        stub: "z",
+        columns,
+        rows: models[0].redshifts.map((r, i) => ({
+          label: exact(r.z).text,
+          unit: "",
+          cells: models.map((m) => num(quantityValue(m.redshifts[i], q.key) as number | null)),
+        })),
       });
     }
   }
   if (hasEarly(doc)) {
     tables.push({
-      id: "early", title: "Early universe", anchor: "early", spans: null, stub: "Quantity",
+      id: "early",
+      title: "Early universe",
+      anchor: "early",
+      spans: null,
+      stub: "Quantity",
       columns: [{ label: "Method", unit: "" }, ...columns],
       rows: [
-        ...EARLY_QUANTITIES.map((q) => ({ label: q.label, unit: q.unit, cells: [text(q.method), ...models.map((m) => num(quantityValue(m.summary, q.key) as number | null))] })),
-        { label: "Note", unit: "", cells: [text(""), ...models.map((m) => text(m.summary.early_universe_note as string | null))] },
+        ...EARLY_QUANTITIES.map((q) => ({
+          label: q.label,
+          unit: q.unit,
+          cells: [text(q.method), ...models.map((m) => num(quantityValue(m.summary, q.key) as number | null))],
+        })),
+        {
+          label: "Note",
+          unit: "",
+          cells: [text(""), ...models.map((m) => text(m.summary.early_universe_note as string | null))],
+        },
       ],
     });
   }
   models[0].targets.forEach((t, ti) => {
     tables.push({
-      id: `target-${ti + 1}`, title: `Target: ${t.name} (placed by ${t.placed_by})`, anchor: "targets", spans: null, stub: "Quantity", columns,
+      id: `target-${ti + 1}`,
+      title: `Target: ${t.name} (placed by ${t.placed_by})`,
+      anchor: "targets",
+      spans: null,
+      stub: "Quantity",
+      columns,
       rows: [
-        ...TARGET_QUANTITIES.map((q) => perModel(q.label, q.unit, (m) => num(quantityValue(m.targets[ti], q.key) as number | null))),
+        ...TARGET_QUANTITIES.map((q) =>
+          perModel(q.label, q.unit, (m) => num(quantityValue(m.targets[ti], q.key) as number | null)),
+        ),
         perModel("Note", "", (m) => text(m.targets[ti].note)),
       ],
     });
   });
   if (models[0].surveys.length > 0) {
     tables.push({
-      id: "surveys", title: "Survey shells", anchor: "surveys", spans: null, stub: "Shell",
-      columns: [{ label: "Area", unit: "deg^2" }, { label: "z min", unit: "" }, { label: "z max", unit: "" },
-        ...models.flatMap((m) => [{ label: `${m.label}: volume`, unit: "Gpc^3" }, { label: `${m.label}: expected count`, unit: "" }])],
+      id: "surveys",
+      title: "Survey shells",
+      anchor: "surveys",
+      spans: null,
+      stub: "Shell",
+      columns: [
+        { label: "Area", unit: "deg^2" },
+        { label: "z min", unit: "" },
+        { label: "z max", unit: "" },
+        ...models.flatMap((m) => [
+          { label: `${m.label}: volume`, unit: "Gpc^3" },
+          { label: `${m.label}: expected count`, unit: "" },
+        ]),
+      ],
       rows: models[0].surveys.map((s, si) => ({
-        label: s.name, unit: "",
-        cells: [exact(s.area_deg2), exact(s.z_min), exact(s.z_max), ...models.flatMap((m) => [num(m.surveys[si].volume_Gpc3), num(m.surveys[si].expected_count)])],
+        label: s.name,
+        unit: "",
+        cells: [
+          exact(s.area_deg2),
+          exact(s.z_min),
+          exact(s.z_max),
+          ...models.flatMap((m) => [num(m.surveys[si].volume_Gpc3), num(m.surveys[si].expected_count)]),
+        ],
       })),
     });
   }

@@ -9,7 +9,11 @@ export function withPngText(png: Buffer, entries: Record<string, string>): Buffe
   const IHDR_END = 8 + 4 + 4 + 13 + 4; // signature, length, type, IHDR data, CRC
   if (png.toString("latin1", 12, 16) !== "IHDR") throw new Error("not a PNG with a leading IHDR chunk");
   const chunks = Object.entries(entries).map(([keyword, text]) => {
-    const data = Buffer.concat([Buffer.from(keyword, "latin1"), Buffer.from([0, 0, 0, 0, 0]), Buffer.from(text, "utf8")]);
+    const data = Buffer.concat([
+      Buffer.from(keyword, "latin1"),
+      Buffer.from([0, 0, 0, 0, 0]),
+      Buffer.from(text, "utf8"),
+    ]);
     const typeAndData = Buffer.concat([Buffer.from("iTXt", "latin1"), data]);
     const length = Buffer.alloc(4);
     length.writeUInt32BE(data.length);

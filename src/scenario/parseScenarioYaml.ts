@@ -4,7 +4,10 @@ import { ScenarioInputError, formatPath, type ScenarioIssue } from "./scenarioIs
 /** Largest number of alias expansions accepted (a guard against alias bombs). */
 export const MAX_ALIAS_COUNT = 200;
 
-export interface Position { line: number; column: number }
+export interface Position {
+  line: number;
+  column: number;
+}
 
 /** The plain value of a YAML file and where each key path sits in it. */
 export interface ParsedYaml {
@@ -21,24 +24,46 @@ export interface ParsedYaml {
  */
 export function parseScenarioYaml(text: string, file: string): ParsedYaml {
   const lines = new LineCounter();
-  const doc = parseDocument(text, { lineCounter: lines, uniqueKeys: true, prettyErrors: false, strict: true, version: "1.2" });
+  const doc = parseDocument(text, {
+    lineCounter: lines,
+    uniqueKeys: true,
+    prettyErrors: false,
+    strict: true,
+    version: "1.2",
+  });
   const at = (offset: number): Position => {
     const p = lines.linePos(offset);
     return { line: p.line, column: p.col };
   };
-  const issue = (offset: number, path: string, message: string): ScenarioIssue => ({ file, ...at(offset), path, message });
+  const issue = (offset: number, path: string, message: string): ScenarioIssue => ({
+    file,
+    ...at(offset),
+    path,
+    message,
+  });
   if (doc.errors.length > 0) {
     throw new ScenarioInputError(
       doc.errors.map((e) => {
-        const message = e.code === "DUPLICATE_KEY" ? "duplicate key: each key may appear once in a mapping"
-          : e.code === "TAB_AS_INDENT" ? "tab used for indentation: YAML indents with spaces only"
-          : `YAML syntax error: ${e.message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "")}`;
+        const message =
+          e.code === "DUPLICATE_KEY"
+            ? "duplicate key: each key may appear once in a mapping"
+            : e.code === "TAB_AS_INDENT"
+              ? "tab used for indentation: YAML indents with spaces only"
+              : `YAML syntax error: ${e.message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "")}`;
         return issue(e.pos[0], "", message);
       }),
     );
   }
   if (doc.contents === null) {
-    throw new ScenarioInputError([{ file, line: 1, column: 1, path: "", message: "the file is empty: a scenario needs at least a title and models" }]);
+    throw new ScenarioInputError([
+      {
+        file,
+        line: 1,
+        column: 1,
+        path: "",
+        message: "the file is empty: a scenario needs at least a title and models",
+      },
+    ]);
   }
   const keyPos = new Map<string, number>();
   const valuePos = new Map<string, number>();
@@ -50,7 +75,13 @@ export function parseScenarioYaml(text: string, file: string): ParsedYaml {
     if (isAlias(node)) {
       aliases++;
       if (aliases > MAX_ALIAS_COUNT) {
-        throw new ScenarioInputError([issue(node.range?.[0] ?? 0, here, `more than ${MAX_ALIAS_COUNT} alias expansions: refusing (possible alias bomb)`)]);
+        throw new ScenarioInputError([
+          issue(
+            node.range?.[0] ?? 0,
+            here,
+            `more than ${MAX_ALIAS_COUNT} alias expansions: refusing (possible alias bomb)`,
+          ),
+        ]);
       }
       return walk(node.resolve(doc), path);
     }
@@ -92,7 +123,10 @@ export function parseScenarioYaml(text: string, file: string): ParsedYaml {
   const locate = (path: readonly (string | number)[], which: "key" | "value" = "value"): Position => {
     for (let len = path.length; len >= 0; len--) {
       const p = formatPath(path.slice(0, len));
-      const off = which === "key" && len === path.length ? keyPos.get(p) ?? valuePos.get(p) : valuePos.get(p) ?? keyPos.get(p);
+      const off =
+        which === "key" && len === path.length
+          ? (keyPos.get(p) ?? valuePos.get(p))
+          : (valuePos.get(p) ?? keyPos.get(p));
       if (off !== undefined) return at(off);
     }
     return { line: 1, column: 1 };

@@ -1,10 +1,22 @@
 import {
-  DEFAULT_N_EFF, DEFAULT_T_CMB_K, NoBigBangError, assertBigBang, makeBackgroundModel, maximumScaleFactor, type CurvatureSpec,
+  DEFAULT_N_EFF,
+  DEFAULT_T_CMB_K,
+  NoBigBangError,
+  assertBigBang,
+  makeBackgroundModel,
+  maximumScaleFactor,
+  type CurvatureSpec,
 } from "../engine/index.js";
 import type { ParsedYaml } from "./parseScenarioYaml.js";
 import { ScenarioInputError, formatPath, type ScenarioIssue } from "./scenarioIssue.js";
 import type {
-  CurvatureKey, Provenance, ResolvedModel, ResolvedModelInputs, ResolvedScenario, ResolvedSurvey, ResolvedTarget,
+  CurvatureKey,
+  Provenance,
+  ResolvedModel,
+  ResolvedModelInputs,
+  ResolvedScenario,
+  ResolvedSurvey,
+  ResolvedTarget,
 } from "./resolvedScenario.js";
 
 export const DEFAULT_REDSHIFTS = [0.1, 0.5, 1, 2, 3, 5, 10];
@@ -48,7 +60,10 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
   // Scenario id
   let id: string | null = typeof raw.id === "string" ? raw.id : idFromFileName(parsed.file);
   if (id === null) {
-    fail([], `the file name does not give a valid id (lowercase letters, digits and single hyphens, at most 64 characters); add a line such as "id: my-scenario"`);
+    fail(
+      [],
+      `the file name does not give a valid id (lowercase letters, digits and single hyphens, at most 64 characters); add a line such as "id: my-scenario"`,
+    );
     id = "invalid";
   }
   const defaultsApplied: string[] = [];
@@ -58,15 +73,26 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
   const rawModels = raw.models as RawModel[];
   const index = new Map<string, number>();
   rawModels.forEach((m, i) => {
-    if (index.has(m.id)) fail(["models", i, "id"], `duplicate model id ${m.id} (first used by models[${index.get(m.id)}])`);
+    if (index.has(m.id))
+      fail(["models", i, "id"], `duplicate model id ${m.id} (first used by models[${index.get(m.id)}])`);
     else index.set(m.id, i);
   });
   rawModels.forEach((m, i) => {
     const own = CURVATURE_KEYS.filter((k) => m[k] !== undefined);
-    if (own.length > 1) fail(["models", i, own[1]], `curvature is over-determined: give only one of flat, Omega_k, Omega_de, Omega_Lambda (found ${own.join(" and ")})`, "key");
-    if (m.Omega_b !== undefined && m.omega_b !== undefined) fail(["models", i, "omega_b"], "baryons are over-determined: give Omega_b or omega_b, not both", "key");
+    if (own.length > 1)
+      fail(
+        ["models", i, own[1]],
+        `curvature is over-determined: give only one of flat, Omega_k, Omega_de, Omega_Lambda (found ${own.join(" and ")})`,
+        "key",
+      );
+    if (m.Omega_b !== undefined && m.omega_b !== undefined)
+      fail(["models", i, "omega_b"], "baryons are over-determined: give Omega_b or omega_b, not both", "key");
     if (m.radiation === "none" && (m.T_cmb !== undefined || m.N_eff !== undefined)) {
-      fail(["models", i, m.T_cmb !== undefined ? "T_cmb" : "N_eff"], "contradictory radiation: radiation: none drops photons and neutrinos, so T_cmb and N_eff cannot be set in the same model", "key");
+      fail(
+        ["models", i, m.T_cmb !== undefined ? "T_cmb" : "N_eff"],
+        "contradictory radiation: radiation: none drops photons and neutrinos, so T_cmb and N_eff cannot be set in the same model",
+        "key",
+      );
     }
     if (m.extends !== undefined && !index.has(m.extends as string)) {
       fail(["models", i, "extends"], `extends unknown model ${m.extends}; known ids: ${[...index.keys()].join(", ")}`);
@@ -92,12 +118,37 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       if (!parent) return null;
       values = { ...parent.values };
       for (const k of Object.keys(parent.values)) provenance[k] = "inherited";
-      if (CURVATURE_KEYS.some((k) => m[k] !== undefined)) for (const k of CURVATURE_KEYS) { delete values[k]; delete provenance[k]; }
-      if (BARYON_KEYS.some((k) => m[k] !== undefined)) for (const k of BARYON_KEYS) { delete values[k]; delete provenance[k]; }
-      if (m.radiation === "none") { delete values.T_cmb; delete values.N_eff; }
+      if (CURVATURE_KEYS.some((k) => m[k] !== undefined))
+        for (const k of CURVATURE_KEYS) {
+          delete values[k];
+          delete provenance[k];
+        }
+      if (BARYON_KEYS.some((k) => m[k] !== undefined))
+        for (const k of BARYON_KEYS) {
+          delete values[k];
+          delete provenance[k];
+        }
+      if (m.radiation === "none") {
+        delete values.T_cmb;
+        delete values.N_eff;
+      }
     }
-    for (const k of ["H0", "Omega_m", "w0", "wa", "radiation", "T_cmb", "N_eff", "m_nu_eV", ...BARYON_KEYS, ...CURVATURE_KEYS]) {
-      if (m[k] !== undefined) { values[k] = m[k]; provenance[k] = "set"; }
+    for (const k of [
+      "H0",
+      "Omega_m",
+      "w0",
+      "wa",
+      "radiation",
+      "T_cmb",
+      "N_eff",
+      "m_nu_eV",
+      ...BARYON_KEYS,
+      ...CURVATURE_KEYS,
+    ]) {
+      if (m[k] !== undefined) {
+        values[k] = m[k];
+        provenance[k] = "set";
+      }
     }
     const result = { values, provenance };
     flattened.set(m.id, result);
@@ -132,67 +183,116 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       m_nu_eV: [...((v.m_nu_eV as number[] | undefined) ?? [])],
     };
     const provenance: ResolvedModel["provenance"] = {
-      H0: prov("H0"), Omega_m: prov("Omega_m"),
-      curvature_key: prov(curvatureKey), curvature_value: prov(curvatureKey),
-      w0: prov("w0"), wa: prov("wa"), radiation: prov("radiation"),
+      H0: prov("H0"),
+      Omega_m: prov("Omega_m"),
+      curvature_key: prov(curvatureKey),
+      curvature_value: prov(curvatureKey),
+      w0: prov("w0"),
+      wa: prov("wa"),
+      radiation: prov("radiation"),
       T_cmb: radiation === "none" ? prov("radiation") : prov("T_cmb"),
       N_eff: radiation === "none" ? prov("radiation") : prov("N_eff"),
-      baryon_key: inputsBaryonProvenance(p), baryon_value: inputsBaryonProvenance(p),
+      baryon_key: inputsBaryonProvenance(p),
+      baryon_value: inputsBaryonProvenance(p),
       m_nu_eV: prov("m_nu_eV"),
     };
     if (radiation === "none" && inputs.m_nu_eV.some((x) => x > 0)) {
-      fail([...here, p.m_nu_eV === "set" ? "m_nu_eV" : "radiation"], "massive neutrinos need thermal radiation: their temperature follows T_cmb; remove m_nu_eV or radiation: none", "key");
+      fail(
+        [...here, p.m_nu_eV === "set" ? "m_nu_eV" : "radiation"],
+        "massive neutrinos need thermal radiation: their temperature follows T_cmb; remove m_nu_eV or radiation: none",
+        "key",
+      );
       return;
     }
     if (curvatureKey === "Omega_Lambda" && (inputs.w0 !== -1 || inputs.wa !== 0)) {
-      fail([...here, "Omega_Lambda"], `Omega_Lambda is a cosmological constant (w0 = -1, wa = 0) but this model has w0 = ${inputs.w0}, wa = ${inputs.wa}; use Omega_de for evolving dark energy`, "key");
+      fail(
+        [...here, "Omega_Lambda"],
+        `Omega_Lambda is a cosmological constant (w0 = -1, wa = 0) but this model has w0 = ${inputs.w0}, wa = ${inputs.wa}; use Omega_de for evolving dark energy`,
+        "key",
+      );
       return;
     }
-    const curvature: CurvatureSpec = curvatureKey === "flat" ? { kind: "flat" }
-      : curvatureKey === "Omega_k" ? { kind: "Omega_k", Omega_k: inputs.curvature_value! }
-      : { kind: "Omega_de", Omega_de: inputs.curvature_value! };
+    const curvature: CurvatureSpec =
+      curvatureKey === "flat"
+        ? { kind: "flat" }
+        : curvatureKey === "Omega_k"
+          ? { kind: "Omega_k", Omega_k: inputs.curvature_value! }
+          : { kind: "Omega_de", Omega_de: inputs.curvature_value! };
     let background;
     try {
       background = makeBackgroundModel({
-        H0_km_s_Mpc: inputs.H0, Omega_m: inputs.Omega_m, curvature, w0: inputs.w0, wa: inputs.wa,
+        H0_km_s_Mpc: inputs.H0,
+        Omega_m: inputs.Omega_m,
+        curvature,
+        w0: inputs.w0,
+        wa: inputs.wa,
         radiation: radiation === "none" ? null : { T_cmb_K: inputs.T_cmb!, N_eff: inputs.N_eff! },
-        baryons: inputs.baryon_key === "Omega_b" ? { Omega_b: inputs.baryon_value! } : inputs.baryon_key === "omega_b" ? { omega_b: inputs.baryon_value! } : null,
+        baryons:
+          inputs.baryon_key === "Omega_b"
+            ? { Omega_b: inputs.baryon_value! }
+            : inputs.baryon_key === "omega_b"
+              ? { omega_b: inputs.baryon_value! }
+              : null,
         m_nu_eV: inputs.m_nu_eV,
       });
     } catch (e) {
-      if (e instanceof RangeError) { fail(here, `model ${m.id}: ${e.message}`); return; }
+      if (e instanceof RangeError) {
+        fail(here, `model ${m.id}: ${e.message}`);
+        return;
+      }
       throw e;
     }
     try {
       assertBigBang(background);
       maximumScaleFactor(background); // a turnaround the engine cannot follow is an input problem, not a crash
     } catch (e) {
-      if (e instanceof NoBigBangError || e instanceof RangeError) { fail(here, `model ${m.id}: ${e.message}`); return; }
+      if (e instanceof NoBigBangError || e instanceof RangeError) {
+        fail(here, `model ${m.id}: ${e.message}`);
+        return;
+      }
       throw e;
     }
     const warnings: string[] = [];
     const check = (name: keyof typeof VERIFIED, value: number) => {
       const [lo, hi] = VERIFIED[name];
-      if (value < lo || value > hi) warnings.push(`${name} = ${value} lies outside [${lo.toPrecision(3)}, ${hi.toPrecision(3)}], where the engine's 1e-10 accuracy is verified`);
+      if (value < lo || value > hi)
+        warnings.push(
+          `${name} = ${value} lies outside [${lo.toPrecision(3)}, ${hi.toPrecision(3)}], where the engine's 1e-10 accuracy is verified`,
+        );
     };
     check("Omega_m", background.Omega_m);
     check("Omega_k", background.Omega_k);
     check("Omega_de", background.Omega_de);
-    if (background.Omega_de !== 0) { check("w0", background.w0); check("wa", background.wa); }
+    if (background.Omega_de !== 0) {
+      check("w0", background.w0);
+      check("wa", background.wa);
+    }
     models.push({
-      id: m.id, label: (m.label as string | undefined) ?? m.id, extends: (m.extends as string | undefined) ?? null,
-      notes: (m.notes as string | undefined) ?? null, inputs, provenance, background, warnings,
+      id: m.id,
+      label: (m.label as string | undefined) ?? m.id,
+      extends: (m.extends as string | undefined) ?? null,
+      notes: (m.notes as string | undefined) ?? null,
+      inputs,
+      provenance,
+      background,
+      warnings,
     });
   });
 
   // Baseline
   let baseline = raw.baseline as string | undefined;
-  if (baseline === undefined) { baseline = rawModels[0].id; defaultsApplied.push("baseline"); }
-  else if (!index.has(baseline)) fail(["baseline"], `baseline names unknown model ${baseline}; known ids: ${[...index.keys()].join(", ")}`);
+  if (baseline === undefined) {
+    baseline = rawModels[0].id;
+    defaultsApplied.push("baseline");
+  } else if (!index.has(baseline))
+    fail(["baseline"], `baseline names unknown model ${baseline}; known ids: ${[...index.keys()].join(", ")}`);
 
   // Redshifts and grid
   let redshifts = raw.redshifts as number[] | undefined;
-  if (redshifts === undefined) { redshifts = DEFAULT_REDSHIFTS; defaultsApplied.push("redshifts"); }
+  if (redshifts === undefined) {
+    redshifts = DEFAULT_REDSHIFTS;
+    defaultsApplied.push("redshifts");
+  }
   const g = (raw.grid ?? {}) as Raw;
   if (g.z_max === undefined) defaultsApplied.push("grid.z_max");
   if (g.points === undefined) defaultsApplied.push("grid.points");
@@ -209,9 +309,12 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
   ((raw.targets ?? []) as Raw[]).forEach((t, i) => {
     const given = placementKeys.filter((k) => t[k] !== undefined);
     if (given.length !== 1) {
-      fail(["targets", i], given.length === 0
-        ? `target ${t.name} needs exactly one of z, lookback_Gyr, age_Gyr, comoving_distance_Mpc to place it`
-        : `target ${t.name} is placed twice (${given.join(" and ")}): give exactly one of z, lookback_Gyr, age_Gyr, comoving_distance_Mpc`);
+      fail(
+        ["targets", i],
+        given.length === 0
+          ? `target ${t.name} needs exactly one of z, lookback_Gyr, age_Gyr, comoving_distance_Mpc to place it`
+          : `target ${t.name} is placed twice (${given.join(" and ")}): give exactly one of z, lookback_Gyr, age_Gyr, comoving_distance_Mpc`,
+      );
       return;
     }
     const by = given[0];
@@ -225,19 +328,41 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
   });
   const surveys: ResolvedSurvey[] = [];
   ((raw.surveys ?? []) as Raw[]).forEach((s, i) => {
-    if (!(s.z_max > s.z_min)) { fail(["surveys", i, "z_max"], `z_max (${s.z_max}) must be greater than z_min (${s.z_min})`); return; }
-    surveys.push({ name: s.name, area_deg2: s.area_deg2, z_min: s.z_min, z_max: s.z_max, density_per_Mpc3: s.density_per_Mpc3 ?? null });
+    if (!(s.z_max > s.z_min)) {
+      fail(["surveys", i, "z_max"], `z_max (${s.z_max}) must be greater than z_min (${s.z_min})`);
+      return;
+    }
+    surveys.push({
+      name: s.name,
+      area_deg2: s.area_deg2,
+      z_min: s.z_min,
+      z_max: s.z_max,
+      density_per_Mpc3: s.density_per_Mpc3 ?? null,
+    });
   });
 
   const work = rawModels.length * (redshifts.length + grid.points + targets.length + 2 * surveys.length);
   if (work > MAX_WORK_POINTS) {
-    fail(["models"], `this scenario asks for ${work} model-redshift evaluations; at most ${MAX_WORK_POINTS} are allowed (fewer models, redshifts or grid points)`);
+    fail(
+      ["models"],
+      `this scenario asks for ${work} model-redshift evaluations; at most ${MAX_WORK_POINTS} are allowed (fewer models, redshifts or grid points)`,
+    );
   }
   if (issues.length > 0) throw new ScenarioInputError(issues);
 
   return {
-    id: id!, title: raw.title, description: raw.description ?? null, author: raw.author ?? null, tags: raw.tags ?? [],
-    baseline: baseline!, redshifts, grid, models, targets, surveys, defaults_applied: defaultsApplied,
+    id: id!,
+    title: raw.title,
+    description: raw.description ?? null,
+    author: raw.author ?? null,
+    tags: raw.tags ?? [],
+    baseline: baseline!,
+    redshifts,
+    grid,
+    models,
+    targets,
+    surveys,
+    defaults_applied: defaultsApplied,
     source: { path: parsed.file, text: sourceText },
   };
 }

@@ -34,7 +34,11 @@ export interface ResolvedModel {
   warnings: string[];
 }
 
-export type TargetPlacement = { by: "z"; z: number } | { by: "lookback_Gyr"; value: number } | { by: "age_Gyr"; value: number } | { by: "comoving_distance_Mpc"; value: number };
+export type TargetPlacement =
+  | { by: "z"; z: number }
+  | { by: "lookback_Gyr"; value: number }
+  | { by: "age_Gyr"; value: number }
+  | { by: "comoving_distance_Mpc"; value: number };
 
 export interface ResolvedTarget {
   name: string;

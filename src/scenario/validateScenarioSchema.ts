@@ -28,7 +28,8 @@ type SchemaNode = { properties?: Record<string, unknown>; $ref?: string; items?:
 function schemaAt(segments: (string | number)[]): SchemaNode | undefined {
   let node: SchemaNode | undefined = schema as SchemaNode;
   const deref = (n: SchemaNode | undefined): SchemaNode | undefined => {
-    if (n?.$ref?.startsWith("#/definitions/")) return (schema.definitions as Record<string, SchemaNode>)[n.$ref.slice(14)];
+    if (n?.$ref?.startsWith("#/definitions/"))
+      return (schema.definitions as Record<string, SchemaNode>)[n.$ref.slice(14)];
     return n;
   };
   for (const s of segments) {
@@ -41,10 +42,13 @@ function schemaAt(segments: (string | number)[]): SchemaNode | undefined {
 
 function segmentsOf(instancePath: string): (string | number)[] {
   if (instancePath === "") return [];
-  return instancePath.slice(1).split("/").map((s) => {
-    const key = s.replace(/~1/g, "/").replace(/~0/g, "~");
-    return /^\d+$/.test(key) ? Number(key) : key;
-  });
+  return instancePath
+    .slice(1)
+    .split("/")
+    .map((s) => {
+      const key = s.replace(/~1/g, "/").replace(/~0/g, "~");
+      return /^\d+$/.test(key) ? Number(key) : key;
+    });
 }
 
 function describeValue(v: unknown): string {
@@ -61,7 +65,11 @@ function valueAt(root: unknown, segments: (string | number)[]): unknown {
   return v;
 }
 
-function message(e: ErrorObject, root: unknown, segments: (string | number)[]): { path: (string | number)[]; text: string; at: "key" | "value" } {
+function message(
+  e: ErrorObject,
+  root: unknown,
+  segments: (string | number)[],
+): { path: (string | number)[]; text: string; at: "key" | "value" } {
   const got = describeValue(valueAt(root, segments));
   switch (e.keyword) {
     case "additionalProperties": {
@@ -71,33 +79,78 @@ function message(e: ErrorObject, root: unknown, segments: (string | number)[]): 
       const lower = allowed.find((k) => k.toLowerCase() === key.toLowerCase());
       const suggestion = lower ?? near;
       const hint = suggestion && (lower || levenshteinClose(key, suggestion)) ? ` did you mean ${suggestion}?` : "";
-      return { path: [...segments, key], at: "key", text: `unknown key ${key}.${hint} Valid keys here: ${allowed.join(", ")}` };
+      return {
+        path: [...segments, key],
+        at: "key",
+        text: `unknown key ${key}.${hint} Valid keys here: ${allowed.join(", ")}`,
+      };
     }
     case "required":
-      return { path: segments, at: "value", text: `missing required key ${(e.params as { missingProperty: string }).missingProperty}` };
+      return {
+        path: segments,
+        at: "value",
+        text: `missing required key ${(e.params as { missingProperty: string }).missingProperty}`,
+      };
     case "type":
-      return { path: segments, at: "value", text: `must be ${article((e.params as { type: string }).type)} (got ${got})` };
+      return {
+        path: segments,
+        at: "value",
+        text: `must be ${article((e.params as { type: string }).type)} (got ${got})`,
+      };
     case "const":
-      return { path: segments, at: "value", text: `must be true (got ${got}); to fix the curvature otherwise give Omega_k or Omega_de instead` };
+      return {
+        path: segments,
+        at: "value",
+        text: `must be true (got ${got}); to fix the curvature otherwise give Omega_k or Omega_de instead`,
+      };
     case "enum":
-      return { path: segments, at: "value", text: `must be one of: ${(e.params as { allowedValues: unknown[] }).allowedValues.join(", ")} (got ${got})` };
+      return {
+        path: segments,
+        at: "value",
+        text: `must be one of: ${(e.params as { allowedValues: unknown[] }).allowedValues.join(", ")} (got ${got})`,
+      };
     case "pattern":
-      return { path: segments, at: "value", text: `must be a slug of lowercase letters, digits and single hyphens, such as deep-field (got ${got})` };
-    case "minimum": case "maximum": case "exclusiveMinimum": case "exclusiveMaximum": {
+      return {
+        path: segments,
+        at: "value",
+        text: `must be a slug of lowercase letters, digits and single hyphens, such as deep-field (got ${got})`,
+      };
+    case "minimum":
+    case "maximum":
+    case "exclusiveMinimum":
+    case "exclusiveMaximum": {
       const p = e.params as { comparison: string; limit: number };
       return { path: segments, at: "value", text: `must be ${p.comparison} ${p.limit} (got ${got})` };
     }
-    case "minItems": return { path: segments, at: "value", text: `must list at least ${(e.params as { limit: number }).limit} item(s)` };
-    case "maxItems": return { path: segments, at: "value", text: `may list at most ${(e.params as { limit: number }).limit} items` };
-    case "minLength": return { path: segments, at: "value", text: "must not be empty" };
-    case "maxLength": return { path: segments, at: "value", text: `may be at most ${(e.params as { limit: number }).limit} characters long` };
+    case "minItems":
+      return {
+        path: segments,
+        at: "value",
+        text: `must list at least ${(e.params as { limit: number }).limit} item(s)`,
+      };
+    case "maxItems":
+      return { path: segments, at: "value", text: `may list at most ${(e.params as { limit: number }).limit} items` };
+    case "minLength":
+      return { path: segments, at: "value", text: "must not be empty" };
+    case "maxLength":
+      return {
+        path: segments,
+        at: "value",
+        text: `may be at most ${(e.params as { limit: number }).limit} characters long`,
+      };
     default:
       return { path: segments, at: "value", text: e.message ?? "is not valid" };
   }
 }
 
 function article(type: string): string {
-  return type === "integer" ? "a whole number" : type === "object" ? "a mapping of keys to values" : type === "array" ? "a list" : `a ${type}`;
+  return type === "integer"
+    ? "a whole number"
+    : type === "object"
+      ? "a mapping of keys to values"
+      : type === "array"
+        ? "a list"
+        : `a ${type}`;
 }
 
 function levenshteinClose(a: string, b: string): boolean {

@@ -16,13 +16,22 @@ export async function contractTypesSource(n) {
   delete schema.$id; // keep the generated names independent of the schema's address
   const banner = `/* Generated from src/schema/tables/${n}.schema.json by src/schema/generateContractTypes.mjs; do not edit. */`;
   return compile({ ...schema, title: `TablesDocumentFormat${n}` }, `TablesDocumentFormat${n}`, {
-    bannerComment: banner, additionalProperties: false, strictIndexSignatures: false, unknownAny: true, format: true, ignoreMinAndMaxItems: true,
+    bannerComment: banner,
+    additionalProperties: false,
+    strictIndexSignatures: false,
+    unknownAny: true,
+    format: true,
+    ignoreMinAndMaxItems: true,
     style: { printWidth: 120, semi: true, singleQuote: false, trailingComma: "all" },
   });
 }
 
 export const releasedTablesFormats = () =>
-  readdirSync(schemas).map((f) => /^([1-9][0-9]*)\.schema\.json$/.exec(f)?.[1]).filter(Boolean).map(Number).sort((a, b) => a - b);
+  readdirSync(schemas)
+    .map((f) => /^([1-9][0-9]*)\.schema\.json$/.exec(f)?.[1])
+    .filter(Boolean)
+    .map(Number)
+    .sort((a, b) => a - b);
 
 if (process.argv[1] === fileURLToPath(import.meta.url)) {
   for (const n of releasedTablesFormats()) {

@@ -15,15 +15,21 @@ export function chartPayload(doc: StoredTablesDocument) {
     models: doc.models.map((m) => ({
       id: m.id,
       label: m.label,
-      values: Object.fromEntries(CHART_SERIES.map((s) => [s.key, (m.grid as unknown as Record<string, (number | null)[]>)[s.key].map(round)])),
+      values: Object.fromEntries(
+        CHART_SERIES.map((s) => [s.key, (m.grid as unknown as Record<string, (number | null)[]>)[s.key].map(round)]),
+      ),
     })),
   };
 }
 
 /** JSON safe to place inside a <script type="application/json"> element: <, > and & are escaped. */
 export function jsonForScriptElement(value: unknown): string {
-  return JSON.stringify(value).replace(/</g, "\\u003c").replace(/>/g, "\\u003e").replace(/&/g, "\\u0026")
-    .replace(/\u2028/g, "\\u2028").replace(/\u2029/g, "\\u2029");
+  return JSON.stringify(value)
+    .replace(/</g, "\\u003c")
+    .replace(/>/g, "\\u003e")
+    .replace(/&/g, "\\u0026")
+    .replace(/\u2028/g, "\\u2028")
+    .replace(/\u2029/g, "\\u2029");
 }
 
 /** The small overview chart of each scenario on the index: D_L against z, at most about 60 grid points. */

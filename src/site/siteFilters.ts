@@ -23,7 +23,8 @@ export const TEXT_FILTERS = {
   /** Units as written in keys (Gpc^3) with real superscripts. */
   unit: (u: string) => u.replace(/\^3/g, "\u00b3").replace(/\^2/g, "\u00b2"),
   /** A version's creation time (ISO 8601, UTC) as "2026-03-14 09:30 UTC"; times come from the versions, never from the build. */
-  when: (iso: string) => (/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(iso) ? `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC` : iso),
+  when: (iso: string) =>
+    /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(iso) ? `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC` : iso,
   /** A version message, or a placeholder when it was frozen without one. */
   message: (m: string) => (m && m.trim() ? m : "(no message)"),
   /** Source text split into lines, for a numbered listing. */

@@ -1,4 +1,9 @@
-import { holdsSameInputs, VERSION_FORMAT, type StoredVersionRecord, type VersionRecord } from "../contract/versionRecord.js";
+import {
+  holdsSameInputs,
+  VERSION_FORMAT,
+  type StoredVersionRecord,
+  type VersionRecord,
+} from "../contract/versionRecord.js";
 import { versionDiff, type VersionDiff } from "../archive/versionDiff.js";
 import type { ScenarioArchive } from "../archive/readArchive.js";
 import type { StoredTablesDocument, TablesDocument } from "../contract/tablesDocument.js";
@@ -9,10 +14,23 @@ import { formatPercent } from "../contract/formatNumber.js";
 import type { ExportProvenance } from "../exports/exportProvenance.js";
 
 /** Makes the exports of one page (the site passes exportFiles with cached chart renderers). */
-export type PageExporter = (doc: StoredTablesDocument, base: Omit<ExportProvenance, "page">, pageAddress: string) => { files: { name: string; content: ExportContent }[]; index: ExportIndex };
+export type PageExporter = (
+  doc: StoredTablesDocument,
+  base: Omit<ExportProvenance, "page">,
+  pageAddress: string,
+) => { files: { name: string; content: ExportContent }[]; index: ExportIndex };
 
 /** A frozen version as pages show it. */
-export interface VersionInfo { n: number; created: string; message: string; sha256: string; previous_sha256: string | null; engine: string; format: string; path: string }
+export interface VersionInfo {
+  n: number;
+  created: string;
+  message: string;
+  sha256: string;
+  previous_sha256: string | null;
+  engine: string;
+  format: string;
+  path: string;
+}
 
 /**
  * What a scenario page shows:
@@ -25,8 +43,12 @@ export interface VersionInfo { n: number; created: string; message: string; sha2
 export type PageStatus = "unarchived" | "latest" | "draft" | "frozen" | "archived-only";
 
 export interface ScenarioPage {
-  id: string; path: string; root: string; status: PageStatus;
-  doc: StoredTablesDocument; source: string;
+  id: string;
+  path: string;
+  root: string;
+  status: PageStatus;
+  doc: StoredTablesDocument;
+  source: string;
   /** The catalogue filtered to the quantities this page's document holds, and the labels of those it lacks. */
   catalog: DocumentCatalog;
   /** The document's contract format (cosmoledger.tables/N). */
@@ -43,9 +65,31 @@ export interface ScenarioPage {
   exports: ExportIndex | null;
 }
 
-export interface HistoryEntry extends VersionInfo { diffPath: string | null; summary: string }
-export interface HistoryPage { id: string; title: string; path: string; root: string; entries: HistoryEntry[]; draft: boolean; draftDiffPath: string | null; pairs: { from: number | "draft"; to: number | "draft"; path: string }[] }
-export interface DiffPage { id: string; title: string; path: string; root: string; from: VersionInfo | null; to: VersionInfo | null; fromLabel: string; toLabel: string; diff: VersionDiff }
+export interface HistoryEntry extends VersionInfo {
+  diffPath: string | null;
+  summary: string;
+}
+export interface HistoryPage {
+  id: string;
+  title: string;
+  path: string;
+  root: string;
+  entries: HistoryEntry[];
+  draft: boolean;
+  draftDiffPath: string | null;
+  pairs: { from: number | "draft"; to: number | "draft"; path: string }[];
+}
+export interface DiffPage {
+  id: string;
+  title: string;
+  path: string;
+  root: string;
+  from: VersionInfo | null;
+  to: VersionInfo | null;
+  fromLabel: string;
+  toLabel: string;
+  diff: VersionDiff;
+}
 
 export interface SitePages {
   pages: ScenarioPage[];
@@ -61,14 +105,34 @@ export interface SitePages {
 /** Above this many versions a scenario gets diff pages for consecutive versions and for each version against the latest only. */
 export const ALL_PAIRS_LIMIT = 30;
 
-const info = (r: StoredVersionRecord): VersionInfo => ({ n: r.version, created: r.created, message: r.message, sha256: r.sha256, previous_sha256: r.previous_sha256, engine: r.engine.version, format: r.tables.format, path: `${r.scenario_id}/v${r.version}/` });
-const diffPath = (id: string, a: number | "draft", b: number | "draft") => `${id}/diff/${a === "draft" ? "draft" : `v${a}`}-${b === "draft" ? "draft" : `v${b}`}/`;
+const info = (r: StoredVersionRecord): VersionInfo => ({
+  n: r.version,
+  created: r.created,
+  message: r.message,
+  sha256: r.sha256,
+  previous_sha256: r.previous_sha256,
+  engine: r.engine.version,
+  format: r.tables.format,
+  path: `${r.scenario_id}/v${r.version}/`,
+});
+const diffPath = (id: string, a: number | "draft", b: number | "draft") =>
+  `${id}/diff/${a === "draft" ? "draft" : `v${a}`}-${b === "draft" ? "draft" : `v${b}`}/`;
 
 /** The draft as an unsealed record (from its tables document alone, which holds its source and inputs), so that it can be compared with versions. */
 function draftRecord(doc: TablesDocument, n: number): VersionRecord {
   return {
-    format: VERSION_FORMAT, scenario_id: doc.scenario.id, version: n, created: "", message: "", previous_sha256: null, tool: { name: "cosmoledger", version: "" },
-    source: { path: doc.scenario.source_path, text: doc.scenario.source_text }, inputs: doc.inputs, engine: doc.engine, tables: doc, sha256: "",
+    format: VERSION_FORMAT,
+    scenario_id: doc.scenario.id,
+    version: n,
+    created: "",
+    message: "",
+    previous_sha256: null,
+    tool: { name: "cosmoledger", version: "" },
+    source: { path: doc.scenario.source_path, text: doc.scenario.source_text },
+    inputs: doc.inputs,
+    engine: doc.engine,
+    tables: doc,
+    sha256: "",
   };
 }
 
@@ -81,15 +145,28 @@ function summarise(d: VersionDiff): string {
   if (d.modelsAdded.length) parts.push(`added ${d.modelsAdded.join(", ")}`);
   if (d.modelsRemoved.length) parts.push(`removed ${d.modelsRemoved.join(", ")}`);
   if (d.engine.changed) parts.push(`engine ${d.engine.before} \u2192 ${d.engine.after}`);
-  if (d.format.changed) parts.push(`data format ${d.format.before.replace("cosmoledger.", "")} \u2192 ${d.format.after.replace("cosmoledger.", "")}${d.format.quantitiesAdded.length ? ` (${d.format.quantitiesAdded.length} quantities added)` : ""}`);
+  if (d.format.changed)
+    parts.push(
+      `data format ${d.format.before.replace("cosmoledger.", "")} \u2192 ${d.format.after.replace("cosmoledger.", "")}${d.format.quantitiesAdded.length ? ` (${d.format.quantitiesAdded.length} quantities added)` : ""}`,
+    );
   if (parts.length === 0) parts.push(d.source.length ? "source text only (comments or layout)" : "no change");
   const l = d.largest;
-  if (l && l.relative !== null && l.relative > 0) parts.push(`largest output change ${formatPercent(l.relative).replace(/^\+/, "")} (${l.label}, ${l.model}, ${l.where})`);
+  if (l && l.relative !== null && l.relative > 0)
+    parts.push(
+      `largest output change ${formatPercent(l.relative).replace(/^\+/, "")} (${l.label}, ${l.model}, ${l.where})`,
+    );
   return parts.join("; ");
 }
 
-function downloadsOf(path: string, doc: StoredTablesDocument, record: StoredVersionRecord | null): { path: string; text: string }[] {
-  const files = [{ path: `${path}tables.json`, text: JSON.stringify(doc) + "\n" }, ...Object.entries(tablesCsv(doc)).map(([name, text]) => ({ path: path + name, text }))];
+function downloadsOf(
+  path: string,
+  doc: StoredTablesDocument,
+  record: StoredVersionRecord | null,
+): { path: string; text: string }[] {
+  const files = [
+    { path: `${path}tables.json`, text: JSON.stringify(doc) + "\n" },
+    ...Object.entries(tablesCsv(doc)).map(([name, text]) => ({ path: path + name, text })),
+  ];
   if (record) files.push({ path: `${path}version.json`, text: JSON.stringify(record) + "\n" });
   return files;
 }
@@ -99,14 +176,25 @@ function downloadsOf(path: string, doc: StoredTablesDocument, record: StoredVers
  * scenario, one page per frozen version, a history page and diff pages per archived scenario, and the downloads.
  * Frozen versions are shown from their stored tables, never recomputed.
  */
-export function sitePages(docs: TablesDocument[], archives: ScenarioArchive[], exporter: PageExporter | null = null, toolVersion = ""): SitePages {
+export function sitePages(
+  docs: TablesDocument[],
+  archives: ScenarioArchive[],
+  exporter: PageExporter | null = null,
+  toolVersion = "",
+): SitePages {
   const exportFiles: SitePages["exportFiles"] = [];
   const attachExports = (page: ScenarioPage) => {
     if (!exporter) return;
     const v = page.version;
     const base = {
-      tool: "cosmoledger", tool_version: toolVersion, scenario_id: page.id, scenario_title: page.doc.scenario.title,
-      version: v ? v.n : null, version_sha256: v ? v.sha256 : null, inputs_sha256: page.doc.scenario.inputs_sha256, engine_version: page.doc.engine.version,
+      tool: "cosmoledger",
+      tool_version: toolVersion,
+      scenario_id: page.id,
+      scenario_title: page.doc.scenario.title,
+      version: v ? v.n : null,
+      version_sha256: v ? v.sha256 : null,
+      inputs_sha256: page.doc.scenario.inputs_sha256,
+      engine_version: page.doc.engine.version,
     };
     const made = exporter(page.doc, base, `${page.path}index.html`);
     page.exports = made.index;
@@ -118,7 +206,9 @@ export function sitePages(docs: TablesDocument[], archives: ScenarioArchive[], e
   const histories: HistoryPage[] = [];
   const diffs: DiffPage[] = [];
   const downloads: { path: string; text: string }[] = [];
-  const ids = [...new Set([...docs.map((d) => d.scenario.id), ...archives.filter((a) => a.versions.length > 0).map((a) => a.id)])].sort();
+  const ids = [
+    ...new Set([...docs.map((d) => d.scenario.id), ...archives.filter((a) => a.versions.length > 0).map((a) => a.id)]),
+  ].sort();
   for (const id of ids) {
     const file = docs.find((d) => d.scenario.id === id);
     const versions = archives.find((a) => a.id === id)?.versions ?? [];
@@ -127,8 +217,20 @@ export function sitePages(docs: TablesDocument[], archives: ScenarioArchive[], e
     const draftDiffPath = isDraft && latest ? diffPath(id, latest.version, "draft") : null;
     for (const r of versions) {
       const page: ScenarioPage = {
-        id, path: `${id}/v${r.version}/`, root: "../../", status: "frozen", doc: r.tables, source: r.source.text, catalog: catalogFor(r.tables), format: r.tables.format,
-        version: info(r), latest: info(latest!), versionCount: versions.length, downloads: [], draftDiffPath: null, exports: null,
+        id,
+        path: `${id}/v${r.version}/`,
+        root: "../../",
+        status: "frozen",
+        doc: r.tables,
+        source: r.source.text,
+        catalog: catalogFor(r.tables),
+        format: r.tables.format,
+        version: info(r),
+        latest: info(latest!),
+        versionCount: versions.length,
+        downloads: [],
+        draftDiffPath: null,
+        exports: null,
       };
       attachExports(page);
       const files = downloadsOf(page.path, r.tables, r);
@@ -139,9 +241,20 @@ export function sitePages(docs: TablesDocument[], archives: ScenarioArchive[], e
     const status: PageStatus = !file ? "archived-only" : !latest ? "unarchived" : isDraft ? "draft" : "latest";
     const doc = file ?? latest!.tables;
     const livePage: ScenarioPage = {
-      id, path: `${id}/`, root: "../", status, doc, source: file ? file.scenario.source_text : latest!.source.text, catalog: catalogFor(doc), format: doc.format,
-      version: status === "latest" || status === "archived-only" ? info(latest!) : null, latest: latest ? info(latest) : null,
-      versionCount: versions.length, downloads: [], draftDiffPath, exports: null,
+      id,
+      path: `${id}/`,
+      root: "../",
+      status,
+      doc,
+      source: file ? file.scenario.source_text : latest!.source.text,
+      catalog: catalogFor(doc),
+      format: doc.format,
+      version: status === "latest" || status === "archived-only" ? info(latest!) : null,
+      latest: latest ? info(latest) : null,
+      versionCount: versions.length,
+      downloads: [],
+      draftDiffPath,
+      exports: null,
     };
     attachExports(livePage);
     const liveFiles = downloadsOf(livePage.path, doc, null);
@@ -152,29 +265,47 @@ export function sitePages(docs: TablesDocument[], archives: ScenarioArchive[], e
     if (versions.length === 0) continue;
 
     const title = doc.scenario.title;
-    const points: { label: number | "draft"; record: StoredVersionRecord }[] = versions.map((r) => ({ label: r.version, record: r }));
+    const points: { label: number | "draft"; record: StoredVersionRecord }[] = versions.map((r) => ({
+      label: r.version,
+      record: r,
+    }));
     if (isDraft && file) points.push({ label: "draft", record: draftRecord(file, latest!.version + 1) });
     const pairs: HistoryPage["pairs"] = [];
     const all = points.length <= ALL_PAIRS_LIMIT;
-    for (let i = 0; i < points.length; i++) for (let j = i + 1; j < points.length; j++) {
-      if (!all && j !== i + 1 && j !== points.length - 1) continue;
-      const a = points[i];
-      const b = points[j];
-      const path = diffPath(id, a.label, b.label);
-      pairs.push({ from: a.label, to: b.label, path });
-      diffs.push({
-        id, title, path, root: "../../../",
-        from: info(a.record), to: b.label === "draft" ? null : info(b.record),
-        fromLabel: `version ${a.label}`, toLabel: b.label === "draft" ? "unfrozen draft" : `version ${b.label}`,
-        diff: versionDiff(a.record, b.record),
-      });
-    }
+    for (let i = 0; i < points.length; i++)
+      for (let j = i + 1; j < points.length; j++) {
+        if (!all && j !== i + 1 && j !== points.length - 1) continue;
+        const a = points[i];
+        const b = points[j];
+        const path = diffPath(id, a.label, b.label);
+        pairs.push({ from: a.label, to: b.label, path });
+        diffs.push({
+          id,
+          title,
+          path,
+          root: "../../../",
+          from: info(a.record),
+          to: b.label === "draft" ? null : info(b.record),
+          fromLabel: `version ${a.label}`,
+          toLabel: b.label === "draft" ? "unfrozen draft" : `version ${b.label}`,
+          diff: versionDiff(a.record, b.record),
+        });
+      }
     const entries: HistoryEntry[] = versions.map((r, i) => {
       if (i === 0) return { ...info(r), diffPath: null, summary: "first version" };
       const d = diffs.find((x) => x.id === id && x.path === diffPath(id, versions[i - 1].version, r.version))!;
       return { ...info(r), diffPath: d.path, summary: summarise(d.diff) };
     });
-    histories.push({ id, title, path: `${id}/history/`, root: "../../", entries: entries.reverse(), draft: isDraft, draftDiffPath, pairs });
+    histories.push({
+      id,
+      title,
+      path: `${id}/history/`,
+      root: "../../",
+      entries: entries.reverse(),
+      draft: isDraft,
+      draftDiffPath,
+      pairs,
+    });
   }
   return { pages, live, histories, diffs, downloads, exportFiles };
 }

@@ -1,7 +1,21 @@
 import { createHash } from "node:crypto";
 import {
-  CONSTANTS, DEFAULT_N_EFF, DEFAULT_T_CMB_K, ENGINE_TOLERANCE, ENGINE_VERSION, FLATNESS_THRESHOLD, REDSHIFT_COLUMN_KEYS,
-  BAO_KEYS, backgroundSummary, physicalBaryonDensity, baoRatios, earlyUniverse, redshiftAtComovingDistance, redshiftTable, type BaoColumns, type RedshiftColumns,
+  CONSTANTS,
+  DEFAULT_N_EFF,
+  DEFAULT_T_CMB_K,
+  ENGINE_TOLERANCE,
+  ENGINE_VERSION,
+  FLATNESS_THRESHOLD,
+  REDSHIFT_COLUMN_KEYS,
+  BAO_KEYS,
+  backgroundSummary,
+  physicalBaryonDensity,
+  baoRatios,
+  earlyUniverse,
+  redshiftAtComovingDistance,
+  redshiftTable,
+  type BaoColumns,
+  type RedshiftColumns,
 } from "../engine/index.js";
 import type { ResolvedModel, ResolvedScenario } from "../scenario/resolvedScenario.js";
 import { DEFAULT_W0, DEFAULT_WA } from "../scenario/resolveScenario.js";
@@ -50,33 +64,73 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
   const bg = m.background;
   const { summary, warnings } = backgroundSummary(bg);
   const allWarnings = [...m.warnings, ...warnings];
-  if (summary.antipode_distance_Mpc !== null && summary.particle_horizon_Mpc !== null && summary.particle_horizon_Mpc > summary.antipode_distance_Mpc) {
+  if (
+    summary.antipode_distance_Mpc !== null &&
+    summary.particle_horizon_Mpc !== null &&
+    summary.particle_horizon_Mpc > summary.antipode_distance_Mpc
+  ) {
     const zAnti = redshiftAtComovingDistance(bg, summary.antipode_distance_Mpc);
-    allWarnings.push(`light from beyond z = ${zAnti.toPrecision(6)} has passed the antipode: D_M is negative there (sign convention: D_M = R sin(D_C/R); images are inverted)`);
+    allWarnings.push(
+      `light from beyond z = ${zAnti.toPrecision(6)} has passed the antipode: D_M is negative there (sign convention: D_M = R sin(D_C/R); images are inverted)`,
+    );
   }
   const early = earlyUniverse(bg);
   const rDrag = early.values.sound_horizon_drag_Mpc;
   const withBao = (c: RedshiftColumns): Columns => ({ ...c, ...baoRatios(c, rDrag) });
-  const derived = m.inputs.curvature_key === "Omega_k" ? "Omega_de" : m.inputs.curvature_key === "flat" ? "Omega_de" : "Omega_k";
+  const derived =
+    m.inputs.curvature_key === "Omega_k" ? "Omega_de" : m.inputs.curvature_key === "flat" ? "Omega_de" : "Omega_k";
   const provenance: ModelTables["provenance"] = {
-    H0: m.provenance.H0, Omega_m: m.provenance.Omega_m, w0: m.provenance.w0, wa: m.provenance.wa,
-    radiation: m.provenance.radiation, T_cmb: m.provenance.T_cmb, N_eff: m.provenance.N_eff,
+    H0: m.provenance.H0,
+    Omega_m: m.provenance.Omega_m,
+    w0: m.provenance.w0,
+    wa: m.provenance.wa,
+    radiation: m.provenance.radiation,
+    T_cmb: m.provenance.T_cmb,
+    N_eff: m.provenance.N_eff,
     curvature_from: m.provenance.curvature_key,
-    [m.inputs.curvature_key === "flat" ? "Omega_k" : m.inputs.curvature_key === "Omega_Lambda" ? "Omega_de" : m.inputs.curvature_key]: m.provenance.curvature_value,
-    [derived]: "derived", Omega_r: "derived", Omega_gamma: "derived", Omega_nu: "derived",
-    Omega_cb: "derived", Omega_nu_massive: "derived", T_nu: "derived", m_nu_eV: m.provenance.m_nu_eV,
+    [m.inputs.curvature_key === "flat"
+      ? "Omega_k"
+      : m.inputs.curvature_key === "Omega_Lambda"
+        ? "Omega_de"
+        : m.inputs.curvature_key]: m.provenance.curvature_value,
+    [derived]: "derived",
+    Omega_r: "derived",
+    Omega_gamma: "derived",
+    Omega_nu: "derived",
+    Omega_cb: "derived",
+    Omega_nu_massive: "derived",
+    T_nu: "derived",
+    m_nu_eV: m.provenance.m_nu_eV,
     Omega_b: m.inputs.baryon_key === "Omega_b" ? m.provenance.baryon_value : "derived",
     omega_b: m.inputs.baryon_key === "omega_b" ? m.provenance.baryon_value : "derived",
   };
   if (m.inputs.curvature_key === "flat") provenance.Omega_k = m.provenance.curvature_key;
   return {
-    id: m.id, label: m.label, extends: m.extends, notes: m.notes, warnings: allWarnings,
+    id: m.id,
+    label: m.label,
+    extends: m.extends,
+    notes: m.notes,
+    warnings: allWarnings,
     parameters: {
-      H0: bg.H0_km_s_Mpc, Omega_m: bg.Omega_m, Omega_de: bg.Omega_de, Omega_k: bg.Omega_k, Omega_r: bg.Omega_r,
-      Omega_gamma: bg.Omega_gamma, Omega_nu: bg.Omega_nu, w0: bg.w0, wa: bg.wa, T_cmb: m.inputs.T_cmb, N_eff: m.inputs.N_eff,
-      radiation: m.inputs.radiation, curvature_from: m.inputs.curvature_key,
-      Omega_b: bg.Omega_b, omega_b: bg.Omega_b === null ? null : physicalBaryonDensity(bg.Omega_b, bg.H0_km_s_Mpc),
-      Omega_cb: bg.Omega_cb, Omega_nu_massive: bg.Omega_nu_massive, T_nu: bg.T_nu_K, m_nu_eV: m.inputs.m_nu_eV,
+      H0: bg.H0_km_s_Mpc,
+      Omega_m: bg.Omega_m,
+      Omega_de: bg.Omega_de,
+      Omega_k: bg.Omega_k,
+      Omega_r: bg.Omega_r,
+      Omega_gamma: bg.Omega_gamma,
+      Omega_nu: bg.Omega_nu,
+      w0: bg.w0,
+      wa: bg.wa,
+      T_cmb: m.inputs.T_cmb,
+      N_eff: m.inputs.N_eff,
+      radiation: m.inputs.radiation,
+      curvature_from: m.inputs.curvature_key,
+      Omega_b: bg.Omega_b,
+      omega_b: bg.Omega_b === null ? null : physicalBaryonDensity(bg.Omega_b, bg.H0_km_s_Mpc),
+      Omega_cb: bg.Omega_cb,
+      Omega_nu_massive: bg.Omega_nu_massive,
+      T_nu: bg.T_nu_K,
+      m_nu_eV: m.inputs.m_nu_eV,
     },
     provenance,
     summary: { ...summary, ...early.values, early_universe_note: early.note },
@@ -96,20 +150,44 @@ export function buildTablesDocument(s: ResolvedScenario): TablesDocument {
   const differences: TablesDocument["differences"] = {};
   for (const m of models) if (m.id !== s.baseline) differences[m.id] = differencesFromBaseline(m, baseline);
   const constants: TablesDocument["engine"]["constants"] = {};
-  for (const [name, c] of Object.entries(CONSTANTS)) constants[name] = { value: c.value, unit: c.unit, source: c.source };
+  for (const [name, c] of Object.entries(CONSTANTS))
+    constants[name] = { value: c.value, unit: c.unit, source: c.source };
   return {
     format: TABLES_FORMAT,
     scenario: {
-      id: s.id, title: s.title, description: s.description, author: s.author, tags: s.tags, baseline: s.baseline,
-      source_path: s.source.path, source_sha256: sha256(s.source.text), inputs_sha256: inputsSha256(ENGINE_VERSION, inputs),
-      defaults_applied: s.defaults_applied, redshifts: s.redshifts, grid: s.grid, source_text: s.source.text,
+      id: s.id,
+      title: s.title,
+      description: s.description,
+      author: s.author,
+      tags: s.tags,
+      baseline: s.baseline,
+      source_path: s.source.path,
+      source_sha256: sha256(s.source.text),
+      inputs_sha256: inputsSha256(ENGINE_VERSION, inputs),
+      defaults_applied: s.defaults_applied,
+      redshifts: s.redshifts,
+      grid: s.grid,
+      source_text: s.source.text,
     },
     inputs,
     engine: {
-      version: ENGINE_VERSION, tolerance: ENGINE_TOLERANCE, constants,
-      defaults: { w0: DEFAULT_W0, wa: DEFAULT_WA, T_cmb: DEFAULT_T_CMB_K, N_eff: DEFAULT_N_EFF, radiation: "thermal", curvature: "flat", flatness_threshold: FLATNESS_THRESHOLD },
+      version: ENGINE_VERSION,
+      tolerance: ENGINE_TOLERANCE,
+      constants,
+      defaults: {
+        w0: DEFAULT_W0,
+        wa: DEFAULT_WA,
+        T_cmb: DEFAULT_T_CMB_K,
+        N_eff: DEFAULT_N_EFF,
+        radiation: "thermal",
+        curvature: "flat",
+        flatness_threshold: FLATNESS_THRESHOLD,
+      },
     },
-    cautions: cautions(s.models.some((m) => m.background.Omega_b !== null), s.models.some((m) => m.background.massiveNeutrinos.length > 0)),
+    cautions: cautions(
+      s.models.some((m) => m.background.Omega_b !== null),
+      s.models.some((m) => m.background.massiveNeutrinos.length > 0),
+    ),
     models,
     differences,
   };

@@ -26,7 +26,8 @@ export function differencesFromBaseline(model: ModelTables, baseline: ModelTable
   const summary: Record<string, Difference> = {};
   for (const [key, value] of Object.entries(model.summary)) {
     const b = (baseline.summary as Record<string, Num | string>)[key];
-    if (typeof value === "string" || typeof b === "string" || (value === null && b === null && key.endsWith("_note"))) continue;
+    if (typeof value === "string" || typeof b === "string" || (value === null && b === null && key.endsWith("_note")))
+      continue;
     summary[key] = { absolute: value !== null && b !== null ? value - b : null, relative: relative(value, b) };
   }
   return {

@@ -7,8 +7,13 @@ export function surveyRows(model: BackgroundModel, surveys: readonly ResolvedSur
   return surveys.map((s) => {
     const volumeMpc3 = shellVolumeMpc3(model, s.z_min, s.z_max, s.area_deg2);
     return {
-      name: s.name, area_deg2: s.area_deg2, z_min: s.z_min, z_max: s.z_max, volume_Gpc3: volumeMpc3 * 1e-9,
-      density_per_Mpc3: s.density_per_Mpc3, expected_count: s.density_per_Mpc3 === null ? null : s.density_per_Mpc3 * volumeMpc3,
+      name: s.name,
+      area_deg2: s.area_deg2,
+      z_min: s.z_min,
+      z_max: s.z_max,
+      volume_Gpc3: volumeMpc3 * 1e-9,
+      density_per_Mpc3: s.density_per_Mpc3,
+      expected_count: s.density_per_Mpc3 === null ? null : s.density_per_Mpc3 * volumeMpc3,
     };
   });
 }

@@ -10,28 +10,48 @@ const cell = (v: unknown): string => (v === null || v === undefined ? "" : Strin
  */
 export function tablesCsv(doc: StoredTablesDocument): Record<string, string> {
   const ids = doc.models.map((m) => m.id);
-  const table = (header: string[], body: unknown[][]) => stringify([header, ...body.map((r) => r.map(cell))], { record_delimiter: "\r\n" });
+  const table = (header: string[], body: unknown[][]) =>
+    stringify([header, ...body.map((r) => r.map(cell))], { record_delimiter: "\r\n" });
   const cellOf = (v: unknown) => (Array.isArray(v) ? v.join(" ") : v);
   const rec = (x: object) => x as Record<string, unknown>;
   const paramKeys = Object.keys(doc.models[0].parameters);
   const summaryKeys = Object.keys(doc.models[0].summary);
   const rowKeys = Object.keys(doc.models[0].redshifts[0] ?? { z: null });
   const files: Record<string, string> = {
-    "parameters.csv": table(["parameter", ...ids], paramKeys.map((k) => [k, ...doc.models.map((m) => cellOf(rec(m.parameters)[k]))])),
-    "summary.csv": table(["quantity", ...ids], summaryKeys.map((k) => [k, ...doc.models.map((m) => rec(m.summary)[k])])),
-    "redshifts.csv": table(["model", ...rowKeys], doc.models.flatMap((m) => m.redshifts.map((r) => [m.id, ...rowKeys.map((k) => rec(r)[k])]))),
-    "differences.csv": table(["model", "quantity", "absolute", "relative"], Object.entries(doc.differences).flatMap(([id, d]) =>
-      Object.entries(d.summary).map(([k, v]) => [id, k, v.absolute, v.relative]))),
+    "parameters.csv": table(
+      ["parameter", ...ids],
+      paramKeys.map((k) => [k, ...doc.models.map((m) => cellOf(rec(m.parameters)[k]))]),
+    ),
+    "summary.csv": table(
+      ["quantity", ...ids],
+      summaryKeys.map((k) => [k, ...doc.models.map((m) => rec(m.summary)[k])]),
+    ),
+    "redshifts.csv": table(
+      ["model", ...rowKeys],
+      doc.models.flatMap((m) => m.redshifts.map((r) => [m.id, ...rowKeys.map((k) => rec(r)[k])])),
+    ),
+    "differences.csv": table(
+      ["model", "quantity", "absolute", "relative"],
+      Object.entries(doc.differences).flatMap(([id, d]) =>
+        Object.entries(d.summary).map(([k, v]) => [id, k, v.absolute, v.relative]),
+      ),
+    ),
   };
   const targets = doc.models.flatMap((m) => m.targets.map((t) => ({ model: m.id, ...t })));
   if (targets.length > 0) {
     const keys = Object.keys(targets[0]);
-    files["targets.csv"] = table(keys, targets.map((t) => keys.map((k) => (t as Record<string, unknown>)[k])));
+    files["targets.csv"] = table(
+      keys,
+      targets.map((t) => keys.map((k) => (t as Record<string, unknown>)[k])),
+    );
   }
   const surveys = doc.models.flatMap((m) => m.surveys.map((s) => ({ model: m.id, ...s })));
   if (surveys.length > 0) {
     const keys = Object.keys(surveys[0]);
-    files["surveys.csv"] = table(keys, surveys.map((s) => keys.map((k) => (s as Record<string, unknown>)[k])));
+    files["surveys.csv"] = table(
+      keys,
+      surveys.map((s) => keys.map((k) => (s as Record<string, unknown>)[k])),
+    );
   }
   return files;
 }

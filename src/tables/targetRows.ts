@@ -1,5 +1,12 @@
 import {
-  NoSuchRedshiftError, angularSizeArcsec, apparentMagnitude, bolometricFluxErgSCm2, redshiftAtAge, redshiftAtComovingDistance, redshiftAtLookbackTime, redshiftTable,
+  NoSuchRedshiftError,
+  angularSizeArcsec,
+  apparentMagnitude,
+  bolometricFluxErgSCm2,
+  redshiftAtAge,
+  redshiftAtComovingDistance,
+  redshiftAtLookbackTime,
+  redshiftTable,
   type BackgroundModel,
 } from "../engine/index.js";
 import type { ResolvedTarget } from "../scenario/resolvedScenario.js";
@@ -14,17 +21,32 @@ const num = (x: number): Num => (Number.isFinite(x) ? x : null);
 export function targetRows(model: BackgroundModel, targets: readonly ResolvedTarget[]): TargetRow[] {
   return targets.map((t) => {
     const empty: TargetRow = {
-      name: t.name, placed_by: t.placement.by, z: null, lookback_time_Gyr: null, age_Gyr: null, comoving_distance_Mpc: null,
-      angular_diameter_distance_Mpc: null, luminosity_distance_Mpc: null, distance_modulus_mag: null, kpc_per_arcsec_proper: null,
-      angular_size_arcsec: null, apparent_magnitude: null, bolometric_flux_erg_s_cm2: null, note: null,
+      name: t.name,
+      placed_by: t.placement.by,
+      z: null,
+      lookback_time_Gyr: null,
+      age_Gyr: null,
+      comoving_distance_Mpc: null,
+      angular_diameter_distance_Mpc: null,
+      luminosity_distance_Mpc: null,
+      distance_modulus_mag: null,
+      kpc_per_arcsec_proper: null,
+      angular_size_arcsec: null,
+      apparent_magnitude: null,
+      bolometric_flux_erg_s_cm2: null,
+      note: null,
     };
     let z: number;
     try {
       const p = t.placement;
-      z = p.by === "z" ? p.z
-        : p.by === "lookback_Gyr" ? redshiftAtLookbackTime(model, p.value)
-        : p.by === "age_Gyr" ? redshiftAtAge(model, p.value)
-        : redshiftAtComovingDistance(model, p.value);
+      z =
+        p.by === "z"
+          ? p.z
+          : p.by === "lookback_Gyr"
+            ? redshiftAtLookbackTime(model, p.value)
+            : p.by === "age_Gyr"
+              ? redshiftAtAge(model, p.value)
+              : redshiftAtComovingDistance(model, p.value);
     } catch (e) {
       if (e instanceof NoSuchRedshiftError) return { ...empty, note: `not reached in this model: ${e.message}` };
       throw e;

@@ -25,14 +25,35 @@ function run(cmd: string, args: string[], cwd: string) {
 describe("an additive contract change keeps every archive readable", { timeout: 600_000 }, () => {
   it("adds a quantity in a new format; the fixture and demo archives still build, verify --strict and continue", () => {
     const project = tempDir("cosmoledger-additive-");
-    for (const f of ["src", "bin", "content", "package.json", "tsconfig.json", ".eleventy.js"]) cpSync(join(ROOT, f), join(project, f), { recursive: true });
+    for (const f of ["src", "bin", "content", "package.json", "tsconfig.json", ".eleventy.js"])
+      cpSync(join(ROOT, f), join(project, f), { recursive: true });
     symlinkSync(join(ROOT, "node_modules"), join(project, "node_modules"), "dir");
 
     // 1. Engine: the quantity, computed in the per-redshift pass.
-    edit(project, "src/engine/redshiftTable.ts", "  light_travel_distance_Gly: Float64Array;\n}", "  light_travel_distance_Gly: Float64Array;\n  scale_factor: Float64Array;\n}");
-    edit(project, "src/engine/redshiftTable.ts", '"light_travel_distance_Gly",\n] as const', '"light_travel_distance_Gly", "scale_factor",\n] as const');
-    edit(project, "src/engine/redshiftTable.ts", "light_travel_distance_Gly: col(),\n", "light_travel_distance_Gly: col(), scale_factor: col(),\n");
-    edit(project, "src/engine/redshiftTable.ts", "    out.light_travel_distance_Gly[i] = lookback;\n", "    out.light_travel_distance_Gly[i] = lookback;\n    out.scale_factor[i] = a; // a = 1/(1+z), the definition of redshift\n");
+    edit(
+      project,
+      "src/engine/redshiftTable.ts",
+      "  light_travel_distance_Gly: Float64Array;\n}",
+      "  light_travel_distance_Gly: Float64Array;\n  scale_factor: Float64Array;\n}",
+    );
+    edit(
+      project,
+      "src/engine/redshiftTable.ts",
+      '"light_travel_distance_Gly",\n] as const',
+      '"light_travel_distance_Gly", "scale_factor",\n] as const',
+    );
+    edit(
+      project,
+      "src/engine/redshiftTable.ts",
+      "light_travel_distance_Gly: col(),\n",
+      "light_travel_distance_Gly: col(), scale_factor: col(),\n",
+    );
+    edit(
+      project,
+      "src/engine/redshiftTable.ts",
+      "    out.light_travel_distance_Gly[i] = lookback;\n",
+      "    out.light_travel_distance_Gly[i] = lookback;\n    out.scale_factor[i] = a; // a = 1/(1+z), the definition of redshift\n",
+    );
     // 2. Contract: a new format whose schema is the previous one plus the key; registered; types regenerated.
     const schema = JSON.parse(readFileSync(join(project, "src/schema/tables/2.schema.json"), "utf8"));
     schema.$id = "https://cosmoledger.invalid/schema/tables/3.schema.json";
@@ -43,27 +64,70 @@ describe("an additive contract change keeps every archive readable", { timeout: 
     schema.definitions.gridColumns.required.push("scale_factor");
     schema.definitions.gridColumns.properties.scale_factor = { type: "array", items: { $ref: "#/definitions/num" } };
     writeFileSync(join(project, "src/schema/tables/3.schema.json"), JSON.stringify(schema, null, 2) + "\n");
-    edit(project, "src/contract/formats.ts", "TABLES_FORMAT_NUMBERS = [1, 2] as const", "TABLES_FORMAT_NUMBERS = [1, 2, 3] as const");
-    edit(project, "src/contract/formats.ts", "TABLES_FORMAT = `${TABLES_FORMAT_PREFIX}2`", "TABLES_FORMAT = `${TABLES_FORMAT_PREFIX}3`");
-    edit(project, "src/contract/validateContract.ts", 'import tables2 from "../schema/tables/2.schema.json" with { type: "json" };', 'import tables2 from "../schema/tables/2.schema.json" with { type: "json" };\nimport tables3 from "../schema/tables/3.schema.json" with { type: "json" };');
-    edit(project, "src/contract/validateContract.ts", "tables: { 1: tables1, 2: tables2 },", "tables: { 1: tables1, 2: tables2, 3: tables3 },");
-    edit(project, "src/contract/tablesDocument.ts", 'import type { TablesDocumentFormat2 } from "./generated/tablesFormat2.js";', 'import type { TablesDocumentFormat2 } from "./generated/tablesFormat2.js";\nimport type { TablesDocumentFormat3 } from "./generated/tablesFormat3.js";');
-    edit(project, "src/contract/tablesDocument.ts", "export type TablesDocument = TablesDocumentFormat2;", "export type TablesDocument = TablesDocumentFormat3;");
-    edit(project, "src/contract/tablesDocument.ts", "export type StoredTablesDocument = TablesDocumentFormat1 | TablesDocumentFormat2;", "export type StoredTablesDocument = TablesDocumentFormat1 | TablesDocumentFormat2 | TablesDocumentFormat3;");
+    edit(
+      project,
+      "src/contract/formats.ts",
+      "TABLES_FORMAT_NUMBERS = [1, 2] as const",
+      "TABLES_FORMAT_NUMBERS = [1, 2, 3] as const",
+    );
+    edit(
+      project,
+      "src/contract/formats.ts",
+      "TABLES_FORMAT = `${TABLES_FORMAT_PREFIX}2`",
+      "TABLES_FORMAT = `${TABLES_FORMAT_PREFIX}3`",
+    );
+    edit(
+      project,
+      "src/contract/validateContract.ts",
+      'import tables2 from "../schema/tables/2.schema.json" with { type: "json" };',
+      'import tables2 from "../schema/tables/2.schema.json" with { type: "json" };\nimport tables3 from "../schema/tables/3.schema.json" with { type: "json" };',
+    );
+    edit(
+      project,
+      "src/contract/validateContract.ts",
+      "tables: { 1: tables1, 2: tables2 },",
+      "tables: { 1: tables1, 2: tables2, 3: tables3 },",
+    );
+    edit(
+      project,
+      "src/contract/tablesDocument.ts",
+      'import type { TablesDocumentFormat2 } from "./generated/tablesFormat2.js";',
+      'import type { TablesDocumentFormat2 } from "./generated/tablesFormat2.js";\nimport type { TablesDocumentFormat3 } from "./generated/tablesFormat3.js";',
+    );
+    edit(
+      project,
+      "src/contract/tablesDocument.ts",
+      "export type TablesDocument = TablesDocumentFormat2;",
+      "export type TablesDocument = TablesDocumentFormat3;",
+    );
+    edit(
+      project,
+      "src/contract/tablesDocument.ts",
+      "export type StoredTablesDocument = TablesDocumentFormat1 | TablesDocumentFormat2;",
+      "export type StoredTablesDocument = TablesDocumentFormat1 | TablesDocumentFormat2 | TablesDocumentFormat3;",
+    );
     const types = run(process.execPath, ["src/schema/generateContractTypes.mjs"], project);
     expect(types.code, types.stderr).toBe(0);
     // 3. Pages: the catalogue entry (label, unit, group).
-    edit(project, "src/contract/quantityCatalog.ts", '{ key: "E", label: "E(z) = H/H0", unit: "" },', '{ key: "E", label: "E(z) = H/H0", unit: "" },\n      { key: "scale_factor", label: "Scale factor a", unit: "" },');
+    edit(
+      project,
+      "src/contract/quantityCatalog.ts",
+      '{ key: "E", label: "E(z) = H/H0", unit: "" },',
+      '{ key: "E", label: "E(z) = H/H0", unit: "" },\n      { key: "scale_factor", label: "Scale factor a", unit: "" },',
+    );
     const build = run("npm", ["run", "build:ts"], project);
     expect(build.code, build.stdout + build.stderr).toBe(0);
 
-    const cli = (args: string[], cwd: string) => run(process.execPath, [join(project, "bin/cosmoledger.js"), ...args], cwd);
+    const cli = (args: string[], cwd: string) =>
+      run(process.execPath, [join(project, "bin/cosmoledger.js"), ...args], cwd);
     // The format-1 fixture: verify --strict lists the new quantity once as added, never as drift.
     const fixture = tempDir();
     cpSync(join(ROOT, "test/fixtures/archive-format-1"), fixture, { recursive: true });
     const v = cli(["verify", "--archive", "scenarios/archive", "--strict"], fixture);
     expect(v.code, v.stderr).toBe(0);
-    expect(v.stdout).toMatch(/added since frozen \(not drift\): redshifts\[\]\.scale_factor \(not computed in 5 versions\)/);
+    expect(v.stdout).toMatch(
+      /added since frozen \(not drift\): redshifts\[\]\.scale_factor \(not computed in 5 versions\)/,
+    );
     expect(v.stdout).toMatch(/added since frozen \(not drift\): grid\.scale_factor/);
     // It continues its chain with format 3.
     const yaml = join(fixture, "scenarios/cinder-vault.yaml");
@@ -71,7 +135,9 @@ describe("an additive contract change keeps every archive readable", { timeout: 
     expect(cli(["freeze", "scenarios/cinder-vault.yaml", "-m", "format 3"], fixture).code).toBe(0);
     const v4 = JSON.parse(readFileSync(join(fixture, "scenarios/archive/cinder-vault/v4.json"), "utf8"));
     expect(v4.tables.format).toBe("cosmoledger.tables/3");
-    expect(v4.tables.models[0].redshifts.map((r: { z: number; scale_factor: number }) => r.scale_factor * (1 + r.z))).toEqual([1, 1]);
+    expect(
+      v4.tables.models[0].redshifts.map((r: { z: number; scale_factor: number }) => r.scale_factor * (1 + r.z)),
+    ).toEqual([1, 1]);
     const again = cli(["verify", "--archive", "scenarios/archive", "--strict"], fixture);
     expect(again.code, again.stderr).toBe(0);
     // Pages of every format: old versions say what they did not compute; the diff across formats lists the addition.
@@ -83,12 +149,18 @@ describe("an additive contract change keeps every archive readable", { timeout: 
     const v4page = parseHTML(readFileSync(join(fixture, "site/cinder-vault/v4/index.html"), "utf8")).document;
     expect(v4page.querySelector('[data-quantity="scale_factor"]')).not.toBeNull();
     const diff = parseHTML(readFileSync(join(fixture, "site/cinder-vault/diff/v3-v4/index.html"), "utf8")).document;
-    expect(diff.querySelector(".format-change")!.textContent).toMatch(/cosmoledger\.tables\/1 → cosmoledger\.tables\/3; quantities added: .*redshifts\[\]\.scale_factor/);
+    expect(diff.querySelector(".format-change")!.textContent).toMatch(
+      /cosmoledger\.tables\/1 → cosmoledger\.tables\/3; quantities added: .*redshifts\[\]\.scale_factor/,
+    );
     expect(diff.querySelector('tr[data-quantity="scale_factor"]')!.textContent).toMatch(/not computed in version 3/);
     // Exports of an old version leave the quantity out; of the new one, include it.
-    expect(cli(["export", "scenarios/cinder-vault.yaml", "--version", "1", "--format", "csv", "--out", "exp"], fixture).code).toBe(0);
+    expect(
+      cli(["export", "scenarios/cinder-vault.yaml", "--version", "1", "--format", "csv", "--out", "exp"], fixture).code,
+    ).toBe(0);
     expect(existsSync(join(fixture, "exp/cinder-vault/v1/z-scale_factor.csv"))).toBe(false);
-    expect(cli(["export", "scenarios/cinder-vault.yaml", "--version", "4", "--format", "csv", "--out", "exp"], fixture).code).toBe(0);
+    expect(
+      cli(["export", "scenarios/cinder-vault.yaml", "--version", "4", "--format", "csv", "--out", "exp"], fixture).code,
+    ).toBe(0);
     expect(existsSync(join(fixture, "exp/cinder-vault/v4/z-scale_factor.csv"))).toBe(true);
 
     // The demo archive (format 2) too.
@@ -98,21 +170,31 @@ describe("an additive contract change keeps every archive readable", { timeout: 
     expect(d.code, d.stderr).toBe(0);
     expect(d.stdout).toMatch(/added since frozen \(not drift\): redshifts\[\]\.scale_factor/);
     expect(cli(["build", "--scenarios", "scenarios", "--out", "site", "--skip-images"], demo).code).toBe(0);
-    expect(cli(["freeze", "scenarios/tidewater-geometry.yaml", "-m", "DEMO: first version under format 3"], demo).code).toBe(0);
+    expect(
+      cli(["freeze", "scenarios/tidewater-geometry.yaml", "-m", "DEMO: first version under format 3"], demo).code,
+    ).toBe(0);
   });
 });
 
 describe("the quantity catalogue is checked against the contract", { timeout: 300_000 }, () => {
   it("a misspelled key in the catalogue fails the type check (it used to show a dash on every page)", () => {
     const project = tempDir("cosmoledger-typo-");
-    for (const f of ["src", "package.json", "tsconfig.json"]) cpSync(join(ROOT, f), join(project, f), { recursive: true });
+    for (const f of ["src", "package.json", "tsconfig.json"])
+      cpSync(join(ROOT, f), join(project, f), { recursive: true });
     symlinkSync(join(ROOT, "node_modules"), join(project, "node_modules"), "dir");
     const tsc = join(ROOT, "node_modules/typescript/bin/tsc");
     const clean = run(process.execPath, [tsc, "--noEmit", "-p", "tsconfig.json"], project);
     expect(clean.code, clean.stdout).toBe(0);
-    edit(project, "src/contract/quantityCatalog.ts", '{ key: "hubble_radius_Mpc", label: "Hubble radius c/H(z)"', '{ key: "hubble_radius_Mpx", label: "Hubble radius c/H(z)"');
+    edit(
+      project,
+      "src/contract/quantityCatalog.ts",
+      '{ key: "hubble_radius_Mpc", label: "Hubble radius c/H(z)"',
+      '{ key: "hubble_radius_Mpx", label: "Hubble radius c/H(z)"',
+    );
     const typo = run(process.execPath, [tsc, "--noEmit", "-p", "tsconfig.json"], project);
     expect(typo.code).not.toBe(0);
-    expect(typo.stdout).toMatch(/src\/contract\/quantityCatalog\.ts\(\d+,\d+\): error TS(2322|2820): Type '"hubble_radius_Mpx"' is not assignable/);
+    expect(typo.stdout).toMatch(
+      /src\/contract\/quantityCatalog\.ts\(\d+,\d+\): error TS(2322|2820): Type '"hubble_radius_Mpx"' is not assignable/,
+    );
   });
 });

@@ -10,32 +10,37 @@ import { sealVersion, versionHash, type VersionRecord } from "../../src/contract
 
 const C_KM_S = 299792.458; // SI definition of the speed of light
 
-const scenario = (h0: number, extra = "") => [
-  "id: shelf-test",
-  "title: Archive test scenario",
-  "redshifts: [0.5, 1, 2]",
-  "grid: { z_max: 3, points: 20, spacing: linear }",
-  "models:",
-  "  - id: base",
-  `    H0: ${h0}`,
-  "    Omega_m: 0.3",
-  "    flat: true",
-  "    radiation: none",
-  extra,
-  "",
-].join("\n");
+const scenario = (h0: number, extra = "") =>
+  [
+    "id: shelf-test",
+    "title: Archive test scenario",
+    "redshifts: [0.5, 1, 2]",
+    "grid: { z_max: 3, points: 20, spacing: linear }",
+    "models:",
+    "  - id: base",
+    `    H0: ${h0}`,
+    "    Omega_m: 0.3",
+    "    flat: true",
+    "    radiation: none",
+    extra,
+    "",
+  ].join("\n");
 
 const page = (file: string) => parseHTML(readFileSync(file, "utf8")).document;
 const hubbleDistanceCell = (doc: Document) => {
-  const row = [...doc.querySelectorAll("table.glance tr")].find((tr) => tr.querySelector("th")?.textContent?.startsWith("Hubble distance"));
+  const row = [...doc.querySelectorAll("table.glance tr")].find((tr) =>
+    tr.querySelector("th")?.textContent?.startsWith("Hubble distance"),
+  );
   return row?.querySelector("td")?.textContent?.trim();
 };
 
 function listFiles(dir: string, prefix = ""): string[] {
-  return readdirSync(dir).sort().flatMap((name) => {
-    const full = join(dir, name);
-    return statSync(full).isDirectory() ? listFiles(full, `${prefix}${name}/`) : [`${prefix}${name}`];
-  });
+  return readdirSync(dir)
+    .sort()
+    .flatMap((name) => {
+      const full = join(dir, name);
+      return statSync(full).isDirectory() ? listFiles(full, `${prefix}${name}/`) : [`${prefix}${name}`];
+    });
 }
 
 // Builds draw chart images into empty caches here, so each test gets a generous time limit.
@@ -91,7 +96,9 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   it("verify passes on the intact archive and reports zero drift", () => {
     const r = cli("verify", "--archive", "scenarios/archive", "--strict");
     expect(r.code, r.stderr).toBe(0);
-    expect(r.stdout).toMatch(/1 scenario, 2 versions \(2 of cosmoledger\.tables\/2\); every hash and chain link checks out/);
+    expect(r.stdout).toMatch(
+      /1 scenario, 2 versions \(2 of cosmoledger\.tables\/2\); every hash and chain link checks out/,
+    );
     expect(r.stdout).toMatch(/(\d+) of \1 quantities reproduce within 1e-10 \(largest 0: bit-identical\)/);
     const full = cli("verify", "--archive", "scenarios/archive", "--verbose");
     expect(full.stdout).toMatch(/summary\.hubble_distance_Mpc\s+0 \(identical\)/);
@@ -99,7 +106,9 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
 
   it("renders version pages, the history, the diff and marks the edited file as an unfrozen draft", () => {
     writeFileSync(join(work, "scenarios/shelf.yaml"), scenario(65));
-    const b = runCli(["build", "--scenarios", "scenarios", "--out", "site"], work, { COSMOLEDGER_CACHE: join(work, "cache-a") });
+    const b = runCli(["build", "--scenarios", "scenarios", "--out", "site"], work, {
+      COSMOLEDGER_CACHE: join(work, "cache-a"),
+    });
     expect(b.code, b.stderr).toBe(0);
     const v1 = page(join(work, "site/shelf-test/v1/index.html"));
     const v2 = page(join(work, "site/shelf-test/v2/index.html"));
@@ -125,7 +134,9 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
     expect(history.querySelector(".banner-draft")).not.toBeNull();
 
     const diff = page(join(work, "site/shelf-test/diff/v1-v2/index.html"));
-    const h0 = [...diff.querySelectorAll("table.input-changes tbody tr")].find((tr) => tr.querySelector("code")?.textContent === "H0");
+    const h0 = [...diff.querySelectorAll("table.input-changes tbody tr")].find(
+      (tr) => tr.querySelector("code")?.textContent === "H0",
+    );
     expect(h0?.textContent).toMatch(/70[\s\S]*60/);
     expect(diff.querySelector(".source-diff tr.del")?.textContent).toMatch(/H0: 70/);
     expect(diff.querySelector(".source-diff tr.add")?.textContent).toMatch(/H0: 60/);
@@ -138,41 +149,60 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
 
   it("two builds of the same inputs and archive are byte-identical, chart images included", () => {
     // Each build draws its images afresh (its own empty image cache), so the comparison covers the drawing too.
-    const r = runCli(["build", "--scenarios", "scenarios", "--out", "site-again"], work, { COSMOLEDGER_CACHE: join(work, "cache-b") });
+    const r = runCli(["build", "--scenarios", "scenarios", "--out", "site-again"], work, {
+      COSMOLEDGER_CACHE: join(work, "cache-b"),
+    });
     expect(r.code, r.stderr).toBe(0);
     const a = listFiles(join(work, "site"));
     const b = listFiles(join(work, "site-again"));
     expect(b).toEqual(a);
     expect(a.filter((f) => f.endsWith(".png")).length).toBeGreaterThan(0);
-    for (const f of a) expect(readFileSync(join(work, "site-again", f)).equals(readFileSync(join(work, "site", f))), f).toBe(true);
+    for (const f of a)
+      expect(readFileSync(join(work, "site-again", f)).equals(readFileSync(join(work, "site", f))), f).toBe(true);
   });
 
   it("a version frozen by an earlier engine is shown as frozen and verify reports its drift (exit 3 with --strict)", () => {
     // Simulate an archive written by an older engine: a valid, sealed version 3 whose stored c/H0 differs by 1e-6.
     const r2: VersionRecord = JSON.parse(readFileSync(join(work, "scenarios/archive/shelf-test/v2.json"), "utf8"));
     const tables = structuredClone(r2.tables);
-    tables.models[0].summary.hubble_distance_Mpc = (tables.models[0].summary.hubble_distance_Mpc as number) * (1 + 1e-6);
+    tables.models[0].summary.hubble_distance_Mpc =
+      (tables.models[0].summary.hubble_distance_Mpc as number) * (1 + 1e-6);
     const { sha256: _s, format: _f, engine: _e, tool: _t, ...fields } = r2;
-    const r3 = sealVersion({ ...fields, version: 3, previous_sha256: r2.sha256, message: "older engine", tables }, "0.0.0-test");
+    const r3 = sealVersion(
+      { ...fields, version: 3, previous_sha256: r2.sha256, message: "older engine", tables },
+      "0.0.0-test",
+    );
     const dir = join(work, "older");
     mkdirSync(join(dir, "shelf-test"), { recursive: true });
-    for (const n of [1, 2]) writeFileSync(join(dir, `shelf-test/v${n}.json`), readFileSync(join(work, `scenarios/archive/shelf-test/v${n}.json`)));
+    for (const n of [1, 2])
+      writeFileSync(
+        join(dir, `shelf-test/v${n}.json`),
+        readFileSync(join(work, `scenarios/archive/shelf-test/v${n}.json`)),
+      );
     writeFileSync(join(dir, "shelf-test/v3.json"), JSON.stringify(r3) + "\n");
     const loose = cli("verify", "--archive", "older");
     expect(loose.code).toBe(0);
-    expect(loose.stderr).toMatch(/warning: shelf-test v3: base: summary\.hubble_distance_Mpc drifts by 1\.00e-6 .*; no declared engine change explains it/);
+    expect(loose.stderr).toMatch(
+      /warning: shelf-test v3: base: summary\.hubble_distance_Mpc drifts by 1\.00e-6 .*; no declared engine change explains it/,
+    );
     const strict = cli("verify", "--archive", "older", "--strict");
     expect(strict.code).toBe(3);
     const b = cli("build", "--scenarios", "scenarios", "--archive", "older", "--out", "site-older");
     expect(b.code, b.stderr).toBe(0);
-    expect(hubbleDistanceCell(page(join(work, "site-older/shelf-test/v3/index.html")))).toBe((C_KM_S / 60 * (1 + 1e-6)).toPrecision(6));
+    expect(hubbleDistanceCell(page(join(work, "site-older/shelf-test/v3/index.html")))).toBe(
+      ((C_KM_S / 60) * (1 + 1e-6)).toPrecision(6),
+    );
   });
 
   it("a changed digit, a missing or a reordered version fails verify naming the file, and the build refuses it", () => {
     const copy = (name: string) => {
       const dir = join(work, name);
       mkdirSync(join(dir, "shelf-test"), { recursive: true });
-      for (const n of [1, 2]) writeFileSync(join(dir, `shelf-test/v${n}.json`), readFileSync(join(work, `scenarios/archive/shelf-test/v${n}.json`)));
+      for (const n of [1, 2])
+        writeFileSync(
+          join(dir, `shelf-test/v${n}.json`),
+          readFileSync(join(work, `scenarios/archive/shelf-test/v${n}.json`)),
+        );
       return dir;
     };
     const tampered = copy("tampered");
@@ -206,7 +236,9 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
     writeFileSync(join(misshapen, "shelf-test/v2.json"), JSON.stringify(r2));
     const s = cli("verify", "--archive", "misshapen");
     expect(s.code).toBe(2);
-    expect(s.stderr).toMatch(/misshapen\/shelf-test\/v2\.json: not a valid version record: tables: src\/schema\/tables\/2\.schema\.json: \(the document\) must have required property 'models'/);
+    expect(s.stderr).toMatch(
+      /misshapen\/shelf-test\/v2\.json: not a valid version record: tables: src\/schema\/tables\/2\.schema\.json: \(the document\) must have required property 'models'/,
+    );
 
     const before = readFileSync(join(work, "site/index.html"), "utf8");
     const b = cli("build", "--scenarios", "scenarios", "--archive", "tampered", "--out", "site");
@@ -268,16 +300,30 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
       writeFileSync(f, scenario(h0));
       return f;
     });
-    const results = await Promise.all(files.map((f) => new Promise<{ code: number | null; out: string }>((done) => {
-      const p = spawn(process.execPath, [BIN, "freeze", f, "--archive", join(dir, "archive"), "-m", f], { cwd: work });
-      let out = "";
-      p.stdout.on("data", (d) => (out += d));
-      p.on("close", (code) => done({ code, out }));
-    })));
+    const results = await Promise.all(
+      files.map(
+        (f) =>
+          new Promise<{ code: number | null; out: string }>((done) => {
+            const p = spawn(process.execPath, [BIN, "freeze", f, "--archive", join(dir, "archive"), "-m", f], {
+              cwd: work,
+            });
+            let out = "";
+            p.stdout.on("data", (d) => (out += d));
+            p.on("close", (code) => done({ code, out }));
+          }),
+      ),
+    );
     expect(results.map((r) => r.code)).toEqual(files.map(() => 0));
     const numbers = results.map((r) => Number(/version (\d+)/.exec(r.out)?.[1])).sort((a, b) => a - b);
     expect(numbers).toEqual([1, 2, 3, 4, 5, 6]);
-    expect(readdirSync(join(dir, "archive/shelf-test")).sort()).toEqual(["v1.json", "v2.json", "v3.json", "v4.json", "v5.json", "v6.json"]);
+    expect(readdirSync(join(dir, "archive/shelf-test")).sort()).toEqual([
+      "v1.json",
+      "v2.json",
+      "v3.json",
+      "v4.json",
+      "v5.json",
+      "v6.json",
+    ]);
     const v = cli("verify", "--archive", join(dir, "archive"), "--quiet");
     expect(v.code, v.stderr).toBe(0);
   });
@@ -288,8 +334,11 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
     // Enough scenarios that Eleventy is still writing when the kill comes.
     const many = join(work, "many");
     mkdirSync(many);
-    for (let i = 0; i < 40; i++) writeFileSync(join(many, `s${i}.yaml`), scenario(60 + i / 10).replace("id: shelf-test", `id: s${i}`));
-    const p = spawn(process.execPath, [BIN, "build", "--scenarios", many, "--out", out, "--skip-images"], { cwd: work });
+    for (let i = 0; i < 40; i++)
+      writeFileSync(join(many, `s${i}.yaml`), scenario(60 + i / 10).replace("id: shelf-test", `id: s${i}`));
+    const p = spawn(process.execPath, [BIN, "build", "--scenarios", many, "--out", out, "--skip-images"], {
+      cwd: work,
+    });
     const killedWhileBuilding = await new Promise<boolean>((done) => {
       const poll = setInterval(() => {
         const building = readdirSync(work).find((n) => n.startsWith("site.building-"));
@@ -310,7 +359,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
         done(false);
       });
     });
-    await new Promise((r) => p.exitCode !== null || p.signalCode !== null ? r(null) : p.on("exit", r));
+    await new Promise((r) => (p.exitCode !== null || p.signalCode !== null ? r(null) : p.on("exit", r)));
     expect(killedWhileBuilding).toBe(true);
     expect(listFiles(out).map((f) => [f, readFileSync(join(out, f), "utf8")])).toEqual(before);
     expect(readdirSync(work).some((n) => n.startsWith("site.building-"))).toBe(true);

@@ -8,15 +8,27 @@ import { loadScenario } from "../../src/scenario/loadScenario.js";
 import { buildTablesDocument } from "../../src/tables/buildTablesDocument.js";
 import { frozenInputs } from "../../src/contract/versionRecord.js";
 
-const text = (h0: number) => `id: chain\ntitle: Chain test\nredshifts: [1]\ngrid: { z_max: 2, points: 5 }\nmodels:\n  - { id: a, H0: ${h0}, Omega_m: 0.3, flat: true }\n`;
+const text = (h0: number) =>
+  `id: chain\ntitle: Chain test\nredshifts: [1]\ngrid: { z_max: 2, points: 5 }\nmodels:\n  - { id: a, H0: ${h0}, Omega_m: 0.3, flat: true }\n`;
 function chain(n: number): VersionRecord[] {
   const out: VersionRecord[] = [];
   for (let v = 1; v <= n; v++) {
     const s = loadScenario(text(60 + v), "chain.yaml");
-    out.push(sealVersion({
-      scenario_id: "chain", version: v, created: `2026-01-0${v}T00:00:00.000Z`, message: `v${v}`, previous_sha256: out.at(-1)?.sha256 ?? null,
-      source: s.source, inputs: frozenInputs(s), tables: buildTablesDocument(s),
-    }, "0.0.0-test"));
+    out.push(
+      sealVersion(
+        {
+          scenario_id: "chain",
+          version: v,
+          created: `2026-01-0${v}T00:00:00.000Z`,
+          message: `v${v}`,
+          previous_sha256: out.at(-1)?.sha256 ?? null,
+          source: s.source,
+          inputs: frozenInputs(s),
+          tables: buildTablesDocument(s),
+        },
+        "0.0.0-test",
+      ),
+    );
   }
   return out;
 }
@@ -36,7 +48,12 @@ describe("checkVersionChain", () => {
     forged.sha256 = versionHash(forged);
     const r = checkVersionChain("archive/chain", "chain", files([rs[0], rs[1], forged]));
     expect(r.versions).toEqual([]);
-    expect(r.issues).toEqual([{ file: "archive/chain/v3.json", message: expect.stringMatching(/^breaks the hash chain: previous_sha256 .* is not the sha256 of v2/) }]);
+    expect(r.issues).toEqual([
+      {
+        file: "archive/chain/v3.json",
+        message: expect.stringMatching(/^breaks the hash chain: previous_sha256 .* is not the sha256 of v2/),
+      },
+    ]);
   });
 
   it("a gap names the missing file; version 1 must start the chain; a foreign id is refused", () => {
@@ -44,10 +61,16 @@ describe("checkVersionChain", () => {
     expect(checkVersionChain("a", "chain", files([rs[0], rs[2]])).issues.map((i) => i.file)).toEqual(["a/v2.json"]);
     const notFirst = { ...rs[0], previous_sha256: rs[1].sha256 };
     notFirst.sha256 = versionHash(notFirst);
-    expect(checkVersionChain("a", "chain", files([notFirst])).issues[0].message).toMatch(/version 1 must start the chain/);
+    expect(checkVersionChain("a", "chain", files([notFirst])).issues[0].message).toMatch(
+      /version 1 must start the chain/,
+    );
     expect(checkVersionChain("a", "other", files([rs[0]])).issues[0].message).toMatch(/belongs to scenario chain/);
-    expect(checkVersionChain("a", "chain", [{ name: "notes.txt", text: "" }]).issues[0].message).toMatch(/unexpected file/);
-    expect(checkVersionChain("a", "chain", [{ name: "v1.json", text: "{" }]).issues[0].message).toMatch(/not valid JSON/);
+    expect(checkVersionChain("a", "chain", [{ name: "notes.txt", text: "" }]).issues[0].message).toMatch(
+      /unexpected file/,
+    );
+    expect(checkVersionChain("a", "chain", [{ name: "v1.json", text: "{" }]).issues[0].message).toMatch(
+      /not valid JSON/,
+    );
   });
 });
 

@@ -16,7 +16,8 @@ import { buildTablesDocument } from "../../src/tables/buildTablesDocument.js";
 import { inputsSha256, inputsSha256Format1 } from "../../src/contract/inputsHash.js";
 
 const FIXTURE = join(ROOT, "test/fixtures/archive-format-1");
-const record = (id: string, n: number): StoredVersionRecord => JSON.parse(readFileSync(join(FIXTURE, `scenarios/archive/${id}/v${n}.json`), "utf8"));
+const record = (id: string, n: number): StoredVersionRecord =>
+  JSON.parse(readFileSync(join(FIXTURE, `scenarios/archive/${id}/v${n}.json`), "utf8"));
 
 /** A working copy of the fixture (scenarios and archive), so that tests may freeze into it. */
 function fixtureCopy(): string {
@@ -29,7 +30,13 @@ beforeAll(() => compileProject());
 
 describe("format 1, as released, stays readable", { timeout: 180_000 }, () => {
   it("every fixture record validates against the schemas of the formats it declares, and not against format 2", () => {
-    for (const [id, n] of [["ember-relay", 1], ["ember-relay", 2], ["cinder-vault", 1], ["cinder-vault", 2], ["cinder-vault", 3]] as const) {
+    for (const [id, n] of [
+      ["ember-relay", 1],
+      ["ember-relay", 2],
+      ["cinder-vault", 1],
+      ["cinder-vault", 2],
+      ["cinder-vault", 3],
+    ] as const) {
       const r = record(id, n);
       expect(r.format).toBe("cosmoledger.version/1");
       expect(r.tables.format).toBe("cosmoledger.tables/1");
@@ -48,8 +55,16 @@ describe("format 1, as released, stays readable", { timeout: 180_000 }, () => {
     expect(inputsSha256Format1(doc.engine.version, doc.inputs)).toBe(r.tables.scenario.inputs_sha256);
     expect(doc.scenario.inputs_sha256).toBe(inputsSha256(doc.engine.version, doc.inputs));
     // Reversing the key order of every object changes the format-1 hash but not the format-2 one.
-    const reversed = (v: unknown): unknown => Array.isArray(v) ? v.map(reversed)
-      : v && typeof v === "object" ? Object.fromEntries(Object.entries(v).reverse().map(([k, x]) => [k, reversed(x)])) : v;
+    const reversed = (v: unknown): unknown =>
+      Array.isArray(v)
+        ? v.map(reversed)
+        : v && typeof v === "object"
+          ? Object.fromEntries(
+              Object.entries(v)
+                .reverse()
+                .map(([k, x]) => [k, reversed(x)]),
+            )
+          : v;
     const shuffled = reversed(doc.inputs) as typeof doc.inputs;
     expect(inputsSha256(doc.engine.version, shuffled)).toBe(doc.scenario.inputs_sha256);
     expect(inputsSha256Format1(doc.engine.version, shuffled)).not.toBe(r.tables.scenario.inputs_sha256);
@@ -59,7 +74,9 @@ describe("format 1, as released, stays readable", { timeout: 180_000 }, () => {
     const dir = fixtureCopy();
     const v = runCli(["verify", "--archive", "scenarios/archive", "--strict"], dir);
     expect(v.code, v.stderr).toBe(0);
-    expect(v.stdout).toMatch(/2 scenarios, 5 versions \(5 of cosmoledger\.tables\/1\); every hash and chain link checks out/);
+    expect(v.stdout).toMatch(
+      /2 scenarios, 5 versions \(5 of cosmoledger\.tables\/1\); every hash and chain link checks out/,
+    );
 
     // Same text, same engine: a no-op, judged by the format-1 rule of the latest version.
     const same = runCli(["freeze", "scenarios/ember-relay.yaml", "-m", "again"], dir);
@@ -71,26 +88,46 @@ describe("format 1, as released, stays readable", { timeout: 180_000 }, () => {
     const f = runCli(["freeze", "scenarios/ember-relay.yaml", "-m", "after the format change"], dir);
     expect(f.code, f.stderr).toBe(0);
     const v3 = JSON.parse(readFileSync(join(dir, "scenarios/archive/ember-relay/v3.json"), "utf8"));
-    expect([v3.format, v3.tables.format, v3.previous_sha256]).toEqual(["cosmoledger.version/2", "cosmoledger.tables/2", record("ember-relay", 2).sha256]);
+    expect([v3.format, v3.tables.format, v3.previous_sha256]).toEqual([
+      "cosmoledger.version/2",
+      "cosmoledger.tables/2",
+      record("ember-relay", 2).sha256,
+    ]);
     const again = runCli(["verify", "--archive", "scenarios/archive", "--strict"], dir);
     expect(again.code, again.stderr).toBe(0);
     expect(again.stdout).toMatch(/6 versions \(5 of cosmoledger\.tables\/1, 1 of cosmoledger\.tables\/2\)/);
 
     const b = runCli(["build", "--scenarios", "scenarios", "--out", "site", "--skip-images"], dir);
     expect(b.code, b.stderr).toBe(0);
-    for (const p of ["ember-relay/v1", "ember-relay/v2", "ember-relay/v3", "cinder-vault/v3", "ember-relay/diff/v1-v2", "ember-relay/diff/v2-v3", "cinder-vault/diff/v2-v3"]) {
+    for (const p of [
+      "ember-relay/v1",
+      "ember-relay/v2",
+      "ember-relay/v3",
+      "cinder-vault/v3",
+      "ember-relay/diff/v1-v2",
+      "ember-relay/diff/v2-v3",
+      "cinder-vault/diff/v2-v3",
+    ]) {
       expect(existsSync(join(dir, "site", p, "index.html")), p).toBe(true);
     }
     const { document } = parseHTML(readFileSync(join(dir, "site/ember-relay/diff/v2-v3/index.html"), "utf8"));
-    expect(document.querySelector(".format-change")!.textContent).toMatch(/cosmoledger\.tables\/1 → cosmoledger\.tables\/2/);
+    expect(document.querySelector(".format-change")!.textContent).toMatch(
+      /cosmoledger\.tables\/1 → cosmoledger\.tables\/2/,
+    );
     // The v1 page shows its stored numbers (never recomputed): the age cell equals the stored age, as the page formats it.
     const v1 = parseHTML(readFileSync(join(dir, "site/ember-relay/v1/index.html"), "utf8")).document;
     expect(v1.querySelector("[data-status=frozen]")).not.toBeNull();
     expect(v1.body.textContent).toContain("cosmoledger.tables/1");
 
-    const e = runCli(["export", "scenarios/ember-relay.yaml", "--version", "1", "--format", "csv", "--out", "exp"], dir);
+    const e = runCli(
+      ["export", "scenarios/ember-relay.yaml", "--version", "1", "--format", "csv", "--out", "exp"],
+      dir,
+    );
     expect(e.code, e.stderr).toBe(0);
-    const glance = parseCsv(readFileSync(join(dir, "exp/ember-relay/v1/glance.csv"), "utf8"), { comment: "#", relax_column_count: true }) as string[][];
+    const glance = parseCsv(readFileSync(join(dir, "exp/ember-relay/v1/glance.csv"), "utf8"), {
+      comment: "#",
+      relax_column_count: true,
+    }) as string[][];
     const age = glance.find((row) => row[0].startsWith("Age today"))!;
     const stored = record("ember-relay", 1).tables.models.map((m) => m.summary.age_Gyr);
     expect(age.slice(1).map(Number)).toEqual(stored);
@@ -105,8 +142,12 @@ describe("format 1, as released, stays readable", { timeout: 180_000 }, () => {
     writeFileSync(file, JSON.stringify(r));
     const v = runCli(["verify", "--archive", "scenarios/archive"], dir);
     expect(v.code).toBe(2);
-    expect(v.stderr).toMatch(/cinder-vault\/v3\.json: not a valid version record: written by a newer cosmoledger \(format cosmoledger\.version\/7; this release reads cosmoledger\.version\/1 to cosmoledger\.version\/2\); upgrade/);
-    expect(tablesDocumentProblem({ format: "cosmoledger.tables/12" })).toMatch(/written by a newer cosmoledger .*upgrade/);
+    expect(v.stderr).toMatch(
+      /cinder-vault\/v3\.json: not a valid version record: written by a newer cosmoledger \(format cosmoledger\.version\/7; this release reads cosmoledger\.version\/1 to cosmoledger\.version\/2\); upgrade/,
+    );
+    expect(tablesDocumentProblem({ format: "cosmoledger.tables/12" })).toMatch(
+      /written by a newer cosmoledger .*upgrade/,
+    );
     expect(tablesDocumentProblem({ format: "something else" })).toMatch(/not a cosmoledger tables document/);
   });
 });
@@ -117,15 +158,22 @@ describe("drift the engine means", () => {
   const now = buildTablesDocument(loadScenario(r.source.text, r.source.path));
   const old = structuredClone(r.tables);
   old.engine.version = "0.9.0";
-  for (const m of old.models) if (m.parameters.m_nu_eV.some((x) => x > 0.1)) m.summary.age_Gyr = (m.summary.age_Gyr as number) * (1 + 1e-6);
+  for (const m of old.models)
+    if (m.parameters.m_nu_eV.some((x) => x > 0.1)) m.summary.age_Gyr = (m.summary.age_Gyr as number) * (1 + 1e-6);
   const change: DeclaredChange = {
-    id: "test-neutrino-age", engine_version: "1.0.0", quantities: ["summary.age_*"], models: "models with a neutrino above 0.1 eV",
-    applies: (p) => p.m_nu_eV.some((x) => x > 0.1), why: "a test of the mechanism",
+    id: "test-neutrino-age",
+    engine_version: "1.0.0",
+    quantities: ["summary.age_*"],
+    models: "models with a neutrino above 0.1 eV",
+    applies: (p) => p.m_nu_eV.some((x) => x > 0.1),
+    why: "a test of the mechanism",
   };
 
   it("without a declared change the drift is unexplained; with one it is explained and named", () => {
     const bare = compareWithRecomputed(old, now, [], "1.0.0");
-    expect(bare.drift.map((d) => [d.model, d.quantity, d.explainedBy])).toEqual([["nu-heavy", "summary.age_Gyr", null]]);
+    expect(bare.drift.map((d) => [d.model, d.quantity, d.explainedBy])).toEqual([
+      ["nu-heavy", "summary.age_Gyr", null],
+    ]);
     expect(bare.drift[0].relative).toBeCloseTo(1e-6, 9);
     const declared = compareWithRecomputed(old, now, [change], "1.0.0");
     expect(declared.drift.map((d) => d.explainedBy?.id)).toEqual(["test-neutrino-age"]);
@@ -157,9 +205,16 @@ describe("the contract's TypeScript types", () => {
   it("are what the generator writes from each released schema (so types and schemas cannot drift apart)", async () => {
     const gen = await import("../../src/schema/generateContractTypes.mjs" as string);
     const formats: number[] = gen.releasedTablesFormats();
-    expect(formats).toEqual(readdirSync(join(ROOT, "src/schema/tables")).map((f) => Number(f.split(".")[0])).sort((a, b) => a - b));
+    expect(formats).toEqual(
+      readdirSync(join(ROOT, "src/schema/tables"))
+        .map((f) => Number(f.split(".")[0]))
+        .sort((a, b) => a - b),
+    );
     for (const n of formats) {
-      expect(await gen.contractTypesSource(n), `src/contract/generated/tablesFormat${n}.ts is stale: run npm run contract:types`).toBe(readFileSync(join(ROOT, `src/contract/generated/tablesFormat${n}.ts`), "utf8"));
+      expect(
+        await gen.contractTypesSource(n),
+        `src/contract/generated/tablesFormat${n}.ts is stale: run npm run contract:types`,
+      ).toBe(readFileSync(join(ROOT, `src/contract/generated/tablesFormat${n}.ts`), "utf8"));
     }
   });
 });

@@ -43,22 +43,46 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     r = runCli(["build", "--scenarios", join(dir, "hostile-scenarios"), "--out", hostileSite, "--quiet"]);
     if (r.code !== 0) throw new Error(r.stderr);
     // A static file server on the loopback address only.
-    const types: Record<string, string> = { ".html": "text/html", ".js": "text/javascript", ".css": "text/css", ".json": "application/json", ".csv": "text/csv" };
+    const types: Record<string, string> = {
+      ".html": "text/html",
+      ".js": "text/javascript",
+      ".css": "text/css",
+      ".json": "application/json",
+      ".csv": "text/csv",
+    };
     server = createServer((req, res) => {
       const url = new URL(req.url ?? "/", "http://127.0.0.1");
       let file = resolve(site, "." + decodeURIComponent(url.pathname));
-      if (!file.startsWith(site)) { res.writeHead(403).end(); return; }
+      if (!file.startsWith(site)) {
+        res.writeHead(403).end();
+        return;
+      }
       if (existsSync(file) && statSync(file).isDirectory()) file = join(file, "index.html");
-      if (!existsSync(file)) { res.writeHead(404).end(); return; }
-      res.writeHead(200, { "content-type": types[extname(file)] ?? "application/octet-stream" }).end(readFileSync(file));
+      if (!existsSync(file)) {
+        res.writeHead(404).end();
+        return;
+      }
+      res
+        .writeHead(200, { "content-type": types[extname(file)] ?? "application/octet-stream" })
+        .end(readFileSync(file));
     });
     await new Promise<void>((ok) => server.listen(0, "127.0.0.1", ok));
     const address = server.address();
     base = `http://127.0.0.1:${typeof address === "object" && address ? address.port : 0}`;
     const { chromium } = await import("playwright-core");
     context = await chromium.launchPersistentContext(tempDir("cosmoledger-chromium-"), {
-      executablePath: chromiumPath, headless: true, viewport: { width: 1280, height: 900 },
-      args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
+      executablePath: chromiumPath,
+      headless: true,
+      viewport: { width: 1280, height: 900 },
+      args: [
+        "--headless",
+        "--no-sandbox",
+        "--disable-gpu",
+        "--disable-background-networking",
+        "--disable-component-update",
+        "--disable-sync",
+        "--no-first-run",
+      ],
     });
     mkdirSync(SHOTS, { recursive: true });
   }, 180_000);
@@ -72,37 +96,61 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
   async function open(url: string): Promise<{ page: Page; problems: string[] }> {
     const page = await context.newPage();
     const problems: string[] = [];
-    page.on("console", (m) => { if (m.type() === "error") problems.push(`console: ${m.text()}`); });
+    page.on("console", (m) => {
+      if (m.type() === "error") problems.push(`console: ${m.text()}`);
+    });
     page.on("pageerror", (e) => problems.push(`page error: ${e.message}`));
     page.on("requestfailed", (r) => problems.push(`request failed: ${r.url()}`));
-    page.on("response", (r) => { if (r.status() >= 400) problems.push(`HTTP ${r.status()}: ${r.url()}`); });
-    page.on("dialog", (d) => { problems.push(`dialog: ${d.message()}`); void d.dismiss(); });
+    page.on("response", (r) => {
+      if (r.status() >= 400) problems.push(`HTTP ${r.status()}: ${r.url()}`);
+    });
+    page.on("dialog", (d) => {
+      problems.push(`dialog: ${d.message()}`);
+      void d.dismiss();
+    });
     await page.goto(url, { waitUntil: "load" });
     return { page, problems };
   }
 
   /** Number of canvas pixels with any opacity, per canvas on the page. */
-  const drawnPixels = (page: Page) => page.evaluate(() => [...document.querySelectorAll("canvas")].map((c) => {
-    const d = (c as HTMLCanvasElement).getContext("2d")!.getImageData(0, 0, (c as HTMLCanvasElement).width, (c as HTMLCanvasElement).height).data;
-    let n = 0;
-    for (let i = 3; i < d.length; i += 4) if (d[i] !== 0) n++;
-    return n;
-  }));
+  const drawnPixels = (page: Page) =>
+    page.evaluate(() =>
+      [...document.querySelectorAll("canvas")].map((c) => {
+        const d = (c as HTMLCanvasElement)
+          .getContext("2d")!
+          .getImageData(0, 0, (c as HTMLCanvasElement).width, (c as HTMLCanvasElement).height).data;
+        let n = 0;
+        for (let i = 3; i < d.length; i += 4) if (d[i] !== 0) n++;
+        return n;
+      }),
+    );
 
   it("every page loads with no console error and no failed request, and every chart canvas has drawn pixels", async () => {
-    for (const path of ["/index.html", "/lantern-deep-field/index.html", "/harbor-lights-census/index.html", "/tidewater-geometry/index.html"]) {
+    for (const path of [
+      "/index.html",
+      "/lantern-deep-field/index.html",
+      "/harbor-lights-census/index.html",
+      "/tidewater-geometry/index.html",
+    ]) {
       const { page, problems } = await open(base + path);
       expect(problems, path).toEqual([]);
       const pixels = await drawnPixels(page);
       expect(pixels.length, path).toBeGreaterThan(0);
       for (const n of pixels) expect(n, path).toBeGreaterThan(2000);
-      await page.screenshot({ path: join(SHOTS, path.replace(/\//g, "_").replace(/^_/, "") + ".png"), fullPage: path === "/index.html" });
+      await page.screenshot({
+        path: join(SHOTS, path.replace(/\//g, "_").replace(/^_/, "") + ".png"),
+        fullPage: path === "/index.html",
+      });
       await page.close();
     }
   }, 120_000);
 
   it("version, history and diff pages of the demo archive load cleanly; a version page draws its frozen charts", async () => {
-    for (const path of ["/lantern-deep-field/v1/index.html", "/lantern-deep-field/history/index.html", "/lantern-deep-field/diff/v1-v2/index.html"]) {
+    for (const path of [
+      "/lantern-deep-field/v1/index.html",
+      "/lantern-deep-field/history/index.html",
+      "/lantern-deep-field/diff/v1-v2/index.html",
+    ]) {
       const { page, problems } = await open(base + path);
       expect(problems, path).toEqual([]);
       if (path.includes("/v1/")) for (const n of await drawnPixels(page)) expect(n, path).toBeGreaterThan(2000);
@@ -120,15 +168,24 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
   it("the copy buttons put the Markdown and LaTeX exports on the clipboard, exactly as the downloads", async () => {
     await context.grantPermissions(["clipboard-read", "clipboard-write"], { origin: base });
     const { page, problems } = await open(base + "/lantern-deep-field/index.html");
-    for (const [format, file] of [["md", "glance.md"], ["tex", "glance.tex"]]) {
+    for (const [format, file] of [
+      ["md", "glance.md"],
+      ["tex", "glance.tex"],
+    ]) {
       await page.click(`p.exports[data-export="glance"] button[data-copy-format="${format}"]`);
-      await page.waitForSelector(`p.exports[data-export="glance"] button[data-copy-format="${format}"][data-copied="true"]`);
+      await page.waitForSelector(
+        `p.exports[data-export="glance"] button[data-copy-format="${format}"][data-copied="true"]`,
+      );
       const copied = await page.evaluate(() => navigator.clipboard.readText());
       expect(copied).toBe(readFileSync(join(site, "lantern-deep-field/exports", file), "utf8"));
     }
     await page.click('p.exports[data-export="assumptions"] button[data-copy-format="md"]');
-    await page.waitForSelector('p.exports[data-export="assumptions"] button[data-copy-format="md"][data-copied="true"]');
-    expect(await page.evaluate(() => navigator.clipboard.readText())).toBe(readFileSync(join(site, "lantern-deep-field/exports/assumptions.txt"), "utf8"));
+    await page.waitForSelector(
+      'p.exports[data-export="assumptions"] button[data-copy-format="md"][data-copied="true"]',
+    );
+    expect(await page.evaluate(() => navigator.clipboard.readText())).toBe(
+      readFileSync(join(site, "lantern-deep-field/exports/assumptions.txt"), "utf8"),
+    );
     expect(problems).toEqual([]);
     await page.close();
   }, 60_000);
@@ -145,7 +202,9 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     expect(await type()).toBe("linear");
     expect(await picture()).not.toBe(before);
     await figure.locator("[data-ratio]").check();
-    expect(await page.evaluate(() => (window as any).cosmoledgerCharts.distances.options.scales.y.title.text)).toMatch(/\/ baseline/);
+    expect(await page.evaluate(() => (window as any).cosmoledgerCharts.distances.options.scales.y.title.text)).toMatch(
+      /\/ baseline/,
+    );
     await page.screenshot({ path: join(SHOTS, "distances-linear-ratio.png") });
     expect(problems).toEqual([]);
     await page.close();

@@ -7,11 +7,20 @@ import { Ajv } from "ajv";
 import { parse as parseCsv } from "csv-parse/sync";
 import tablesSchema from "../../src/schema/tables/2.schema.json" with { type: "json" };
 import { compileProject } from "../helpers/buildDemoSite.js";
-import { makeBackgroundModel, redshiftTable, hubbleDistanceMpc, MPC_CM, FULL_SKY_DEG2, REDSHIFT_COLUMN_KEYS } from "../../src/engine/index.js";
+import {
+  makeBackgroundModel,
+  redshiftTable,
+  hubbleDistanceMpc,
+  MPC_CM,
+  FULL_SKY_DEG2,
+  REDSHIFT_COLUMN_KEYS,
+} from "../../src/engine/index.js";
 
 const ROOT = resolve(import.meta.dirname, "../..");
 const BIN = join(ROOT, "bin/cosmoledger.js");
-const DEMO = readdirSync(join(ROOT, "scenarios")).filter((f) => f.endsWith(".yaml")).map((f) => join(ROOT, "scenarios", f));
+const DEMO = readdirSync(join(ROOT, "scenarios"))
+  .filter((f) => f.endsWith(".yaml"))
+  .map((f) => join(ROOT, "scenarios", f));
 
 function run(args: string[], cwd = ROOT) {
   const r = spawnSync(process.execPath, [BIN, ...args], { cwd, encoding: "utf8", maxBuffer: 256 * 1024 * 1024 });
@@ -41,9 +50,13 @@ describe("cosmoledger CLI on the demo scenarios", () => {
       const doc = JSON.parse(docText);
       expect(doc.format).toBe("cosmoledger.tables/2");
       expect(validate(doc), JSON.stringify(validate.errors?.slice(0, 3))).toBe(true);
-      for (const csv of ["parameters.csv", "summary.csv", "redshifts.csv", "differences.csv"]) expect(existsSync(join(a, id, csv))).toBe(true);
+      for (const csv of ["parameters.csv", "summary.csv", "redshifts.csv", "differences.csv"])
+        expect(existsSync(join(a, id, csv))).toBe(true);
       // CSV parsed back (csv-parse) gives the document's numbers.
-      const rows = parseCsv(readFileSync(join(a, id, "redshifts.csv"), "utf8"), { columns: true }) as Record<string, string>[];
+      const rows = parseCsv(readFileSync(join(a, id, "redshifts.csv"), "utf8"), { columns: true }) as Record<
+        string,
+        string
+      >[];
       const first = doc.models[0];
       first.redshifts.forEach((row: Record<string, number | null>, i: number) => {
         for (const k of REDSHIFT_COLUMN_KEYS) expect(rows[i][k]).toBe(row[k] === null ? "" : String(row[k]));
@@ -56,8 +69,22 @@ describe("cosmoledger CLI on the demo scenarios", () => {
     expect(r.code).toBe(0);
     const doc = JSON.parse(r.stdout);
     const ref = doc.models.find((m: { id: string }) => m.id === "reference");
-    const engine = redshiftTable(makeBackgroundModel({ H0_km_s_Mpc: 68.2, Omega_m: 0.306, curvature: { kind: "flat" }, w0: -1, wa: 0, radiation: { T_cmb_K: 2.7255, N_eff: 3.044 }, baryons: { omega_b: 0.0223 }, m_nu_eV: [0.06] }), doc.scenario.redshifts);
-    ref.redshifts.forEach((row: Record<string, number>, i: number) => expect(row.luminosity_distance_Mpc).toBe(engine.luminosity_distance_Mpc[i]));
+    const engine = redshiftTable(
+      makeBackgroundModel({
+        H0_km_s_Mpc: 68.2,
+        Omega_m: 0.306,
+        curvature: { kind: "flat" },
+        w0: -1,
+        wa: 0,
+        radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
+        baryons: { omega_b: 0.0223 },
+        m_nu_eV: [0.06],
+      }),
+      doc.scenario.redshifts,
+    );
+    ref.redshifts.forEach((row: Record<string, number>, i: number) =>
+      expect(row.luminosity_distance_Mpc).toBe(engine.luminosity_distance_Mpc[i]),
+    );
   });
 
   it("--help answers on every command", () => {
@@ -73,12 +100,20 @@ describe("targets and surveys in tables.json against closed forms (Einstein-de S
   it("angular size, apparent magnitude, bolometric flux, lookback placement and shell volume", () => {
     const dir = tmp();
     const file = join(dir, "eds.yaml");
-    writeFileSync(file, [
-      "title: Einstein-de Sitter check", "models:", "  - { id: eds, H0: 70, Omega_m: 1, Omega_de: 0, radiation: none }",
-      "targets:", "  - { name: arc, z: 2, size_kpc: 5, absolute_magnitude: -21, luminosity_erg_s: 1.0e+44 }",
-      "  - { name: old, lookback_Gyr: 5 }",
-      "surveys:", "  - { name: shell, area_deg2: 100, z_min: 0.5, z_max: 1, density_per_Mpc3: 1.0e-3 }", "",
-    ].join("\n"));
+    writeFileSync(
+      file,
+      [
+        "title: Einstein-de Sitter check",
+        "models:",
+        "  - { id: eds, H0: 70, Omega_m: 1, Omega_de: 0, radiation: none }",
+        "targets:",
+        "  - { name: arc, z: 2, size_kpc: 5, absolute_magnitude: -21, luminosity_erg_s: 1.0e+44 }",
+        "  - { name: old, lookback_Gyr: 5 }",
+        "surveys:",
+        "  - { name: shell, area_deg2: 100, z_min: 0.5, z_max: 1, density_per_Mpc3: 1.0e-3 }",
+        "",
+      ].join("\n"),
+    );
     const r = run(["compute", file, "--json"]);
     expect(r.code, r.stderr).toBe(0);
     const m = JSON.parse(r.stdout).models[0];
@@ -93,11 +128,13 @@ describe("targets and surveys in tables.json against closed forms (Einstein-de S
     // m = M + 5 log10(D_L / 10 pc)
     expect(Math.abs(arc.apparent_magnitude - (-21 + 5 * Math.log10(DL * 1e5)))).toBeLessThan(1e-9);
     // F = L / (4 pi D_L^2); 1 Mpc = 3.0856775814913673e24 cm (IAU 2015 B2 parsec; value recalled from memory)
-    expect(rel(arc.bolometric_flux_erg_s_cm2, 1e44 / (4 * Math.PI * (DL * 3.0856775814913673e24) ** 2))).toBeLessThan(1e-10);
+    expect(rel(arc.bolometric_flux_erg_s_cm2, 1e44 / (4 * Math.PI * (DL * 3.0856775814913673e24) ** 2))).toBeLessThan(
+      1e-10,
+    );
     expect(rel(MPC_CM, 3.0856775814913673e24)).toBeLessThan(1e-15);
     // EdS lookback: t_L = (2/3) t_H (1 - (1+z)^-1.5) -> z = (1 - 1.5 t_L / t_H)^(-2/3) - 1
     const tH = 977.792221 / 70; // t_H in Gyr = 977.792221 / H0 (common practice; recalled from memory)
-    expect(rel(m.targets[1].z, (1 - 1.5 * 5 / tH) ** (-2 / 3) - 1)).toBeLessThan(1e-6);
+    expect(rel(m.targets[1].z, (1 - (1.5 * 5) / tH) ** (-2 / 3) - 1)).toBeLessThan(1e-6);
     // shell: (4 pi / 3) (D_C2^3 - D_C1^3) * area / full sky (41252.96 deg^2)
     const shellMpc3 = ((4 * Math.PI) / 3) * (DC(1) ** 3 - DC(0.5) ** 3) * (100 / 41252.96124941928);
     expect(rel(m.surveys[0].volume_Gpc3, shellMpc3 * 1e-9)).toBeLessThan(1e-10);

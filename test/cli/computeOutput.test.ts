@@ -6,15 +6,16 @@ import { existsSync, mkdirSync, readFileSync, readdirSync, renameSync, writeFile
 import { join } from "node:path";
 import { BIN, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
 
-const scenario = (targets: boolean, models = 1, points = 20) => [
-  "id: outfold",
-  "title: Output folder test",
-  `grid: { z_max: 5, points: ${points} }`,
-  "models:",
-  ...Array.from({ length: models }, (_, i) => `  - { id: m${i}, H0: ${60 + i * 0.01}, Omega_m: 0.3 }`),
-  ...(targets ? ["targets:", "  - { name: Arc, z: 2, size_kpc: 5 }"] : []),
-  "",
-].join("\n");
+const scenario = (targets: boolean, models = 1, points = 20) =>
+  [
+    "id: outfold",
+    "title: Output folder test",
+    `grid: { z_max: 5, points: ${points} }`,
+    "models:",
+    ...Array.from({ length: models }, (_, i) => `  - { id: m${i}, H0: ${60 + i * 0.01}, Omega_m: 0.3 }`),
+    ...(targets ? ["targets:", "  - { name: Arc, z: 2, size_kpc: 5 }"] : []),
+    "",
+  ].join("\n");
 
 /** A process id that no longer runs: a child that has exited (its pid is free until reused). */
 function deadPid(): number {
@@ -33,7 +34,14 @@ describe("compute writes each scenario's folder whole", { timeout: 120_000 }, ()
     writeFileSync(join(dir, "s.yaml"), scenario(false));
     const r = runCli(["compute", "s.yaml", "--out", "out"], dir);
     expect(r.code, r.stderr).toBe(0);
-    expect(readdirSync(join(dir, "out/outfold")).sort()).toEqual([".cosmoledger-output", "differences.csv", "parameters.csv", "redshifts.csv", "summary.csv", "tables.json"]);
+    expect(readdirSync(join(dir, "out/outfold")).sort()).toEqual([
+      ".cosmoledger-output",
+      "differences.csv",
+      "parameters.csv",
+      "redshifts.csv",
+      "summary.csv",
+      "tables.json",
+    ]);
     expect(readFileSync(join(dir, "out/outfold/.cosmoledger-output"), "utf8")).toMatch(/tables\.json/);
     expect(readdirSync(join(dir, "out"))).toEqual(["outfold"]);
   });
@@ -47,7 +55,9 @@ describe("compute writes each scenario's folder whole", { timeout: 120_000 }, ()
     writeFileSync(join(dir, "s.yaml"), scenario(false));
     const r = runCli(["compute", "s.yaml", "--out", "out"], dir);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/refusing to replace out\/outfold: it holds out\/outfold\/my-notes\.txt, which cosmoledger did not write/);
+    expect(r.stderr).toMatch(
+      /refusing to replace out\/outfold: it holds out\/outfold\/my-notes\.txt, which cosmoledger did not write/,
+    );
     expect(readFileSync(join(dir, "out/outfold/my-notes.txt"), "utf8")).toBe("mine");
     expect(readFileSync(join(dir, "out/outfold/tables.json")).equals(before)).toBe(true);
     expect(existsSync(join(dir, "out/outfold/targets.csv"))).toBe(true);
@@ -79,7 +89,10 @@ describe("compute writes each scenario's folder whole", { timeout: 120_000 }, ()
     expect(runCli(["compute", "s.yaml", "--out", "out"], dir).code).toBe(0);
     const complete = () => {
       const names = readdirSync(join(dir, "out/outfold"));
-      return ["tables.json", "targets.csv", ".cosmoledger-output"].every((n) => names.includes(n)) && JSON.parse(readFileSync(join(dir, "out/outfold/tables.json"), "utf8")).format;
+      return (
+        ["tables.json", "targets.csv", ".cosmoledger-output"].every((n) => names.includes(n)) &&
+        JSON.parse(readFileSync(join(dir, "out/outfold/tables.json"), "utf8")).format
+      );
     };
     for (const delayMs of [50, 300, 700]) {
       const child = spawn(process.execPath, [BIN, "compute", "s.yaml", "--out", "out"], { cwd: dir, stdio: "ignore" });

@@ -1,7 +1,12 @@
 import { describe, expect, it } from "vitest";
 import betainc from "@stdlib/math-base-special-betainc";
 import {
-  backgroundSummary, comovingVolumeWithin, hubbleDistanceMpc, hubbleTimeGyr, redshiftTable, curvatureRadiusMpc,
+  backgroundSummary,
+  comovingVolumeWithin,
+  hubbleDistanceMpc,
+  hubbleTimeGyr,
+  redshiftTable,
+  curvatureRadiusMpc,
 } from "../../src/engine/index.js";
 import { modelOf, relErr } from "../helpers/modelOf.js";
 
@@ -122,7 +127,9 @@ describe("matter plus curvature, no Lambda", () => {
     const Om = 2.5;
     const tH = hubbleTimeGyr(70);
     const s = backgroundSummary(modelOf({ Om, Ode: 0 })).summary;
-    expect(relErr(s.age_Gyr!, tH * ((Om / (2 * (Om - 1) ** 1.5)) * Math.acos(2 / Om - 1) - 1 / (Om - 1)))).toBeLessThan(TOL);
+    expect(relErr(s.age_Gyr!, tH * ((Om / (2 * (Om - 1) ** 1.5)) * Math.acos(2 / Om - 1) - 1 / (Om - 1)))).toBeLessThan(
+      TOL,
+    );
     expect(relErr(s.max_scale_factor!, Om / (Om - 1))).toBeLessThan(1e-13);
     expect(relErr(s.crunch_time_Gyr!, (Math.PI * Om * tH) / (Om - 1) ** 1.5)).toBeLessThan(TOL);
     expect(s.fate).toBe("recollapses");
@@ -142,8 +149,8 @@ describe("flat radiation plus matter", () => {
       const a = 1 / (1 + z);
       const s = Math.sqrt(Or + Om * a);
       const r = Math.sqrt(Or);
-      const age = hubbleTimeGyr(70) * (2 / 3) * a * a * (s + 2 * r) / (s + r) ** 2;
-      const eta = hubbleDistanceMpc(70) * 2 * a / (s + r);
+      const age = (hubbleTimeGyr(70) * (2 / 3) * a * a * (s + 2 * r)) / (s + r) ** 2;
+      const eta = (hubbleDistanceMpc(70) * 2 * a) / (s + r);
       expect(relErr(t.age_Gyr[i], age)).toBeLessThan(TOL);
       expect(relErr(t.particle_horizon_Mpc[i], eta)).toBeLessThan(TOL);
     });
@@ -158,9 +165,10 @@ describe("comoving volume in curved space", () => {
       for (const DM of [100, 1000, 3000, 6000]) {
         const sk = Math.sqrt(Math.abs(Ok));
         const x = DM / DH;
-        const hogg = Ok > 0
-          ? ((4 * Math.PI * DH ** 3) / (2 * Ok)) * (x * Math.sqrt(1 + Ok * x * x) - Math.asinh(sk * x) / sk)
-          : ((4 * Math.PI * DH ** 3) / (2 * Ok)) * (x * Math.sqrt(1 + Ok * x * x) - Math.asin(sk * x) / sk);
+        const hogg =
+          Ok > 0
+            ? ((4 * Math.PI * DH ** 3) / (2 * Ok)) * (x * Math.sqrt(1 + Ok * x * x) - Math.asinh(sk * x) / sk)
+            : ((4 * Math.PI * DH ** 3) / (2 * Ok)) * (x * Math.sqrt(1 + Ok * x * x) - Math.asin(sk * x) / sk);
         const chi = Ok > 0 ? Math.asinh(DM / R) : Math.asin(DM / R);
         const ours = comovingVolumeWithin(chi * R, Ok > 0 ? "open" : "closed", R);
         expect(relErr(ours, hogg)).toBeLessThan(1e-11);
@@ -171,8 +179,12 @@ describe("comoving volume in curved space", () => {
     const R = 5000;
     expect(relErr(comovingVolumeWithin(Math.PI * R, "closed", R), 2 * Math.PI ** 2 * R ** 3)).toBeLessThan(1e-14);
     for (const R2 of [1e6, 1e9]) {
-      expect(relErr(comovingVolumeWithin(3000, "open", R2), (4 / 3) * Math.PI * 3000 ** 3)).toBeLessThan(3000 ** 2 / R2 ** 2);
-      expect(relErr(comovingVolumeWithin(3000, "closed", R2), (4 / 3) * Math.PI * 3000 ** 3)).toBeLessThan(3000 ** 2 / R2 ** 2);
+      expect(relErr(comovingVolumeWithin(3000, "open", R2), (4 / 3) * Math.PI * 3000 ** 3)).toBeLessThan(
+        3000 ** 2 / R2 ** 2,
+      );
+      expect(relErr(comovingVolumeWithin(3000, "closed", R2), (4 / 3) * Math.PI * 3000 ** 3)).toBeLessThan(
+        3000 ** 2 / R2 ** 2,
+      );
     }
   });
   it("V_C from the table equals the integral of dV_C/dz over 4 pi sr (Hogg 1999 eqs. 28 and 29)", () => {
@@ -182,7 +194,10 @@ describe("comoving volume in curved space", () => {
     // Simpson's rule over the fine grid (an independent path through the volume element)
     let sum = 0;
     for (let i = 0; i < 2000; i += 2) {
-      sum += t.comoving_volume_element_Mpc3_sr[i] + 4 * t.comoving_volume_element_Mpc3_sr[i + 1] + t.comoving_volume_element_Mpc3_sr[i + 2];
+      sum +=
+        t.comoving_volume_element_Mpc3_sr[i] +
+        4 * t.comoving_volume_element_Mpc3_sr[i + 1] +
+        t.comoving_volume_element_Mpc3_sr[i + 2];
     }
     const simpson = ((4 * Math.PI * sum * (3 / 2000)) / 3) * 1e-9;
     expect(relErr(t.comoving_volume_Gpc3[2000], simpson)).toBeLessThan(1e-9);
@@ -196,7 +211,12 @@ describe("Pen 1999 (ApJS 120, 49) fitting formula for flat Lambda-CDM D_L", () =
   // (coefficients recalled from memory).
   const eta = (a: number, Om: number) => {
     const s = Math.cbrt((1 - Om) / Om);
-    return 2 * Math.sqrt(s ** 3 + 1) * (a ** -4 - 0.154 * s * a ** -3 + 0.4304 * s * s * a ** -2 + 0.19097 * s ** 3 / a + 0.066941 * s ** 4) ** (-1 / 8);
+    return (
+      2 *
+      Math.sqrt(s ** 3 + 1) *
+      (a ** -4 - 0.154 * s * a ** -3 + 0.4304 * s * s * a ** -2 + (0.19097 * s ** 3) / a + 0.066941 * s ** 4) **
+        (-1 / 8)
+    );
   };
   for (const Om of [0.2, 0.3, 0.5, 0.9]) {
     it(`agrees within 0.4% at Omega_m = ${Om}`, () => {

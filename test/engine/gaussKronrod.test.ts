@@ -29,7 +29,18 @@ describe("adaptive Gauss-Kronrod quadrature", () => {
     const q = new GaussKronrodIntegrator(2);
     const v = new Float64Array(2);
     const e = new Float64Array(2);
-    q.integrate((x, out) => { out[0] = Math.cos(x); out[1] = 1e-20 * x * x; }, 0, 1, 1e-13, 0, v, e);
+    q.integrate(
+      (x, out) => {
+        out[0] = Math.cos(x);
+        out[1] = 1e-20 * x * x;
+      },
+      0,
+      1,
+      1e-13,
+      0,
+      v,
+      e,
+    );
     expect(Math.abs(v[0] - Math.sin(1))).toBeLessThan(1e-13);
     expect(Math.abs(v[1] - 1e-20 / 3) / (1e-20 / 3)).toBeLessThan(1e-13);
   });

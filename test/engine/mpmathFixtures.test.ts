@@ -1,6 +1,11 @@
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
-import { backgroundSummary, photonDensityParameter, redshiftTable, type BackgroundModel } from "../../src/engine/index.js";
+import {
+  backgroundSummary,
+  photonDensityParameter,
+  redshiftTable,
+  type BackgroundModel,
+} from "../../src/engine/index.js";
 import { relErr } from "../helpers/modelOf.js";
 
 // Reference values from mpmath at 30 digits: test/fixtures/mpmath/background.py wrote background.json.
@@ -10,14 +15,35 @@ const TOL = 1e-10;
 function modelFrom(f: any): BackgroundModel {
   const Ok = Number(f.Omega_k);
   return {
-    H0_km_s_Mpc: f.H0, Omega_m: Number(f.Omega_m), Omega_cb: Number(f.Omega_m), Omega_b: null, Omega_gamma: Number(f.Omega_r),
-    Omega_nu: 0, Omega_nu_massive: 0, massiveNeutrinos: [], T_nu_K: null, Omega_r: Number(f.Omega_r),
-    Omega_de: Number(f.Omega_de), Omega_k: Ok, w0: f.w0, wa: f.wa, T_cmb_K: null, N_eff: 0,
+    H0_km_s_Mpc: f.H0,
+    Omega_m: Number(f.Omega_m),
+    Omega_cb: Number(f.Omega_m),
+    Omega_b: null,
+    Omega_gamma: Number(f.Omega_r),
+    Omega_nu: 0,
+    Omega_nu_massive: 0,
+    massiveNeutrinos: [],
+    T_nu_K: null,
+    Omega_r: Number(f.Omega_r),
+    Omega_de: Number(f.Omega_de),
+    Omega_k: Ok,
+    w0: f.w0,
+    wa: f.wa,
+    T_cmb_K: null,
+    N_eff: 0,
     geometry: Ok === 0 ? "flat" : Ok > 0 ? "open" : "closed",
   };
 }
 
-const ROW_KEYS = ["comoving_distance_Mpc", "transverse_comoving_distance_Mpc", "luminosity_distance_Mpc", "lookback_time_Gyr", "age_Gyr", "particle_horizon_Mpc", "E"] as const;
+const ROW_KEYS = [
+  "comoving_distance_Mpc",
+  "transverse_comoving_distance_Mpc",
+  "luminosity_distance_Mpc",
+  "lookback_time_Gyr",
+  "age_Gyr",
+  "particle_horizon_Mpc",
+  "E",
+] as const;
 
 describe("engine against mpmath 30-digit fixtures (curved, w0-wa, negative Omega_de, recollapsing)", () => {
   for (const f of fixture.models) {

@@ -1,7 +1,14 @@
 import { describe, expect, it } from "vitest";
 import {
-  FD_ENERGY_MASSLESS, FD_NUMBER, backgroundSummary, earlyUniverse, fermiDiracEnergyIntegral, lnEnergyRatio,
-  makeBackgroundModel, massiveNeutrinoDensity, masslessNeutrinoDensityParameter,
+  FD_ENERGY_MASSLESS,
+  FD_NUMBER,
+  backgroundSummary,
+  earlyUniverse,
+  fermiDiracEnergyIntegral,
+  lnEnergyRatio,
+  makeBackgroundModel,
+  massiveNeutrinoDensity,
+  masslessNeutrinoDensityParameter,
 } from "../../src/engine/index.js";
 import { loadScenario } from "../../src/scenario/loadScenario.js";
 import { relErr } from "../helpers/modelOf.js";
@@ -27,9 +34,26 @@ const planck = (N_eff = 3.046, m = [0.06]) => {
   // Planck 2018 VI (A&A 641, A6) Table 2, TT,TE,EE+lowE+lensing (values recalled from memory):
   // omega_b = 0.02237, omega_c = 0.1200, H0 = 67.36, one massive neutrino of 0.06 eV.
   const h = 0.6736;
-  const probe = makeBackgroundModel({ H0_km_s_Mpc: 67.36, Omega_m: 0.5, curvature: { kind: "flat" }, w0: -1, wa: 0, radiation: { T_cmb_K: 2.7255, N_eff }, m_nu_eV: m });
+  const probe = makeBackgroundModel({
+    H0_km_s_Mpc: 67.36,
+    Omega_m: 0.5,
+    curvature: { kind: "flat" },
+    w0: -1,
+    wa: 0,
+    radiation: { T_cmb_K: 2.7255, N_eff },
+    m_nu_eV: m,
+  });
   const Omega_m = (0.02237 + 0.12) / h ** 2 + probe.Omega_nu_massive;
-  return makeBackgroundModel({ H0_km_s_Mpc: 67.36, Omega_m, curvature: { kind: "flat" }, w0: -1, wa: 0, radiation: { T_cmb_K: 2.7255, N_eff }, baryons: { omega_b: 0.02237 }, m_nu_eV: m });
+  return makeBackgroundModel({
+    H0_km_s_Mpc: 67.36,
+    Omega_m,
+    curvature: { kind: "flat" },
+    w0: -1,
+    wa: 0,
+    radiation: { T_cmb_K: 2.7255, N_eff },
+    baryons: { omega_b: 0.02237 },
+    m_nu_eV: m,
+  });
 };
 
 describe("massive neutrinos in the background", () => {
@@ -56,7 +80,14 @@ describe("massive neutrinos in the background", () => {
     expect(relErr(s.z_matter_radiation_equality!, 3402)).toBeLessThan(0.002);
   });
   it("without baryons the early-universe quantities are null with a note", () => {
-    const m = makeBackgroundModel({ H0_km_s_Mpc: 70, Omega_m: 0.3, curvature: { kind: "flat" }, w0: -1, wa: 0, radiation: { T_cmb_K: 2.7255, N_eff: 3.044 } });
+    const m = makeBackgroundModel({
+      H0_km_s_Mpc: 70,
+      Omega_m: 0.3,
+      curvature: { kind: "flat" },
+      w0: -1,
+      wa: 0,
+      radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
+    });
     const r = earlyUniverse(m);
     expect(r.values.sound_horizon_drag_Mpc).toBeNull();
     expect(r.note).toMatch(/no baryon density/);
@@ -66,10 +97,14 @@ describe("massive neutrinos in the background", () => {
 describe("scenario rules for baryons and neutrinos", () => {
   const base = "title: t\nmodels:\n  - id: a\n    H0: 70\n    Omega_m: 0.3\n";
   it("Omega_b and omega_b together are over-determined", () => {
-    expect(() => loadScenario(base + "    Omega_b: 0.05\n    omega_b: 0.02\n", "x.yaml")).toThrow(/x\.yaml:7:5: models\[0\]\.omega_b: baryons are over-determined/);
+    expect(() => loadScenario(base + "    Omega_b: 0.05\n    omega_b: 0.02\n", "x.yaml")).toThrow(
+      /x\.yaml:7:5: models\[0\]\.omega_b: baryons are over-determined/,
+    );
   });
   it("massive neutrinos without radiation are refused", () => {
-    expect(() => loadScenario(base + "    radiation: none\n    m_nu_eV: [0.06]\n", "x.yaml")).toThrow(/massive neutrinos need thermal radiation/);
+    expect(() => loadScenario(base + "    radiation: none\n    m_nu_eV: [0.06]\n", "x.yaml")).toThrow(
+      /massive neutrinos need thermal radiation/,
+    );
   });
   it("more than three massive species are refused by the schema", () => {
     expect(() => loadScenario(base + "    m_nu_eV: [0.1, 0.1, 0.1, 0.1]\n", "x.yaml")).toThrow(/at most 3 items/);
@@ -81,8 +116,13 @@ describe("massive-neutrino model against mpmath fixtures (test/fixtures/mpmath/n
   const { redshiftTable, photonDensityParameter } = await import("../../src/engine/index.js");
   const f = JSON.parse(readFileSync(new URL("../fixtures/mpmath/neutrinos.json", import.meta.url), "utf8"));
   const m = makeBackgroundModel({
-    H0_km_s_Mpc: f.model.H0, Omega_m: f.model.Omega_m, curvature: { kind: "Omega_k", Omega_k: f.model.Omega_k }, w0: -1, wa: 0,
-    radiation: { T_cmb_K: f.model.T_cmb, N_eff: f.model.N_eff }, m_nu_eV: f.model.m_nu_eV,
+    H0_km_s_Mpc: f.model.H0,
+    Omega_m: f.model.Omega_m,
+    curvature: { kind: "Omega_k", Omega_k: f.model.Omega_k },
+    w0: -1,
+    wa: 0,
+    radiation: { T_cmb_K: f.model.T_cmb, N_eff: f.model.N_eff },
+    m_nu_eV: f.model.m_nu_eV,
   });
   it("uses the same photon density as the fixture's input", () => {
     expect(relErr(photonDensityParameter(f.model.T_cmb, f.model.H0), Number(f.model.Omega_gamma))).toBeLessThan(1e-15);

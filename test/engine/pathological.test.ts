@@ -1,7 +1,15 @@
 import { describe, expect, it } from "vitest";
 import {
-  backgroundSummary, bounceScaleFactor, NoBigBangError, NoSuchRedshiftError, redshiftAtAge, redshiftAtComovingDistance,
-  redshiftAtLookbackTime, redshiftTable, hubbleTimeGyr, hubbleDistanceMpc,
+  backgroundSummary,
+  bounceScaleFactor,
+  NoBigBangError,
+  NoSuchRedshiftError,
+  redshiftAtAge,
+  redshiftAtComovingDistance,
+  redshiftAtLookbackTime,
+  redshiftTable,
+  hubbleTimeGyr,
+  hubbleDistanceMpc,
 } from "../../src/engine/index.js";
 import { modelOf, relErr } from "../helpers/modelOf.js";
 
@@ -14,7 +22,11 @@ describe("models without a big bang are rejected, naming the turnaround redshift
     const x = 1 / a!;
     expect(Math.abs(0.1 * x ** 3 - 0.6 * x ** 2 + 1.5)).toBeLessThan(1e-12);
     expect(() => backgroundSummary(m)).toThrow(NoBigBangError);
-    try { backgroundSummary(m); } catch (e) { expect((e as Error).message).toMatch(/turned around at z = \d/); }
+    try {
+      backgroundSummary(m);
+    } catch (e) {
+      expect((e as Error).message).toMatch(/turned around at z = \d/);
+    }
   });
 });
 
@@ -23,7 +35,7 @@ describe("recollapse", () => {
     const r = backgroundSummary(modelOf({ Om: 0.3, Ode: -0.2 }));
     expect(r.summary.fate).toBe("recollapses");
     expect(r.summary.event_horizon_Mpc).not.toBeNull();
-    expect(r.summary.crunch_time_Gyr! ).toBeGreaterThan(r.summary.age_Gyr!);
+    expect(r.summary.crunch_time_Gyr!).toBeGreaterThan(r.summary.age_Gyr!);
     expect(r.warnings.join(" ")).toMatch(/recollapses/);
   });
   it("closed matter-only: crunch time is twice the time of maximum expansion (time symmetry of the Friedmann equation)", () => {
@@ -66,7 +78,9 @@ describe("inverse look-ups", () => {
     const age = backgroundSummary(m).summary.age_Gyr!;
     expect(() => redshiftAtLookbackTime(m, age + 0.1)).toThrow(NoSuchRedshiftError);
     expect(() => redshiftAtLookbackTime(m, age + 0.1)).toThrow(/must lie in/);
-    expect(() => redshiftAtComovingDistance(modelOf({ Om: 1, Ode: 0 }), 3 * hubbleDistanceMpc(70))).toThrow(/must lie in/);
+    expect(() => redshiftAtComovingDistance(modelOf({ Om: 1, Ode: 0 }), 3 * hubbleDistanceMpc(70))).toThrow(
+      /must lie in/,
+    );
     expect(hubbleTimeGyr(70)).toBeGreaterThan(age * 0.5);
   });
 });
@@ -74,7 +88,14 @@ describe("inverse look-ups", () => {
 describe("Planck 2018 VI (A&A 641, A6) Table 2, base Lambda-CDM TT,TE,EE+lowE+lensing (values recalled from memory)", () => {
   it("H0 = 67.36, Omega_m = 0.3153 gives an age of 13.797 Gyr within 0.3% (no massive neutrinos in this engine yet)", async () => {
     const { makeBackgroundModel } = await import("../../src/engine/index.js");
-    const m = makeBackgroundModel({ H0_km_s_Mpc: 67.36, Omega_m: 0.3153, curvature: { kind: "flat" }, w0: -1, wa: 0, radiation: { T_cmb_K: 2.7255, N_eff: 3.044 } });
+    const m = makeBackgroundModel({
+      H0_km_s_Mpc: 67.36,
+      Omega_m: 0.3153,
+      curvature: { kind: "flat" },
+      w0: -1,
+      wa: 0,
+      radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
+    });
     expect(relErr(backgroundSummary(m).summary.age_Gyr!, 13.797)).toBeLessThan(0.003);
   });
 });

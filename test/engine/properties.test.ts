@@ -1,6 +1,13 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { backgroundSummary, bounceScaleFactor, makeBackgroundModel, maximumScaleFactor, redshiftTable, type BackgroundModel } from "../../src/engine/index.js";
+import {
+  backgroundSummary,
+  bounceScaleFactor,
+  makeBackgroundModel,
+  maximumScaleFactor,
+  redshiftTable,
+  type BackgroundModel,
+} from "../../src/engine/index.js";
 import { modelOf, relErr } from "../helpers/modelOf.js";
 
 /**
@@ -25,7 +32,11 @@ const arbModel = fc
     Ok: fc.double({ min: -1, max: 1, noNaN: true }),
     w0: fc.double({ min: -2, max: -1 / 3, noNaN: true }),
     // wa = 0 or |wa| >= 1e-6: a CPL term with |wa| ~ 1e-300 decays only beyond the range of doubles.
-    wa: fc.oneof(fc.constant(0), fc.double({ min: 1e-6, max: 2, noNaN: true }), fc.double({ min: -3, max: -1e-6, noNaN: true })),
+    wa: fc.oneof(
+      fc.constant(0),
+      fc.double({ min: 1e-6, max: 2, noNaN: true }),
+      fc.double({ min: -3, max: -1e-6, noNaN: true }),
+    ),
     radiation: fc.boolean(),
   })
   .map((p) => modelOf({ Om: p.Om, Ok: p.Ok, Or: p.radiation ? 9e-5 : 0, w0: p.w0, wa: p.wa }))
@@ -35,50 +46,80 @@ const zsArb = fc.array(fc.double({ min: 0, max: 1e3, noNaN: true }), { minLength
 
 describe("properties over random models with a big bang", () => {
   it("D_L = (1+z)^2 D_A", () => {
-    fc.assert(fc.property(arbModel, zsArb, (m, zs) => {
-      const t = redshiftTable(m, zs);
-      zs.forEach((z, i) => {
-        const DL = t.luminosity_distance_Mpc[i];
-        if (DL !== 0) expect(relErr(DL, (1 + z) ** 2 * t.angular_diameter_distance_Mpc[i])).toBeLessThan(1e-14);
-      });
-    }), { numRuns: 150 });
+    fc.assert(
+      fc.property(arbModel, zsArb, (m, zs) => {
+        const t = redshiftTable(m, zs);
+        zs.forEach((z, i) => {
+          const DL = t.luminosity_distance_Mpc[i];
+          if (DL !== 0) expect(relErr(DL, (1 + z) ** 2 * t.angular_diameter_distance_Mpc[i])).toBeLessThan(1e-14);
+        });
+      }),
+      { numRuns: 150 },
+    );
   });
 
   it("D_C increases with z, lookback(z) + age(z) = age(0)", () => {
-    fc.assert(fc.property(arbModel, zsArb, (m: BackgroundModel, zs) => {
-      const sorted = [...zs].sort((a, b) => a - b);
-      const t = redshiftTable(m, sorted);
-      const age0 = backgroundSummary(m).summary.age_Gyr!;
-      for (let i = 0; i < sorted.length; i++) {
-        if (i > 0 && sorted[i] > sorted[i - 1] * (1 + 1e-9) + 1e-9) expect(t.comoving_distance_Mpc[i]).toBeGreaterThan(t.comoving_distance_Mpc[i - 1]);
-        expect(relErr(t.lookback_time_Gyr[i] + t.age_Gyr[i], age0)).toBeLessThan(1e-12);
-      }
-    }), { numRuns: 150 });
+    fc.assert(
+      fc.property(arbModel, zsArb, (m: BackgroundModel, zs) => {
+        const sorted = [...zs].sort((a, b) => a - b);
+        const t = redshiftTable(m, sorted);
+        const age0 = backgroundSummary(m).summary.age_Gyr!;
+        for (let i = 0; i < sorted.length; i++) {
+          if (i > 0 && sorted[i] > sorted[i - 1] * (1 + 1e-9) + 1e-9)
+            expect(t.comoving_distance_Mpc[i]).toBeGreaterThan(t.comoving_distance_Mpc[i - 1]);
+          expect(relErr(t.lookback_time_Gyr[i] + t.age_Gyr[i], age0)).toBeLessThan(1e-12);
+        }
+      }),
+      { numRuns: 150 },
+    );
   });
 
   it("the order of the requested redshifts does not change any value", () => {
-    fc.assert(fc.property(arbModel, zsArb, (m, zs) => {
-      const a = redshiftTable(m, zs);
-      const rev = [...zs].reverse();
-      const b = redshiftTable(m, rev);
-      zs.forEach((_, i) => expect(relErr(a.comoving_distance_Mpc[i], b.comoving_distance_Mpc[zs.length - 1 - i]) || 0).toBeLessThan(1e-12));
-    }), { numRuns: 50 });
+    fc.assert(
+      fc.property(arbModel, zsArb, (m, zs) => {
+        const a = redshiftTable(m, zs);
+        const rev = [...zs].reverse();
+        const b = redshiftTable(m, rev);
+        zs.forEach((_, i) =>
+          expect(relErr(a.comoving_distance_Mpc[i], b.comoving_distance_Mpc[zs.length - 1 - i]) || 0).toBeLessThan(
+            1e-12,
+          ),
+        );
+      }),
+      { numRuns: 50 },
+    );
   });
 });
 
 describe("curved results approach the flat ones continuously as Omega_k -> 0 from both sides", () => {
-  const flat = makeBackgroundModel({ H0_km_s_Mpc: 70, Omega_m: 0.3, curvature: { kind: "flat" }, w0: -1, wa: 0, radiation: { T_cmb_K: 2.7255, N_eff: 3.044 } });
+  const flat = makeBackgroundModel({
+    H0_km_s_Mpc: 70,
+    Omega_m: 0.3,
+    curvature: { kind: "flat" },
+    w0: -1,
+    wa: 0,
+    radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
+  });
   const zs = [0.5, 2, 10, 1000];
   const ref = redshiftTable(flat, zs);
   for (const sign of [1, -1]) {
     it(sign > 0 ? "open side" : "closed side", () => {
       let prev = Infinity;
       for (const mag of [1e-2, 1e-4, 1e-6, 1e-8, 1e-10, 2e-12]) {
-        const m = makeBackgroundModel({ H0_km_s_Mpc: 70, Omega_m: 0.3, curvature: { kind: "Omega_k", Omega_k: sign * mag }, w0: -1, wa: 0, radiation: { T_cmb_K: 2.7255, N_eff: 3.044 } });
+        const m = makeBackgroundModel({
+          H0_km_s_Mpc: 70,
+          Omega_m: 0.3,
+          curvature: { kind: "Omega_k", Omega_k: sign * mag },
+          w0: -1,
+          wa: 0,
+          radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
+        });
         expect(m.geometry).toBe(sign > 0 ? "open" : "closed");
         const t = redshiftTable(m, zs);
-        const dev = Math.max(...zs.map((_, i) => relErr(t.transverse_comoving_distance_Mpc[i], ref.transverse_comoving_distance_Mpc[i])),
-          ...zs.map((_, i) => relErr(t.comoving_volume_Gpc3[i], ref.comoving_volume_Gpc3[i])));
+        const dev = Math.max(
+          ...zs.map((_, i) => relErr(t.transverse_comoving_distance_Mpc[i], ref.transverse_comoving_distance_Mpc[i])),
+          ...zs.map((_, i) => relErr(t.comoving_volume_Gpc3[i], ref.comoving_volume_Gpc3[i])),
+        );
         // The deviation shrinks in proportion to |Omega_k| (first-order perturbation).
         expect(dev).toBeLessThan(5 * mag);
         expect(dev).toBeLessThanOrEqual(prev);
@@ -87,7 +128,14 @@ describe("curved results approach the flat ones continuously as Omega_k -> 0 fro
     });
   }
   it("|Omega_k| <= 1e-12 is flat by rule", () => {
-    const m = makeBackgroundModel({ H0_km_s_Mpc: 70, Omega_m: 0.3, curvature: { kind: "Omega_k", Omega_k: 1e-12 }, w0: -1, wa: 0, radiation: null });
+    const m = makeBackgroundModel({
+      H0_km_s_Mpc: 70,
+      Omega_m: 0.3,
+      curvature: { kind: "Omega_k", Omega_k: 1e-12 },
+      w0: -1,
+      wa: 0,
+      radiation: null,
+    });
     expect(m.geometry).toBe("flat");
     expect(m.Omega_k).toBe(0);
   });

@@ -27,32 +27,71 @@ function pageTable(doc: Document, id: string): string[][] {
 }
 function markdownTable(text: string): string[][] {
   const { document } = parseHTML(`<div>${md.render(text)}</div>`);
-  return [...document.querySelectorAll("table tr")].map((tr) => [...tr.querySelectorAll("th, td")].map((c) => squash(c.textContent ?? "")));
+  return [...document.querySelectorAll("table tr")].map((tr) =>
+    [...tr.querySelectorAll("th, td")].map((c) => squash(c.textContent ?? "")),
+  );
 }
 
 /** LaTeX cell text back to page text: the inverse of the escapes named above and of $-1.2\times10^{-5}$. */
-const SUPER: Record<string, string> = { "-": "\u207b", "0": "\u2070", "1": "\u00b9", "2": "\u00b2", "3": "\u00b3", "4": "\u2074", "5": "\u2075", "6": "\u2076", "7": "\u2077", "8": "\u2078", "9": "\u2079" };
+const SUPER: Record<string, string> = {
+  "-": "\u207b",
+  "0": "\u2070",
+  "1": "\u00b9",
+  "2": "\u00b2",
+  "3": "\u00b3",
+  "4": "\u2074",
+  "5": "\u2075",
+  "6": "\u2076",
+  "7": "\u2077",
+  "8": "\u2078",
+  "9": "\u2079",
+};
 function latexToText(s: string): string {
   return s
-    .replace(/\$(-?)([0-9.]+)\\times10\^\{(-?\d+)\}\$/g, (_, sign, m, e) => `${sign ? "\u2212" : ""}${m} \u00d7 10${[...e].map((c: string) => SUPER[c]).join("")}`)
+    .replace(
+      /\$(-?)([0-9.]+)\\times10\^\{(-?\d+)\}\$/g,
+      (_, sign, m, e) => `${sign ? "\u2212" : ""}${m} \u00d7 10${[...e].map((c: string) => SUPER[c]).join("")}`,
+    )
     .replace(/\$-([0-9.]+)\$/g, "\u2212$1")
     .replace(/^---$/, "\u2014")
-    .replace(/\\textbackslash\{\}/g, "\\").replace(/\\textasciitilde\{\}/g, "~").replace(/\\textasciicircum\{\}/g, "^").replace(/\\textbar\{\}/g, "|")
-    .replace(/\\textless\{\}/g, "<").replace(/\\textgreater\{\}/g, ">").replace(/\\textsuperscript\{(\d)\}/g, (_, d) => SUPER[d])
-    .replace(/\\([&%$#_{}])/g, "$1").replace(/\$-\$/g, "\u2212").replace(/\$\\times\$/g, "\u00d7").replace(/\$\\pi\$/g, "\u03c0").trim();
+    .replace(/\\textbackslash\{\}/g, "\\")
+    .replace(/\\textasciitilde\{\}/g, "~")
+    .replace(/\\textasciicircum\{\}/g, "^")
+    .replace(/\\textbar\{\}/g, "|")
+    .replace(/\\textless\{\}/g, "<")
+    .replace(/\\textgreater\{\}/g, ">")
+    .replace(/\\textsuperscript\{(\d)\}/g, (_, d) => SUPER[d])
+    .replace(/\\([&%$#_{}])/g, "$1")
+    .replace(/\$-\$/g, "\u2212")
+    .replace(/\$\\times\$/g, "\u00d7")
+    .replace(/\$\\pi\$/g, "\u03c0")
+    .trim();
 }
 /** Rows of a tabular: between \midrule and \bottomrule, split on unescaped & and the row end \\. */
 function latexRows(tex: string): string[][] {
   const body = tex.slice(tex.indexOf("\\midrule") + 8, tex.indexOf("\\bottomrule"));
-  return body.split(/\\\\\s*\n/).map((r) => r.trim()).filter(Boolean).map((r) => r.split(/(?<!\\)&/).map((c) => latexToText(c.trim())));
+  return body
+    .split(/\\\\\s*\n/)
+    .map((r) => r.trim())
+    .filter(Boolean)
+    .map((r) => r.split(/(?<!\\)&/).map((c) => latexToText(c.trim())));
 }
 function latexHeader(tex: string): string[] {
-  const lines = tex.slice(tex.indexOf("\\toprule"), tex.indexOf("\\midrule")).split("\n").filter((l) => l.trim().endsWith("\\\\") && !l.includes("multicolumn"));
-  return lines[0].replace(/\\\\\s*$/, "").split(/(?<!\\)&/).map((c) => latexToText(c.trim()));
+  const lines = tex
+    .slice(tex.indexOf("\\toprule"), tex.indexOf("\\midrule"))
+    .split("\n")
+    .filter((l) => l.trim().endsWith("\\\\") && !l.includes("multicolumn"));
+  return lines[0]
+    .replace(/\\\\\s*$/, "")
+    .split(/(?<!\\)&/)
+    .map((c) => latexToText(c.trim()));
 }
 /** Environments opened and closed in order, braces balanced outside escapes, an even number of unescaped $. */
 function latexBalanced(tex: string): boolean {
-  const body = tex.split("\n").filter((l) => !l.startsWith("%")).join("\n");
+  const body = tex
+    .split("\n")
+    .filter((l) => !l.startsWith("%"))
+    .join("\n");
   const stack: string[] = [];
   for (const m of body.matchAll(/\\(begin|end)\{([a-z*]+)\}/g)) {
     if (m[1] === "begin") stack.push(m[2]);
@@ -70,7 +109,9 @@ function latexBalanced(tex: string): boolean {
 describe("exports of the demo site", () => {
   let site: string;
   let page: Document;
-  let tables: { models: { id: string; summary: Record<string, number | null>; redshifts: Record<string, number | null>[] }[] };
+  let tables: {
+    models: { id: string; summary: Record<string, number | null>; redshifts: Record<string, number | null>[] }[];
+  };
   const exportsDir = () => join(site, "lantern-deep-field/exports");
   beforeAll(() => {
     compileProject();
@@ -97,7 +138,14 @@ describe("exports of the demo site", () => {
   });
 
   it("Markdown parsed back with markdown-it gives the page's cells", () => {
-    for (const id of ["models", "glance", "z-luminosity_distance_Mpc", "z-kpc_per_arcsec_proper", "early", "target-1"]) {
+    for (const id of [
+      "models",
+      "glance",
+      "z-luminosity_distance_Mpc",
+      "z-kpc_per_arcsec_proper",
+      "early",
+      "target-1",
+    ]) {
       const fromMd = markdownTable(readFileSync(join(exportsDir(), `${id}.md`), "utf8"));
       const fromPage = pageTable(page, id);
       // The page's redshift tables carry the quantity in the caption; headers are the models.
@@ -106,7 +154,9 @@ describe("exports of the demo site", () => {
   });
 
   it("CSV parsed back (RFC 4180, # comments) gives the tables document's numbers at full precision", () => {
-    const rows: string[][] = parseCsv(readFileSync(join(exportsDir(), "z-luminosity_distance_Mpc.csv"), "utf8"), { comment: "#" });
+    const rows: string[][] = parseCsv(readFileSync(join(exportsDir(), "z-luminosity_distance_Mpc.csv"), "utf8"), {
+      comment: "#",
+    });
     expect(rows[0][0]).toBe("z");
     rows.slice(1).forEach((r, i) => {
       expect(Number(r[0])).toBe(tables.models[0].redshifts[i].z);
@@ -116,7 +166,9 @@ describe("exports of the demo site", () => {
     const age = glance.find((r) => r[0] === "Age today [Gyr]")!;
     tables.models.forEach((m, j) => expect(Number(age[j + 1])).toBe(m.summary.age_Gyr));
     const event = glance.find((r) => r[0] === "Comoving event horizon [Mpc]")!;
-    tables.models.forEach((m, j) => expect(event[j + 1]).toBe(m.summary.event_horizon_Mpc === null ? "" : String(m.summary.event_horizon_Mpc)));
+    tables.models.forEach((m, j) =>
+      expect(event[j + 1]).toBe(m.summary.event_horizon_Mpc === null ? "" : String(m.summary.event_horizon_Mpc)),
+    );
   });
 
   it("LaTeX: booktabs rules, balanced environments and braces, units in the header, the page's cells", () => {
@@ -127,20 +179,40 @@ describe("exports of the demo site", () => {
       const fromPage = pageTable(page, id);
       expect([latexHeader(tex), ...latexRows(tex)], id).toEqual(fromPage);
     }
-    expect(readFileSync(join(exportsDir(), "z-luminosity_distance_Mpc.tex"), "utf8")).toContain("\\multicolumn{5}{c}{Luminosity distance D\\_L [Mpc]}");
+    expect(readFileSync(join(exportsDir(), "z-luminosity_distance_Mpc.tex"), "utf8")).toContain(
+      "\\multicolumn{5}{c}{Luminosity distance D\\_L [Mpc]}",
+    );
   });
 
   it("a whole redshift group exports as one table: a column block per quantity, \\multicolumn headers in LaTeX", () => {
-    expect(page.querySelector('p.exports[data-export="group-distances"] a')?.getAttribute("href")).toBe("exports/group-distances.csv");
-    const keys = ["comoving_distance_Mpc", "transverse_comoving_distance_Mpc", "angular_diameter_distance_Mpc", "luminosity_distance_Mpc", "distance_modulus_mag"];
-    const rows: string[][] = parseCsv(readFileSync(join(exportsDir(), "group-distances.csv"), "utf8"), { comment: "#" });
+    expect(page.querySelector('p.exports[data-export="group-distances"] a')?.getAttribute("href")).toBe(
+      "exports/group-distances.csv",
+    );
+    const keys = [
+      "comoving_distance_Mpc",
+      "transverse_comoving_distance_Mpc",
+      "angular_diameter_distance_Mpc",
+      "luminosity_distance_Mpc",
+      "distance_modulus_mag",
+    ];
+    const rows: string[][] = parseCsv(readFileSync(join(exportsDir(), "group-distances.csv"), "utf8"), {
+      comment: "#",
+    });
     expect(rows[0][1]).toBe("Comoving distance D_C [Mpc]: Flat reference (demo values)");
     expect(rows[0].length).toBe(1 + keys.length * tables.models.length);
-    rows.slice(1).forEach((r, i) => keys.forEach((k, qi) => tables.models.forEach((m, j) => expect(Number(r[1 + qi * tables.models.length + j])).toBe(m.redshifts[i][k]))));
+    rows
+      .slice(1)
+      .forEach((r, i) =>
+        keys.forEach((k, qi) =>
+          tables.models.forEach((m, j) => expect(Number(r[1 + qi * tables.models.length + j])).toBe(m.redshifts[i][k])),
+        ),
+      );
     const tex = readFileSync(join(exportsDir(), "group-distances.tex"), "utf8");
     expect(latexBalanced(tex)).toBe(true);
     expect(tex.match(/\\multicolumn\{5\}\{c\}/g)?.length).toBe(5);
-    expect(tex).toContain("\\cmidrule(lr){2-6} \\cmidrule(lr){7-11} \\cmidrule(lr){12-16} \\cmidrule(lr){17-21} \\cmidrule(lr){22-26}");
+    expect(tex).toContain(
+      "\\cmidrule(lr){2-6} \\cmidrule(lr){7-11} \\cmidrule(lr){12-16} \\cmidrule(lr){17-21} \\cmidrule(lr){22-26}",
+    );
     const mdRows = markdownTable(readFileSync(join(exportsDir(), "group-distances.md"), "utf8"));
     expect(mdRows[0]).toEqual(rows[0]);
   });
@@ -149,7 +221,9 @@ describe("exports of the demo site", () => {
     const html = readFileSync(join(exportsDir(), "glance.html"), "utf8");
     const { document } = parseHTML(`<body>${html}</body>`);
     expect(document.querySelectorAll("script, link, img").length).toBe(0);
-    const rows = [...document.querySelectorAll("table tr")].map((tr) => [...tr.querySelectorAll("th, td")].map((c) => squash(c.textContent ?? "")));
+    const rows = [...document.querySelectorAll("table tr")].map((tr) =>
+      [...tr.querySelectorAll("th, td")].map((c) => squash(c.textContent ?? "")),
+    );
     expect(rows).toEqual(pageTable(page, "glance"));
   });
 
@@ -161,11 +235,12 @@ describe("exports of the demo site", () => {
       const png = PNG.sync.read(bytes);
       expect([png.width, png.height]).toEqual([1800, 1020]);
       let drawn = 0;
-      for (let i = 0; i < png.data.length; i += 4) if (png.data[i] < 200 || png.data[i + 1] < 200 || png.data[i + 2] < 200) drawn++;
+      for (let i = 0; i < png.data.length; i += 4)
+        if (png.data[i] < 200 || png.data[i + 1] < 200 || png.data[i + 2] < 200) drawn++;
       expect(drawn, f).toBeGreaterThan(20_000);
       // Walk the chunks as the PNG specification lays them out: length, type, data, CRC.
       const text: Record<string, string> = {};
-      for (let at = 8; at < bytes.length;) {
+      for (let at = 8; at < bytes.length; ) {
         const length = bytes.readUInt32BE(at);
         const type = bytes.toString("latin1", at + 4, at + 8);
         const data = bytes.subarray(at + 8, at + 8 + length);
@@ -190,7 +265,9 @@ describe("exports of the demo site", () => {
     const root = document.querySelector("svg")!;
     expect(root.getAttribute("role")).toBe("img");
     expect(document.querySelector("title")?.textContent).toBe("Distances: D_L");
-    expect(document.querySelector("desc")?.textContent).toMatch(/^Line chart of D_L \[Mpc\] against redshift z .* for 5 models/);
+    expect(document.querySelector("desc")?.textContent).toMatch(
+      /^Line chart of D_L \[Mpc\] against redshift z .* for 5 models/,
+    );
     expect(document.querySelectorAll("path").length).toBeGreaterThan(10);
     expect(document.querySelectorAll("image").length).toBe(0); // no embedded bitmap
   });
@@ -218,7 +295,9 @@ describe("exports of the demo site", () => {
     expect(text).toMatch(/"Mildly closed": as "Flat reference \(demo values\)" but Omega_k = -0\.015/);
     expect(text).toMatch(/H0 = 68\.2 km\/s\/Mpc/);
     expect(text).toMatch(/Defaults applied: .*T_cmb = 2\.7255 K, N_eff = 3\.044 in every model/);
-    expect(text).toMatch(/cosmoledger \d+\.\d+\.\d+ \(engine 1\.0\.0\); scenario lantern-deep-field, version 2 \(SHA-256 [0-9a-f]{64}\)/);
+    expect(text).toMatch(
+      /cosmoledger \d+\.\d+\.\d+ \(engine 1\.0\.0\); scenario lantern-deep-field, version 2 \(SHA-256 [0-9a-f]{64}\)/,
+    );
     const tex = readFileSync(join(exportsDir(), "assumptions.tex"), "utf8");
     expect(latexBalanced(tex)).toBe(true);
     expect(tex).toContain("$\\Omega_k = -0.015$");
@@ -233,12 +312,21 @@ describe("special characters in labels", { timeout: 60_000 }, () => {
     const dir = tempDir();
     mkdirSync(join(dir, "scenarios"));
     const yaml = (s: string) => JSON.stringify(s); // a JSON string is a valid double-quoted YAML scalar
-    writeFileSync(join(dir, "scenarios/nasty.yaml"), [
-      "id: nasty", `title: ${yaml(`Title ${NASTY}`)}`, "redshifts: [1]", "grid: { z_max: 2, points: 10 }", "models:",
-      `  - { id: m1, label: ${yaml(NASTY)}, H0: 70, Omega_m: 0.3, flat: true }`,
-      `  - { id: m2, label: ${yaml(`${NASTY} 2`)}, H0: 65, Omega_m: 0.3, flat: true }`,
-      `targets:`, `  - { name: ${yaml(`Target ${NASTY}`)}, z: 1 }`, "",
-    ].join("\n"));
+    writeFileSync(
+      join(dir, "scenarios/nasty.yaml"),
+      [
+        "id: nasty",
+        `title: ${yaml(`Title ${NASTY}`)}`,
+        "redshifts: [1]",
+        "grid: { z_max: 2, points: 10 }",
+        "models:",
+        `  - { id: m1, label: ${yaml(NASTY)}, H0: 70, Omega_m: 0.3, flat: true }`,
+        `  - { id: m2, label: ${yaml(`${NASTY} 2`)}, H0: 65, Omega_m: 0.3, flat: true }`,
+        `targets:`,
+        `  - { name: ${yaml(`Target ${NASTY}`)}, z: 1 }`,
+        "",
+      ].join("\n"),
+    );
     const r = runCli(["export", "scenarios/nasty.yaml", "--format", "csv,json,md,tex,html", "--out", "ex"], dir);
     if (r.code !== 0) throw new Error(r.stderr);
     out = join(dir, "ex/nasty/draft");
@@ -248,14 +336,18 @@ describe("special characters in labels", { timeout: 60_000 }, () => {
     const rows = markdownTable(readFileSync(join(out, "glance.md"), "utf8"));
     expect(rows[0]).toEqual(["Quantity", NASTY, `${NASTY} 2`]);
     const title = md.render(readFileSync(join(out, "target-1.md"), "utf8").split("\n")[0]);
-    expect(squash(parseHTML(`<div>${title}</div>`).document.querySelector("div")!.textContent!)).toBe(`Target: Target ${NASTY} (placed by z)`);
+    expect(squash(parseHTML(`<div>${title}</div>`).document.querySelector("div")!.textContent!)).toBe(
+      `Target: Target ${NASTY} (placed by z)`,
+    );
   });
 
   it("LaTeX: every special character escaped, and the escapes read back to the label", () => {
     const tex = readFileSync(join(out, "glance.tex"), "utf8");
     expect(latexBalanced(tex)).toBe(true);
     const header = tex.split("\n").find((l) => l.startsWith("Quantity &"))!;
-    expect(header).toContain("A\\&B 5\\% \\$x\\$ \\#1 a\\_b \\{c\\} \\textasciitilde{}d \\textasciicircum{}e \\textbackslash{}f \\textbar{}g");
+    expect(header).toContain(
+      "A\\&B 5\\% \\$x\\$ \\#1 a\\_b \\{c\\} \\textasciitilde{}d \\textasciicircum{}e \\textbackslash{}f \\textbar{}g",
+    );
     expect(latexHeader(tex)).toEqual(["Quantity", NASTY, `${NASTY} 2`]);
   });
 
@@ -265,7 +357,9 @@ describe("special characters in labels", { timeout: 60_000 }, () => {
     expect(Number(row[1])).toBeCloseTo(299792.458 / 70, 9);
     expect(Number(row[2])).toBeCloseTo(299792.458 / 65, 9);
     const tex = readFileSync(join(out, "glance.tex"), "utf8");
-    expect(tex).toContain(`Hubble distance c/H0 [Mpc] & ${(299792.458 / 70).toPrecision(6)} & ${(299792.458 / 65).toPrecision(6)} \\\\`);
+    expect(tex).toContain(
+      `Hubble distance c/H0 [Mpc] & ${(299792.458 / 70).toPrecision(6)} & ${(299792.458 / 65).toPrecision(6)} \\\\`,
+    );
   });
 
   it("CSV, JSON and the HTML fragment keep the labels exactly", () => {
@@ -274,7 +368,11 @@ describe("special characters in labels", { timeout: 60_000 }, () => {
     const json = JSON.parse(readFileSync(join(out, "glance.json"), "utf8"));
     expect(json.table.columns.map((c: { label: string }) => c.label)).toEqual([NASTY, `${NASTY} 2`]);
     const { document } = parseHTML(`<body>${readFileSync(join(out, "glance.html"), "utf8")}</body>`);
-    expect([...document.querySelectorAll("thead th")].map((th) => th.textContent)).toEqual(["Quantity", NASTY, `${NASTY} 2`]);
+    expect([...document.querySelectorAll("thead th")].map((th) => th.textContent)).toEqual([
+      "Quantity",
+      NASTY,
+      `${NASTY} 2`,
+    ]);
   });
 });
 
@@ -292,7 +390,8 @@ describe("hostile strings in exports", { timeout: 60_000 }, () => {
       const html = f.endsWith(".md") ? permissive.render(text) : text;
       const { document } = parseHTML(`<body>${html}</body>`);
       expect(document.querySelectorAll("script, img, svg, iframe").length, f).toBe(0);
-      for (const el of document.querySelectorAll("*")) for (const a of el.getAttributeNames()) expect(a.startsWith("on"), `${f}: ${a}`).toBe(false);
+      for (const el of document.querySelectorAll("*"))
+        for (const a of el.getAttributeNames()) expect(a.startsWith("on"), `${f}: ${a}`).toBe(false);
     }
   });
 });
@@ -301,7 +400,16 @@ describe("cosmoledger export", { timeout: 60_000 }, () => {
   it("exports a frozen version's stored tables, only the formats asked for, and refuses bad options with exit 2", () => {
     compileProject();
     const dir = tempDir();
-    const r = runCli(["export", "scenarios/lantern-deep-field.yaml", "--version", "1", "--format", "tex", "--out", join(dir, "ex")]);
+    const r = runCli([
+      "export",
+      "scenarios/lantern-deep-field.yaml",
+      "--version",
+      "1",
+      "--format",
+      "tex",
+      "--out",
+      join(dir, "ex"),
+    ]);
     expect(r.code, r.stderr).toBe(0);
     const files = readdirSync(join(dir, "ex/lantern-deep-field/v1")).filter((f) => !f.startsWith("."));
     expect(files.every((f) => f.endsWith(".tex") || f === "assumptions.txt")).toBe(true);
@@ -314,7 +422,14 @@ describe("cosmoledger export", { timeout: 60_000 }, () => {
     expect(empty.code).toBe(2);
     expect(empty.stderr).toMatch(/--format names no format/);
     expect(existsSync(join(dir, "ex3"))).toBe(false);
-    const missing = runCli(["export", "scenarios/lantern-deep-field.yaml", "--version", "99", "--out", join(dir, "ex2")]);
+    const missing = runCli([
+      "export",
+      "scenarios/lantern-deep-field.yaml",
+      "--version",
+      "99",
+      "--out",
+      join(dir, "ex2"),
+    ]);
     expect(missing.code).toBe(2);
     expect(missing.stderr).toMatch(/has no version 99/);
     expect(existsSync(join(dir, "ex2"))).toBe(false);

@@ -13,7 +13,11 @@ describe("writeExportFiles", () => {
       pending--;
       return Buffer.from(String(n));
     };
-    const files = [{ name: "t1", content: "a" }, ...Array.from({ length: 10 }, (_, i) => ({ name: `i${i}`, content: image(i) })), { name: "t2", content: "b" }];
+    const files = [
+      { name: "t1", content: "a" },
+      ...Array.from({ length: 10 }, (_, i) => ({ name: `i${i}`, content: image(i) })),
+      { name: "t2", content: "b" },
+    ];
     const written: string[] = [];
     await writeExportFiles(files, (f) => written.push(f.name), 3);
     expect(written.sort()).toEqual(files.map((f) => f.name).sort());

@@ -1,7 +1,15 @@
 import { FLATNESS_THRESHOLD, type BackgroundModel } from "../../src/engine/index.js";
 
 /** A background model given directly by its density parameters (for closed-form checks and fixtures). */
-export function modelOf(p: { H0?: number; Om: number; Or?: number; Ok?: number; Ode?: number; w0?: number; wa?: number }): BackgroundModel {
+export function modelOf(p: {
+  H0?: number;
+  Om: number;
+  Or?: number;
+  Ok?: number;
+  Ode?: number;
+  w0?: number;
+  wa?: number;
+}): BackgroundModel {
   const Or = p.Or ?? 0;
   const Ode = p.Ode ?? 1 - p.Om - Or - (p.Ok ?? 0);
   const OkRaw = p.Ok ?? 1 - p.Om - Or - Ode;

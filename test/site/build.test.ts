@@ -10,7 +10,9 @@ import { HOSTILE_SCENARIO, ROOT, compileProject, runCli, tempDir } from "../help
 let site: string;
 
 function htmlFiles(dir: string): string[] {
-  return readdirSync(dir, { recursive: true, encoding: "utf8" }).filter((f) => f.endsWith(".html")).map((f) => join(dir, f));
+  return readdirSync(dir, { recursive: true, encoding: "utf8" })
+    .filter((f) => f.endsWith(".html"))
+    .map((f) => join(dir, f));
 }
 const doc = (file: string) => parseHTML(readFileSync(file, "utf8")).document;
 
@@ -46,7 +48,9 @@ describe("the demo site", { timeout: 120_000 }, () => {
           const cells = [...tr.querySelectorAll("td")];
           tables.models.forEach((m: any, j: number) => {
             const shown = cells[j].childNodes[0].textContent;
-            expect(shown, `${q.key} z=${tables.scenario.redshifts[i]} ${m.id}`).toBe(formatNumber(m.redshifts[i][q.key]));
+            expect(shown, `${q.key} z=${tables.scenario.redshifts[i]} ${m.id}`).toBe(
+              formatNumber(m.redshifts[i][q.key]),
+            );
             checked++;
           });
         });
@@ -99,7 +103,13 @@ describe("hostile strings from a scenario are shown as text and run nothing", { 
     const html = readFileSync(join(out, "hostile", "index.html"), "utf8");
     const page = parseHTML(html).document;
     const scripts = [...page.querySelectorAll("script")].map((s) => s.getAttribute("src") ?? s.getAttribute("type"));
-    expect(scripts).toEqual(["application/json", "../assets/chart.umd.min.js", "../assets/charts.js", "exports/copy.js", "../assets/copy-buttons.js"]);
+    expect(scripts).toEqual([
+      "application/json",
+      "../assets/chart.umd.min.js",
+      "../assets/charts.js",
+      "exports/copy.js",
+      "../assets/copy-buttons.js",
+    ]);
     // The copy texts are data: run in an empty sandbox, the file only assigns window.cosmoledgerCopy, and the labels survive as text.
     const sandbox: { window: Record<string, unknown> } = { window: {} };
     runInNewContext(readFileSync(join(out, "hostile", "exports", "copy.js"), "utf8"), sandbox);
@@ -109,7 +119,8 @@ describe("hostile strings from a scenario are shown as text and run nothing", { 
       for (const attr of [...el.attributes]) expect(attr.name, `${el.tagName} ${attr.name}`).not.toMatch(/^on/i);
     }
     expect(page.querySelectorAll("img, svg, iframe").length).toBe(0);
-    for (const a of [...page.querySelectorAll("[href]")]) expect(a.getAttribute("href")).not.toMatch(/^\s*javascript:/i);
+    for (const a of [...page.querySelectorAll("[href]")])
+      expect(a.getAttribute("href")).not.toMatch(/^\s*javascript:/i);
     expect(page.querySelector("h1")!.textContent).toContain("<script>window.__pwned = 1</script>");
     // The inline chart data cannot close its element early.
     expect(page.querySelector("#chart-data")!.textContent).not.toContain("</script");
