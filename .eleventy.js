@@ -25,7 +25,8 @@ export default function (eleventyConfig) {
     if (current) return current;
     const { ledger, issues } = readLedger(scenariosDir, archiveDir);
     if (!ledger) throw new Error(issues.map(formatIssue).join("\n"));
-    return (current = ledger);
+    current = ledger;
+    return current;
   });
   eleventyConfig.addGlobalData("catalog", { ...catalog });
   eleventyConfig.addGlobalData("tex", { friedmann: FRIEDMANN_TEX, closure: CLOSURE_TEX });

@@ -56,7 +56,7 @@ export function runEngineBench({ points = 2000, zMax = 20, repeats = 30 } = {}) 
   const nuTimes = [];
   for (let r = 0; r < repeats; r++) {
     const t0 = process.hrtime.bigint();
-    BENCH_MODELS_NU.forEach((m) => redshiftTable(m, zs));
+    for (const m of BENCH_MODELS_NU) redshiftTable(m, zs);
     nuTimes.push(Number(process.hrtime.bigint() - t0) / 1e6);
   }
   nuTimes.sort((a, b) => a - b);

@@ -13,7 +13,7 @@ main(process.argv.slice(2)).then(
     process.exitCode = code;
   },
   (error) => {
-    process.stderr.write(`cosmoledger: unexpected failure: ${error && error.stack ? error.stack : error}\n`);
+    process.stderr.write(`cosmoledger: unexpected failure: ${error?.stack ? error.stack : error}\n`);
     process.exitCode = 1;
   },
 );

@@ -1,11 +1,10 @@
 // Draws the scenario charts from the inline JSON data block with Chart.js (bundled with the site).
 // Display only: it plots the engine's numbers; "ratio to baseline" divides two plotted series.
-(function () {
-  "use strict";
+(() => {
   var dataElement = document.getElementById("chart-data");
   var diffToggle = document.getElementById("show-diffs");
   if (diffToggle) {
-    diffToggle.addEventListener("change", function () {
+    diffToggle.addEventListener("change", () => {
       document.body.classList.toggle("hide-diffs", !diffToggle.checked);
     });
   }
@@ -21,24 +20,20 @@
   // Index: one small D_L(z) chart per scenario card.
   var indexElement = document.getElementById("index-chart-data");
   if (indexElement) {
-    JSON.parse(indexElement.textContent).forEach(function (scenario) {
-      var canvas = document.querySelector('canvas[data-mini="' + scenario.id + '"]');
+    JSON.parse(indexElement.textContent).forEach((scenario) => {
+      var canvas = document.querySelector(`canvas[data-mini="${scenario.id}"]`);
       if (!canvas) return;
       window.cosmoledgerCharts[scenario.id] = new Chart(canvas, {
         type: "line",
         data: {
-          datasets: scenario.models.map(function (m, i) {
-            return {
-              label: m.label,
-              data: scenario.z.map(function (z, j) {
-                return { x: z, y: m.values[j] };
-              }),
-              borderColor: COLOURS[i % COLOURS.length],
-              borderDash: DASHES[i % DASHES.length],
-              borderWidth: 1.5,
-              pointRadius: 0,
-            };
-          }),
+          datasets: scenario.models.map((m, i) => ({
+            label: m.label,
+            data: scenario.z.map((z, j) => ({ x: z, y: m.values[j] })),
+            borderColor: COLOURS[i % COLOURS.length],
+            borderDash: DASHES[i % DASHES.length],
+            borderWidth: 1.5,
+            pointRadius: 0,
+          })),
         },
         options: {
           parsing: false,
@@ -55,16 +50,14 @@
   }
   if (!dataElement) return;
   var data = JSON.parse(dataElement.textContent);
-  var baseline = data.models.filter(function (m) {
-    return m.id === data.baseline;
-  })[0];
+  var baseline = data.models.filter((m) => m.id === data.baseline)[0];
   var byKey = {};
-  data.series.forEach(function (s) {
+  data.series.forEach((s) => {
     byKey[s.key] = s;
   });
   window.cosmoledgerCharts = {};
 
-  document.querySelectorAll("figure.chart").forEach(function (figure) {
+  document.querySelectorAll("figure.chart").forEach((figure) => {
     var canvas = figure.querySelector("canvas");
     var seriesInput = figure.querySelector("[data-series]");
     var logInput = figure.querySelector("[data-log]");
@@ -74,13 +67,13 @@
       var ratio = ratioInput.checked;
       var log = logInput.checked;
       var base = baseline.values[key];
-      return data.models.map(function (m, i) {
+      return data.models.map((m, i) => {
         var ys = m.values[key];
         var points = [];
-        for (var j = 0; j < data.z.length; j++) {
-          var x = data.z[j];
+        for (let j = 0; j < data.z.length; j++) {
+          const x = data.z[j];
           if (log && !(x > 0)) continue;
-          var y = ys[j];
+          let y = ys[j];
           if (ratio) y = y === null || !base[j] ? null : y / base[j];
           points.push({ x: x, y: y });
         }
@@ -100,8 +93,8 @@
     function yTitle() {
       var s = byKey[seriesInput.value];
       return ratioInput.checked
-        ? s.label + " / baseline (" + data.baseline + ")"
-        : s.label + (s.unit ? " [" + s.unit.replace("^3", "\u00b3") + "]" : "");
+        ? `${s.label} / baseline (${data.baseline})`
+        : s.label + (s.unit ? ` [${s.unit.replace("^3", "\u00b3")}]` : "");
     }
     var chart = new Chart(canvas, {
       type: "line",
@@ -122,12 +115,8 @@
                 // On the log axis only 1, 2 and 5 times a power of ten are labelled, so that labels do not crowd.
                 if (this.type !== "logarithmic") return Chart.Ticks.formatters.numeric.call(this, value, index, ticks);
                 var v = Number(value);
-                var m = v / Math.pow(10, Math.floor(Math.log10(v) + 1e-9));
-                return [1, 2, 5].some(function (k) {
-                  return Math.abs(m - k) < 1e-6;
-                })
-                  ? String(Number(v.toPrecision(3)))
-                  : "";
+                var m = v / 10 ** Math.floor(Math.log10(v) + 1e-9);
+                return [1, 2, 5].some((k) => Math.abs(m - k) < 1e-6) ? String(Number(v.toPrecision(3))) : "";
               },
             },
           },
@@ -140,20 +129,17 @@
             labels: {
               usePointStyle: true,
               pointStyleWidth: 36,
-              generateLabels: function (c) {
-                return c.data.datasets.map(function (d, i) {
-                  return {
-                    text: d.label,
-                    datasetIndex: i,
-                    pointStyle: "line",
-                    fillStyle: COLOURS[i % COLOURS.length],
-                    strokeStyle: COLOURS[i % COLOURS.length],
-                    lineWidth: 2,
-                    lineDash: DASHES[i % DASHES.length],
-                    hidden: !c.isDatasetVisible(i),
-                  };
-                });
-              },
+              generateLabels: (c) =>
+                c.data.datasets.map((d, i) => ({
+                  text: d.label,
+                  datasetIndex: i,
+                  pointStyle: "line",
+                  fillStyle: COLOURS[i % COLOURS.length],
+                  strokeStyle: COLOURS[i % COLOURS.length],
+                  lineWidth: 2,
+                  lineDash: DASHES[i % DASHES.length],
+                  hidden: !c.isDatasetVisible(i),
+                })),
             },
           },
         },
@@ -165,7 +151,7 @@
       chart.options.scales.y.title.text = yTitle();
       chart.update();
     }
-    [seriesInput, logInput, ratioInput].forEach(function (input) {
+    [seriesInput, logInput, ratioInput].forEach((input) => {
       if (input) input.addEventListener("change", update);
     });
     window.cosmoledgerCharts[figure.getAttribute("data-chart")] = chart;

@@ -1,7 +1,6 @@
 // Copy-to-clipboard for the Markdown and LaTeX exports. The texts come from exports/copy.js (written at build time);
 // nothing is computed here. The buttons are made here, since they need script anyway.
-(function () {
-  "use strict";
+(() => {
   var data = window.cosmoledgerCopy;
   if (!data) return;
   function textFor(button) {
@@ -21,7 +20,7 @@
     var ok = false;
     try {
       ok = document.execCommand("copy");
-    } catch (e) {
+    } catch {
       ok = false;
     }
     document.body.removeChild(area);
@@ -31,18 +30,18 @@
     var label = button.getAttribute("data-label") || button.textContent;
     button.setAttribute("data-label", label);
     button.textContent = message;
-    setTimeout(function () {
+    setTimeout(() => {
       button.textContent = label;
     }, 1500);
   }
   // One pair of buttons per export paragraph that has copy texts: Markdown (plain text for the assumptions) and LaTeX.
-  document.querySelectorAll("p.exports[data-export]").forEach(function (p) {
+  document.querySelectorAll("p.exports[data-export]").forEach((p) => {
     var id = p.getAttribute("data-export");
     if (id !== "assumptions" && !data.tables[id]) return;
     [
       ["md", id === "assumptions" ? "Copy text" : "Copy Markdown"],
       ["tex", "Copy LaTeX"],
-    ].forEach(function (pair) {
+    ].forEach((pair) => {
       var button = document.createElement("button");
       button.type = "button";
       button.className = "copy";
@@ -53,19 +52,19 @@
       p.appendChild(button);
     });
   });
-  document.querySelectorAll("button.copy").forEach(function (button) {
+  document.querySelectorAll("button.copy").forEach((button) => {
     var text = textFor(button);
     if (text === null || text === undefined) return;
-    button.addEventListener("click", function () {
-      var done = function () {
+    button.addEventListener("click", () => {
+      var done = () => {
         button.setAttribute("data-copied", "true");
         say(button, "Copied");
       };
-      var fail = function () {
+      var fail = () => {
         if (fallbackCopy(text)) done();
         else say(button, "Copy failed: use the download");
       };
-      if (navigator.clipboard && navigator.clipboard.writeText) navigator.clipboard.writeText(text).then(done, fail);
+      if (navigator.clipboard?.writeText) navigator.clipboard.writeText(text).then(done, fail);
       else fail();
     });
   });

@@ -94,7 +94,7 @@ export function freezeScenario(
     );
     const final = join(folder, versionFileName(record.version));
     const tmp = join(folder, `.freeze-${process.pid}-${randomBytes(6).toString("hex")}.tmp`);
-    writeFileSync(tmp, JSON.stringify(record) + "\n", { flag: "wx" });
+    writeFileSync(tmp, `${JSON.stringify(record)}\n`, { flag: "wx" });
     try {
       fsyncPath(tmp, "r+");
       publish(tmp, final);

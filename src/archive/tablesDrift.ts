@@ -41,11 +41,16 @@ export function tablesDrift(before: unknown, after: unknown, skip: readonly stri
       );
   };
   const walk = (b: unknown, a: unknown, quantity: string, where: string, depth: number): void => {
-    if (typeof b === "number" && typeof a === "number") return note(quantity, relativeChange(b, a), where, b, a);
+    if (typeof b === "number" && typeof a === "number") {
+      note(quantity, relativeChange(b, a), where, b, a);
+      return;
+    }
     if (Array.isArray(b) && Array.isArray(a)) {
-      if (b.length !== a.length)
-        return note(quantity + "[]", Infinity, where, `${b.length} entries`, `${a.length} entries`);
-      for (let i = 0; i < b.length; i++) walk(b[i], a[i], quantity + "[]", `${where}[${i}]`, depth + 1);
+      if (b.length !== a.length) {
+        note(`${quantity}[]`, Infinity, where, `${b.length} entries`, `${a.length} entries`);
+        return;
+      }
+      for (let i = 0; i < b.length; i++) walk(b[i], a[i], `${quantity}[]`, `${where}[${i}]`, depth + 1);
       return;
     }
     if (b && a && typeof b === "object" && typeof a === "object") {

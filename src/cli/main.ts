@@ -89,6 +89,23 @@ Options:
   --quiet    print only the summary and the problems`,
 };
 
+const OPTIONS = {
+  help: { type: "boolean", short: "h" },
+  out: { type: "string" },
+  json: { type: "boolean" },
+  quiet: { type: "boolean" },
+  scenarios: { type: "string" },
+  archive: { type: "string" },
+  message: { type: "string", short: "m" },
+  strict: { type: "boolean" },
+  version: { type: "string" },
+  format: { type: "string", multiple: true },
+  "skip-images": { type: "boolean" },
+  verbose: { type: "boolean" },
+} as const;
+
+const parseOptions = (args: string[]) => parseArgs({ args, allowPositionals: true, strict: true, options: OPTIONS });
+
 export async function main(argv: string[]): Promise<number> {
   const [command, ...rest] = argv;
   if (command === undefined || command === "--help" || command === "-h" || command === "help") {
@@ -100,33 +117,15 @@ export async function main(argv: string[]): Promise<number> {
     process.stderr.write(`cosmoledger: unknown command "${command}"\n\n${HELP.main}\n`);
     return 2;
   }
-  let parsed;
+  let parsed: ReturnType<typeof parseOptions>;
   try {
-    parsed = parseArgs({
-      args: rest,
-      allowPositionals: true,
-      strict: true,
-      options: {
-        help: { type: "boolean", short: "h" },
-        out: { type: "string" },
-        json: { type: "boolean" },
-        quiet: { type: "boolean" },
-        scenarios: { type: "string" },
-        archive: { type: "string" },
-        message: { type: "string", short: "m" },
-        strict: { type: "boolean" },
-        version: { type: "string" },
-        format: { type: "string", multiple: true },
-        "skip-images": { type: "boolean" },
-        verbose: { type: "boolean" },
-      },
-    });
+    parsed = parseOptions(rest);
   } catch (e) {
     process.stderr.write(`cosmoledger ${command}: ${(e as Error).message}\n\n${HELP[command]}\n`);
     return 2;
   }
   if (parsed.values.help) {
-    process.stdout.write(HELP[command] + "\n");
+    process.stdout.write(`${HELP[command]}\n`);
     return 0;
   }
   if (command === "build") {

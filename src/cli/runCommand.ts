@@ -94,12 +94,12 @@ export async function runCommand(
     if (!options.json) {
       outputs.push({
         dir: join(options.out ?? join("out", "tables"), s.id),
-        files: { "tables.json": JSON.stringify(doc) + "\n", ...tablesCsv(doc) },
+        files: { "tables.json": `${JSON.stringify(doc)}\n`, ...tablesCsv(doc) },
       });
     }
   });
   if (options.json) {
-    process.stdout.write(JSON.stringify(docs[0]) + "\n");
+    process.stdout.write(`${JSON.stringify(docs[0])}\n`);
     return 0;
   }
   try {

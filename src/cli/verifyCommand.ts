@@ -62,7 +62,7 @@ export function verifyCommand(options: {
     for (const v of a.versions) {
       const label = `${a.id} v${v.version}`;
       formats.set(v.tables.format, (formats.get(v.tables.format) ?? 0) + 1);
-      let scenario;
+      let scenario: ReturnType<typeof loadScenario>;
       try {
         scenario = loadScenario(v.source.text, v.source.path);
       } catch (e) {
@@ -99,7 +99,7 @@ export function verifyCommand(options: {
   const rows = [...largest.values()].sort((x, y) => y.relative - x.relative || (x.quantity < y.quantity ? -1 : 1));
   if (options.json) {
     process.stdout.write(
-      JSON.stringify({
+      `${JSON.stringify({
         archive: displayPath(dir),
         versions: total,
         engine: ENGINE_VERSION,
@@ -121,10 +121,10 @@ export function verifyCommand(options: {
         unexplained: unexplained.map(({ explainedBy: _e, ...d }) => d),
         quantities: rows,
         problems: findings,
-      }) + "\n",
+      })}\n`,
     );
   } else {
-    const out = (s: string) => process.stdout.write(s + "\n");
+    const out = (s: string) => process.stdout.write(`${s}\n`);
     out(
       `archive ${displayPath(dir)}: ${plural(archives.length, "scenario")}, ${plural(total, "version")} (${
         [...formats]

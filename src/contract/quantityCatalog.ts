@@ -1,4 +1,4 @@
-import type { ModelParameters, RowKey, SummaryKey, SurveyKey, TargetKey } from "./tablesDocument.js";
+import type { ModelParameters, RowKey, SummaryKey, TargetKey } from "./tablesDocument.js";
 
 /**
  * How each quantity of the tables document is named, grouped and united on pages, exports and diffs (display only;
@@ -210,12 +210,14 @@ export function catalogFor(doc: {
 }): DocumentCatalog {
   const m = doc.models[0];
   const rowKeys = new Set(Object.keys(m.grid));
-  const has = (o: object | undefined, keys: Set<string> | null, k: string) =>
-    keys ? keys.has(k) : o !== undefined && k in o;
   const notComputed: string[] = [];
   const keep = <Q extends QuantityInfo>(list: Q[], present: (k: string) => boolean): Q[] =>
-    list.filter((q) => present(q.key) || (notComputed.includes(q.label) || notComputed.push(q.label), false));
-  const row = (k: string) => has(undefined, rowKeys, k);
+    list.filter((q) => {
+      if (present(q.key)) return true;
+      if (!notComputed.includes(q.label)) notComputed.push(q.label);
+      return false;
+    });
+  const row = (k: string) => rowKeys.has(k);
   const groups = REDSHIFT_GROUPS.map((g) => ({ ...g, quantities: keep(g.quantities, row) })).filter(
     (g) => g.quantities.length > 0,
   );

@@ -3,7 +3,7 @@
  * (Chevallier & Polarski 2001, IJMPD 10, 213; Linder 2003, PRL 90, 091301).
  */
 export function darkEnergyDensityRatio(a: number, w0: number, wa: number): number {
-  if (wa === 0) return w0 === -1 ? 1 : Math.pow(a, -3 * (1 + w0));
+  if (wa === 0) return w0 === -1 ? 1 : a ** (-3 * (1 + w0));
   return Math.exp(-3 * (1 + w0 + wa) * Math.log(a) - 3 * wa * (1 - a));
 }
 

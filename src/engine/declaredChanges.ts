@@ -50,7 +50,10 @@ export function compareEngineVersions(a: string, b: string): number {
 const patternCache = new Map<string, RegExp>();
 const patternOf = (p: string) => {
   let r = patternCache.get(p);
-  if (!r) patternCache.set(p, (r = new RegExp(`^${p.replace(/[.+?^${}()|[\]\\]/g, "\\$&").replace(/\*/g, "[^.]*")}$`)));
+  if (!r) {
+    r = new RegExp(`^${p.replace(/[.+?^${}()|[\]\\]/g, "\\$&").replace(/\*/g, "[^.]*")}$`);
+    patternCache.set(p, r);
+  }
   return r;
 };
 

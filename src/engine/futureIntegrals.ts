@@ -137,7 +137,7 @@ function expansionRateSquaredBelowTurnaround(model: BackgroundModel, aMax: numbe
     const x = n.lnY0 + lnAMax;
     return { x, atMax: n.Omega_rel * Math.exp(lnEnergyRatio(x) - 4 * lnAMax) };
   });
-  const live = powers.filter(([c]) => c !== 0).map(([c, p]) => [c * Math.pow(aMax, -p), p] as [number, number]);
+  const live = powers.filter(([c]) => c !== 0).map(([c, p]) => [c * aMax ** -p, p] as [number, number]);
   const fMax = Omega_de === 0 ? 0 : Omega_de * Math.exp(-3 * (1 + w0 + wa) * Math.log(aMax) - 3 * wa * (1 - aMax));
   return (v) => {
     const v2 = v * v;

@@ -99,13 +99,13 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
   });
   // Defaults: each default once, with the models it applies to; defaults shared by the same models go together.
   const byPiece = new Map<string, { piece: Piece; models: string[] }>();
-  doc.models.forEach((m) =>
-    inputs(m, "default").forEach((d) => {
+  for (const m of doc.models) {
+    for (const d of inputs(m, "default")) {
       const entry = byPiece.get(d.plain) ?? { piece: d, models: [] };
       entry.models.push(m.label);
       byPiece.set(d.plain, entry);
-    }),
-  );
+    }
+  }
   const groups = new Map<string, { pieces: Piece[]; models: string[] }>();
   for (const { piece, models } of byPiece.values()) {
     const key = models.join("\u0000");

@@ -220,7 +220,7 @@ export function chartSvg(spec: ChartSpec, p: ExportProvenance): string {
   const esc = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;");
   return withFallback.replace(
     /<svg\b([^>]*)>/,
-    (open, attrs: string) =>
+    (_open, attrs: string) =>
       `<svg${attrs} role="img" aria-labelledby="title desc"><title id="title">${esc(spec.title)}</title><desc id="desc">${esc(spec.alt)} Source: ${esc(provenanceLine(p))}</desc><metadata>${esc(JSON.stringify(p))}</metadata>`,
   );
 }

@@ -77,13 +77,14 @@ export function exportFiles(
         files: {},
       };
       const stem = `chart-${spec.id}-${spec.key}`;
-      if (wantCharts.includes("png"))
-        files.push({ name: (entry.files.png = `${stem}.png`), content: () => render.png(spec, p) });
-      if (wantCharts.includes("svg"))
-        files.push({
-          name: (entry.files.svg = `${stem}.svg`),
-          content: () => Promise.resolve(Buffer.from(render.svg(spec, p), "utf8")),
-        });
+      if (wantCharts.includes("png")) {
+        entry.files.png = `${stem}.png`;
+        files.push({ name: entry.files.png, content: () => render.png(spec, p) });
+      }
+      if (wantCharts.includes("svg")) {
+        entry.files.svg = `${stem}.svg`;
+        files.push({ name: entry.files.svg, content: () => Promise.resolve(Buffer.from(render.svg(spec, p), "utf8")) });
+      }
       index.charts.push(entry);
     }
     // Ready-made image references with their alt text, for a wiki page (Markdown) or any HTML page.

@@ -12,7 +12,10 @@ const labelWithUnit = (label: string, unit: string) => (unit ? `${label} [${unit
 const spanOf = (t: ExportTable, column: number) => {
   if (!t.spans) return null;
   let end = 0;
-  for (const s of t.spans) if (column < (end += s.columns)) return s;
+  for (const s of t.spans) {
+    end += s.columns;
+    if (column < end) return s;
+  }
   return null;
 };
 /**
@@ -46,34 +49,32 @@ export function tableCsv(t: ExportTable, p: ExportProvenance): string {
     record_delimiter: "\r\n",
     quoted_match: /#/,
   });
-  return comments.join("\r\n") + "\r\n" + body;
+  return `${comments.join("\r\n")}\r\n${body}`;
 }
 
 /** JSON: provenance, then the table with raw values (full precision) and the page's text for every cell. */
 export function tableJson(t: ExportTable, p: ExportProvenance): string {
-  return (
-    JSON.stringify(
-      {
-        format: EXPORT_FORMAT,
-        provenance: { ...p, version_label: versionLabel(p), line: provenanceLine(p) },
-        table: {
-          id: t.id,
-          title: t.title,
-          spans: t.spans,
-          stub: t.stub,
-          columns: t.columns,
-          rows: t.rows.map((r) => ({
-            label: r.label,
-            unit: r.unit,
-            values: r.cells.map((c) => c.value),
-            text: r.cells.map((c) => c.text),
-          })),
-        },
+  return `${JSON.stringify(
+    {
+      format: EXPORT_FORMAT,
+      provenance: { ...p, version_label: versionLabel(p), line: provenanceLine(p) },
+      table: {
+        id: t.id,
+        title: t.title,
+        spans: t.spans,
+        stub: t.stub,
+        columns: t.columns,
+        rows: t.rows.map((r) => ({
+          label: r.label,
+          unit: r.unit,
+          values: r.cells.map((c) => c.value),
+          text: r.cells.map((c) => c.text),
+        })),
       },
-      null,
-      2,
-    ) + "\n"
-  );
+    },
+    null,
+    2,
+  )}\n`;
 }
 
 /** Characters that Markdown (CommonMark with GFM tables) could read as markup; each is backslash-escaped. */

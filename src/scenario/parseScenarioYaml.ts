@@ -86,7 +86,7 @@ export function parseScenarioYaml(text: string, file: string): ParsedYaml {
       return walk(node.resolve(doc), path);
     }
     const n = node as Node | null;
-    if (n && n.range && !valuePos.has(here)) valuePos.set(here, n.range[0]);
+    if (n?.range && !valuePos.has(here)) valuePos.set(here, n.range[0]);
     if (isMap(n)) {
       const out: Record<string, unknown> = {};
       for (const pair of n.items) {

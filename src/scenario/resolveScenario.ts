@@ -31,6 +31,7 @@ const BARYON_KEYS = ["Omega_b", "omega_b"] as const;
 const SLUG = /^[a-z0-9]+(-[a-z0-9]+)*$/;
 
 type RawModel = Record<string, unknown> & { id: string };
+// biome-ignore lint/suspicious/noExplicitAny: raw YAML values, already checked against the scenario schema
 type Raw = Record<string, any>;
 
 /** The parameter box over which the engine's accuracy is verified (see DEVELOPERS.md). */
@@ -112,7 +113,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       return null;
     }
     let values: Record<string, unknown> = {};
-    let provenance: Record<string, Provenance> = {};
+    const provenance: Record<string, Provenance> = {};
     if (m.extends !== undefined) {
       const parent = flatten(index.get(m.extends as string)!, [...chain, m.id]);
       if (!parent) return null;
@@ -154,7 +155,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     flattened.set(m.id, result);
     return result;
   };
-  rawModels.forEach((_, i) => flatten(i, []));
+  for (let i = 0; i < rawModels.length; i++) flatten(i, []);
   if (issues.length > 0) throw new ScenarioInputError(issues);
 
   const models: ResolvedModel[] = [];
@@ -218,7 +219,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
         : curvatureKey === "Omega_k"
           ? { kind: "Omega_k", Omega_k: inputs.curvature_value! }
           : { kind: "Omega_de", Omega_de: inputs.curvature_value! };
-    let background;
+    let background: ReturnType<typeof makeBackgroundModel>;
     try {
       background = makeBackgroundModel({
         H0_km_s_Mpc: inputs.H0,

@@ -52,7 +52,7 @@ function segmentsOf(instancePath: string): (string | number)[] {
 }
 
 function describeValue(v: unknown): string {
-  if (typeof v === "string") return `"${v.length > 40 ? v.slice(0, 40) + "..." : v}"`;
+  if (typeof v === "string") return `"${v.length > 40 ? `${v.slice(0, 40)}...` : v}"`;
   if (v === null) return "nothing (null)";
   if (Array.isArray(v)) return "a list";
   if (typeof v === "object") return "a mapping";
@@ -60,6 +60,7 @@ function describeValue(v: unknown): string {
 }
 
 function valueAt(root: unknown, segments: (string | number)[]): unknown {
+  // biome-ignore lint/suspicious/noExplicitAny: walks arbitrary parsed YAML by key path
   let v: any = root;
   for (const s of segments) v = v == null ? undefined : v[s];
   return v;

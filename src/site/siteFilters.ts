@@ -26,7 +26,7 @@ export const TEXT_FILTERS = {
   when: (iso: string) =>
     /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(iso) ? `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC` : iso,
   /** A version message, or a placeholder when it was frozen without one. */
-  message: (m: string) => (m && m.trim() ? m : "(no message)"),
+  message: (m: string) => (m?.trim() ? m : "(no message)"),
   /** Source text split into lines, for a numbered listing. */
   lines: (text: string) => text.replace(/\n$/, "").split("\n"),
 };

@@ -164,10 +164,10 @@ function downloadsOf(
   record: StoredVersionRecord | null,
 ): { path: string; text: string }[] {
   const files = [
-    { path: `${path}tables.json`, text: JSON.stringify(doc) + "\n" },
+    { path: `${path}tables.json`, text: `${JSON.stringify(doc)}\n` },
     ...Object.entries(tablesCsv(doc)).map(([name, text]) => ({ path: path + name, text })),
   ];
-  if (record) files.push({ path: `${path}version.json`, text: JSON.stringify(record) + "\n" });
+  if (record) files.push({ path: `${path}version.json`, text: `${JSON.stringify(record)}\n` });
   return files;
 }
 

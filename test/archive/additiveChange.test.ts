@@ -63,7 +63,7 @@ describe("an additive contract change keeps every archive readable", { timeout: 
     schema.definitions.row.properties.scale_factor = { $ref: "#/definitions/num" };
     schema.definitions.gridColumns.required.push("scale_factor");
     schema.definitions.gridColumns.properties.scale_factor = { type: "array", items: { $ref: "#/definitions/num" } };
-    writeFileSync(join(project, "src/schema/tables/3.schema.json"), JSON.stringify(schema, null, 2) + "\n");
+    writeFileSync(join(project, "src/schema/tables/3.schema.json"), `${JSON.stringify(schema, null, 2)}\n`);
     edit(
       project,
       "src/contract/formats.ts",

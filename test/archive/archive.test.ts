@@ -179,7 +179,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
         join(dir, `shelf-test/v${n}.json`),
         readFileSync(join(work, `scenarios/archive/shelf-test/v${n}.json`)),
       );
-    writeFileSync(join(dir, "shelf-test/v3.json"), JSON.stringify(r3) + "\n");
+    writeFileSync(join(dir, "shelf-test/v3.json"), `${JSON.stringify(r3)}\n`);
     const loose = cli("verify", "--archive", "older");
     expect(loose.code).toBe(0);
     expect(loose.stderr).toMatch(

@@ -193,7 +193,7 @@ describe("drift the engine means", () => {
     const trimmed = structuredClone(r.tables);
     for (const m of trimmed.models) {
       delete (m.summary as Record<string, unknown>).k_eq_1_Mpc;
-      for (const row of m.redshifts) delete (row as Record<string, unknown>).E;
+      for (const row of m.redshifts) delete (row as unknown as Record<string, unknown>).E;
     }
     const c = compareWithRecomputed(trimmed, now, [], "1.0.0");
     expect(c.added).toEqual(["redshifts[].E", "summary.k_eq_1_Mpc"]);

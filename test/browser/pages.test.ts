@@ -52,7 +52,7 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     };
     server = createServer((req, res) => {
       const url = new URL(req.url ?? "/", "http://127.0.0.1");
-      let file = resolve(site, "." + decodeURIComponent(url.pathname));
+      let file = resolve(site, `.${decodeURIComponent(url.pathname)}`);
       if (!file.startsWith(site)) {
         res.writeHead(403).end();
         return;
@@ -138,7 +138,7 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
       expect(pixels.length, path).toBeGreaterThan(0);
       for (const n of pixels) expect(n, path).toBeGreaterThan(2000);
       await page.screenshot({
-        path: join(SHOTS, path.replace(/\//g, "_").replace(/^_/, "") + ".png"),
+        path: join(SHOTS, `${path.replace(/\//g, "_").replace(/^_/, "")}.png`),
         fullPage: path === "/index.html",
       });
       await page.close();
@@ -160,14 +160,14 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
         await Promise.all([page.waitForURL(/\/diff\/v1-v2\/index\.html$/), page.click("form.pair-picker button")]);
         expect(await page.textContent("h1")).toMatch(/version 1 → version 2/);
       }
-      await page.screenshot({ path: join(SHOTS, path.replace(/\//g, "_").replace(/^_/, "") + ".png") });
+      await page.screenshot({ path: join(SHOTS, `${path.replace(/\//g, "_").replace(/^_/, "")}.png`) });
       await page.close();
     }
   }, 120_000);
 
   it("the copy buttons put the Markdown and LaTeX exports on the clipboard, exactly as the downloads", async () => {
     await context.grantPermissions(["clipboard-read", "clipboard-write"], { origin: base });
-    const { page, problems } = await open(base + "/lantern-deep-field/index.html");
+    const { page, problems } = await open(`${base}/lantern-deep-field/index.html`);
     for (const [format, file] of [
       ["md", "glance.md"],
       ["tex", "glance.tex"],
@@ -191,7 +191,7 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
   }, 60_000);
 
   it("the log/linear control changes the chart", async () => {
-    const { page, problems } = await open(base + "/lantern-deep-field/index.html");
+    const { page, problems } = await open(`${base}/lantern-deep-field/index.html`);
     const figure = page.locator('figure[data-chart="distances"]');
     await figure.scrollIntoViewIfNeeded();
     const type = () => page.evaluate(() => (window as any).cosmoledgerCharts.distances.scales.x.type);
@@ -211,7 +211,7 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
   }, 60_000);
 
   it("the hostile scenario runs no script", async () => {
-    const { page, problems } = await open("file://" + join(hostileSite, "hostile", "index.html"));
+    const { page, problems } = await open(`file://${join(hostileSite, "hostile", "index.html")}`);
     await page.mouse.move(100, 200);
     await page.waitForTimeout(300);
     expect(await page.evaluate(() => (window as any).__pwned)).toBeUndefined();
@@ -222,7 +222,7 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
   }, 60_000);
 
   it("the index opened via file:// draws its charts, with no network at all", async () => {
-    const { page, problems } = await open("file://" + join(site, "index.html"));
+    const { page, problems } = await open(`file://${join(site, "index.html")}`);
     const pixels = await drawnPixels(page);
     expect(pixels.length).toBe(3);
     for (const n of pixels) expect(n).toBeGreaterThan(2000);

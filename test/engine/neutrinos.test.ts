@@ -97,17 +97,17 @@ describe("massive neutrinos in the background", () => {
 describe("scenario rules for baryons and neutrinos", () => {
   const base = "title: t\nmodels:\n  - id: a\n    H0: 70\n    Omega_m: 0.3\n";
   it("Omega_b and omega_b together are over-determined", () => {
-    expect(() => loadScenario(base + "    Omega_b: 0.05\n    omega_b: 0.02\n", "x.yaml")).toThrow(
+    expect(() => loadScenario(`${base}    Omega_b: 0.05\n    omega_b: 0.02\n`, "x.yaml")).toThrow(
       /x\.yaml:7:5: models\[0\]\.omega_b: baryons are over-determined/,
     );
   });
   it("massive neutrinos without radiation are refused", () => {
-    expect(() => loadScenario(base + "    radiation: none\n    m_nu_eV: [0.06]\n", "x.yaml")).toThrow(
+    expect(() => loadScenario(`${base}    radiation: none\n    m_nu_eV: [0.06]\n`, "x.yaml")).toThrow(
       /massive neutrinos need thermal radiation/,
     );
   });
   it("more than three massive species are refused by the schema", () => {
-    expect(() => loadScenario(base + "    m_nu_eV: [0.1, 0.1, 0.1, 0.1]\n", "x.yaml")).toThrow(/at most 3 items/);
+    expect(() => loadScenario(`${base}    m_nu_eV: [0.1, 0.1, 0.1, 0.1]\n`, "x.yaml")).toThrow(/at most 3 items/);
   });
 });
 

@@ -26,7 +26,7 @@ function expectIssue(text: string, line: number, column: number, path: string, m
 describe("bad input gives located, actionable errors", () => {
   it("YAML syntax error", () => expectIssue("title: [unclosed\nmodels: []\n", 2, 1, "", /YAML syntax error/));
   it("tab indentation", () => expectIssue("title: t\nmodels:\n\t- id: a\n", 3, 1, "", /tab used for indentation/));
-  it("duplicate keys", () => expectIssue("title: t\ntitle: u\nmodels:\n" + GOOD_MODEL, 2, 1, "", /duplicate key/));
+  it("duplicate keys", () => expectIssue(`title: t\ntitle: u\nmodels:\n${GOOD_MODEL}`, 2, 1, "", /duplicate key/));
   it("unknown key with the nearest valid key suggested", () =>
     expectIssue(
       "title: t\nmodels:\n  - id: ref\n    H0: 70\n    Omega_M: 0.3\n",
@@ -36,7 +36,7 @@ describe("bad input gives located, actionable errors", () => {
       /unknown key Omega_M\. did you mean Omega_m\?/,
     ));
   it("unknown top-level key suggests the near one", () =>
-    expectIssue("titel: t\nmodels:\n" + GOOD_MODEL, 1, 1, "titel", /did you mean title\?/));
+    expectIssue(`titel: t\nmodels:\n${GOOD_MODEL}`, 1, 1, "titel", /did you mean title\?/));
   it("wrong type: H0: seventy", () =>
     expectIssue(
       "title: t\nmodels:\n  - id: ref\n    H0: seventy\n    Omega_m: 0.3\n",
@@ -46,7 +46,7 @@ describe("bad input gives located, actionable errors", () => {
       /must be a number \(got "seventy"\)/,
     ));
   it("wrong type: flat: maybe", () =>
-    expectIssue("title: t\nmodels:\n" + GOOD_MODEL + "    flat: maybe\n", 6, 11, "models[0].flat", /must be true/));
+    expectIssue(`title: t\nmodels:\n${GOOD_MODEL}    flat: maybe\n`, 6, 11, "models[0].flat", /must be true/));
   for (const [key, value, re] of [
     ["H0", "0", /must be > 0/],
     ["H0", "-70", /must be > 0/],
@@ -56,7 +56,7 @@ describe("bad input gives located, actionable errors", () => {
   ] as const) {
     it(`out of range: ${key}: ${value}`, () => {
       const text = `title: t\nmodels:\n  - id: ref\n    H0: 70\n    Omega_m: 0.3\n    ${key}: ${value}\n`.replace(
-        /    (H0|Omega_m): [^\n]*\n(?=[\s\S]*    \1:)/,
+        / {4}(H0|Omega_m): [^\n]*\n(?=[\s\S]* {4}\1:)/,
         "",
       );
       const issues = issuesOf(text);
@@ -67,11 +67,11 @@ describe("bad input gives located, actionable errors", () => {
     });
   }
   it("negative redshift", () =>
-    expectIssue("title: t\nredshifts: [0.5, -1]\nmodels:\n" + GOOD_MODEL, 2, 18, "redshifts[1]", /must be >= 0/));
+    expectIssue(`title: t\nredshifts: [0.5, -1]\nmodels:\n${GOOD_MODEL}`, 2, 18, "redshifts[1]", /must be >= 0/));
   for (const bad of [".nan", ".inf", "-.inf", "1e400"]) {
     it(`non-finite number ${bad}`, () =>
       expectIssue(
-        `title: t\nredshifts: [1, ${bad}]\nmodels:\n` + GOOD_MODEL,
+        `title: t\nredshifts: [1, ${bad}]\nmodels:\n${GOOD_MODEL}`,
         2,
         16,
         "redshifts[1]",
@@ -88,7 +88,7 @@ describe("bad input gives located, actionable errors", () => {
     ));
   it("unknown extends", () =>
     expectIssue(
-      "title: t\nmodels:\n" + GOOD_MODEL + "  - id: b\n    extends: nope\n",
+      `title: t\nmodels:\n${GOOD_MODEL}  - id: b\n    extends: nope\n`,
       7,
       14,
       "models[1].extends",
@@ -99,10 +99,10 @@ describe("bad input gives located, actionable errors", () => {
     expect(issues.some((i) => /cyclic extends: (a -> b -> a|b -> a -> b)/.test(i.message))).toBe(true);
   });
   it("duplicate model ids", () =>
-    expectIssue("title: t\nmodels:\n" + GOOD_MODEL + GOOD_MODEL, 6, 9, "models[1].id", /duplicate model id ref/));
+    expectIssue(`title: t\nmodels:\n${GOOD_MODEL}${GOOD_MODEL}`, 6, 9, "models[1].id", /duplicate model id ref/));
   it("unknown baseline", () =>
     expectIssue(
-      "title: t\nbaseline: other\nmodels:\n" + GOOD_MODEL,
+      `title: t\nbaseline: other\nmodels:\n${GOOD_MODEL}`,
       2,
       11,
       "baseline",
@@ -110,7 +110,7 @@ describe("bad input gives located, actionable errors", () => {
     ));
   it("over-determined curvature", () =>
     expectIssue(
-      "title: t\nmodels:\n" + GOOD_MODEL + "    flat: true\n    Omega_k: 0.1\n",
+      `title: t\nmodels:\n${GOOD_MODEL}    flat: true\n    Omega_k: 0.1\n`,
       7,
       5,
       "models[0].Omega_k",
@@ -118,7 +118,7 @@ describe("bad input gives located, actionable errors", () => {
     ));
   it("contradictory curvature: Omega_Lambda with evolving w", () =>
     expectIssue(
-      "title: t\nmodels:\n" + GOOD_MODEL + "    Omega_Lambda: 0.7\n    w0: -0.9\n",
+      `title: t\nmodels:\n${GOOD_MODEL}    Omega_Lambda: 0.7\n    w0: -0.9\n`,
       6,
       5,
       "models[0].Omega_Lambda",
@@ -126,7 +126,7 @@ describe("bad input gives located, actionable errors", () => {
     ));
   it("contradictory radiation", () =>
     expectIssue(
-      "title: t\nmodels:\n" + GOOD_MODEL + "    radiation: none\n    T_cmb: 2.7\n",
+      `title: t\nmodels:\n${GOOD_MODEL}    radiation: none\n    T_cmb: 2.7\n`,
       7,
       5,
       "models[0].T_cmb",
@@ -140,26 +140,26 @@ describe("bad input gives located, actionable errors", () => {
   it("empty file", () => expectIssue("", 1, 1, "", /the file is empty/));
   it("comment-only file", () => expectIssue("# nothing\n", 1, 1, "", /the file is empty/));
   it("an id that is not a safe slug", () =>
-    expectIssue("title: t\nid: ../../etc\nmodels:\n" + GOOD_MODEL, 2, 5, "id", /must be a slug/));
+    expectIssue(`title: t\nid: ../../etc\nmodels:\n${GOOD_MODEL}`, 2, 5, "id", /must be a slug/));
   it("a file name with unsafe characters needs an explicit id", () => {
-    expect(() => loadScenario("title: t\nmodels:\n" + GOOD_MODEL, "My Plan.yaml")).toThrow(
+    expect(() => loadScenario(`title: t\nmodels:\n${GOOD_MODEL}`, "My Plan.yaml")).toThrow(
       /add a line such as "id: my-scenario"/,
     );
   });
   it("more than 1,000 models", () => {
     const models = Array.from({ length: 1001 }, (_, i) => `  - { id: m${i}, H0: 70, Omega_m: 0.3 }\n`).join("");
-    expectIssue("title: t\nmodels:\n" + models, 3, 3, "models", /at most 1000 items/);
+    expectIssue(`title: t\nmodels:\n${models}`, 3, 3, "models", /at most 1000 items/);
   });
   it("more than 100,000 redshift points", () => {
     expectIssue(
-      `title: t\nredshifts: [${Array.from({ length: 100001 }, () => "1").join(",")}]\nmodels:\n` + GOOD_MODEL,
+      `title: t\nredshifts: [${Array.from({ length: 100001 }, () => "1").join(",")}]\nmodels:\n${GOOD_MODEL}`,
       2,
       12,
       "redshifts",
       /at most 100000 items/,
     );
     expectIssue(
-      "title: t\ngrid: { points: 100001 }\nmodels:\n" + GOOD_MODEL,
+      `title: t\ngrid: { points: 100001 }\nmodels:\n${GOOD_MODEL}`,
       2,
       17,
       "grid.points",
@@ -172,7 +172,7 @@ describe("bad input gives located, actionable errors", () => {
     expect(issuesOf(bomb).some((i) => /alias bomb/.test(i.message))).toBe(true);
   });
   it("__proto__ and constructor keys are rejected as unknown and pollute nothing", () => {
-    const issues = issuesOf("title: t\n__proto__: { polluted: true }\nconstructor: x\nmodels:\n" + GOOD_MODEL);
+    const issues = issuesOf(`title: t\n__proto__: { polluted: true }\nconstructor: x\nmodels:\n${GOOD_MODEL}`);
     expect(issues.map((i) => i.path).sort()).toEqual(["__proto__", "constructor"]);
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
   });
