@@ -1,13 +1,7 @@
 import { describe, expect, it } from "vitest";
 import betainc from "@stdlib/math-base-special-betainc";
-import {
-  backgroundSummary,
-  comovingVolumeWithin,
-  hubbleDistanceMpc,
-  hubbleTimeGyr,
-  redshiftTable,
-  curvatureRadiusMpc,
-} from "../../src/engine/index.js";
+import { backgroundSummary, comovingVolumeWithin, redshiftTable, curvatureRadiusMpc } from "../../src/engine/index.js";
+import { hubbleDistanceMpc, hubbleTimeGyr } from "../helpers/referenceScales.js";
 import { modelOf, relErr } from "../helpers/modelOf.js";
 
 const Z = [0.01, 0.1, 0.5, 1, 2, 3, 5, 10, 100, 1000, 1e4];
