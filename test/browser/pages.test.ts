@@ -188,7 +188,7 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     );
     expect(problems).toEqual([]);
     await page.close();
-  }, 60_000);
+  }, 180_000);
 
   it("the log/linear control changes the chart", async () => {
     const { page, problems } = await open(`${base}/lantern-deep-field/index.html`);
@@ -208,7 +208,7 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     await page.screenshot({ path: join(SHOTS, "distances-linear-ratio.png") });
     expect(problems).toEqual([]);
     await page.close();
-  }, 60_000);
+  }, 180_000);
 
   it("the hostile scenario runs no script", async () => {
     const { page, problems } = await open(`file://${join(hostileSite, "hostile", "index.html")}`);
@@ -219,7 +219,7 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     expect(await page.locator("h1").textContent()).toContain("<script>");
     await page.screenshot({ path: join(SHOTS, "hostile.png") });
     await page.close();
-  }, 60_000);
+  }, 180_000);
 
   it("the index opened via file:// draws its charts, with no network at all", async () => {
     const { page, problems } = await open(`file://${join(site, "index.html")}`);
@@ -228,5 +228,5 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     for (const n of pixels) expect(n).toBeGreaterThan(2000);
     expect(problems).toEqual([]);
     await page.close();
-  }, 60_000);
+  }, 180_000);
 });

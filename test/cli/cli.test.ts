@@ -7,13 +7,7 @@ import { Ajv } from "ajv";
 import { parse as parseCsv } from "csv-parse/sync";
 import tablesSchema from "../../src/schema/tables/2.schema.json" with { type: "json" };
 import { compileProject } from "../helpers/buildDemoSite.js";
-import {
-  makeBackgroundModel,
-  redshiftTable,
-  MPC_CM,
-  FULL_SKY_DEG2,
-  REDSHIFT_COLUMN_KEYS,
-} from "../../src/engine/index.js";
+import { MPC_CM, FULL_SKY_DEG2, REDSHIFT_COLUMN_KEYS } from "../../src/engine/index.js";
 import { hubbleDistanceMpc, hubbleTimeGyr } from "../helpers/referenceScales.js";
 
 const ROOT = resolve(import.meta.dirname, "../..");

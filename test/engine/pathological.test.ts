@@ -9,7 +9,7 @@ import {
   redshiftAtLookbackTime,
   redshiftTable,
 } from "../../src/engine/index.js";
-import { hubbleTimeGyr, hubbleDistanceMpc } from "../helpers/referenceScales.js";
+import { hubbleDistanceMpc } from "../helpers/referenceScales.js";
 import { modelOf, relErr } from "../helpers/modelOf.js";
 
 describe("models without a big bang are rejected, naming the turnaround redshift", () => {

@@ -304,7 +304,7 @@ describe("exports of the demo site", () => {
   });
 });
 
-describe("special characters in labels", { timeout: 60_000 }, () => {
+describe("special characters in labels", { timeout: 180_000 }, () => {
   const NASTY = "A&B 5% $x$ #1 a_b {c} ~d ^e \\f |g";
   let out: string;
   beforeAll(() => {
@@ -376,7 +376,7 @@ describe("special characters in labels", { timeout: 60_000 }, () => {
   });
 });
 
-describe("hostile strings in exports", { timeout: 60_000 }, () => {
+describe("hostile strings in exports", { timeout: 180_000 }, () => {
   it("HTML fragments and Markdown rendered by markdown-it (raw HTML on, as some wikis allow) carry no element or handler from a label", () => {
     compileProject();
     const dir = tempDir();
@@ -396,7 +396,7 @@ describe("hostile strings in exports", { timeout: 60_000 }, () => {
   });
 });
 
-describe("cosmoledger export", { timeout: 60_000 }, () => {
+describe("cosmoledger export", { timeout: 180_000 }, () => {
   it("exports a frozen version's stored tables, only the formats asked for, and refuses bad options with exit 2", () => {
     compileProject();
     const dir = tempDir();

@@ -47,6 +47,8 @@ describe("the demo site", { timeout: 120_000 }, () => {
         rows.forEach((tr, i) => {
           const cells = [...tr.querySelectorAll("td")];
           tables.models.forEach((m: any, j: number) => {
+            // The key must exist in the document (a misspelled catalogue key would read undefined on both sides).
+            expect(Object.keys(m.redshifts[i]), `${q.key} is not a key of the tables document`).toContain(q.key);
             const shown = cells[j].childNodes[0].textContent;
             expect(shown, `${q.key} z=${tables.scenario.redshifts[i]} ${m.id}`).toBe(
               formatNumber(m.redshifts[i][q.key]),
@@ -57,6 +59,12 @@ describe("the demo site", { timeout: 120_000 }, () => {
       }
     }
     expect(checked).toBeGreaterThan(300);
+    // Every per-redshift quantity of the document has its table on the page, and no table shows a key it lacks.
+    const onPage = [...page.querySelectorAll("table.ztable")].map((t) => t.getAttribute("data-quantity")).sort();
+    const inDoc = Object.keys(tables.models[0].redshifts[0])
+      .filter((k) => k !== "z")
+      .sort();
+    expect(onPage).toEqual(inDoc);
   });
 
   it("every internal link and asset resolves, and no page refers to an outside URL", () => {
