@@ -9,6 +9,7 @@ import { formatIssue } from "./dist/scenario/scenarioIssue.js";
 import { ENGINE_VERSION } from "./dist/engine/engineVersion.js";
 import { SITE_MARKER } from "./dist/cli/siteMarker.js";
 import { writeExportFiles } from "./dist/exports/exportFiles.js";
+import { CHART_STYLE } from "./dist/exports/chartStyle.js";
 import { mkdirSync, writeFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 
@@ -29,6 +30,7 @@ export default function (eleventyConfig) {
     return current;
   });
   eleventyConfig.addGlobalData("catalog", { ...catalog });
+  eleventyConfig.addGlobalData("chartStyle", CHART_STYLE);
   eleventyConfig.addGlobalData("tex", { friedmann: FRIEDMANN_TEX, closure: CLOSURE_TEX });
   eleventyConfig.addGlobalData("tool", { name: "cosmoledger", engine: ENGINE_VERSION });
   eleventyConfig.addWatchTarget(scenariosDir);

@@ -9,12 +9,14 @@
     });
   }
   if (typeof Chart === "undefined") return;
-  // Our palette, with a line pattern per model so that greyscale prints still tell models apart.
-  var COLOURS = ["#0b6e69", "#c2571a", "#6a3d9a", "#7a8b1f", "#2f3e9e", "#a8324a", "#5d6d7e", "#b8860b"];
-  var DASHES = [[], [9, 4], [2, 3], [12, 3, 2, 3], [5, 5], [1, 2], [14, 4, 4, 4], [3, 6]];
+  // Our palette, with a line pattern per model so that greyscale prints still tell models apart. One source for the
+  // pages and the exported images: src/exports/chartStyle.ts, placed in the page as inline data.
+  var style = JSON.parse(document.getElementById("chart-style").textContent);
+  var COLOURS = style.colours;
+  var DASHES = style.dashes;
   Chart.defaults.animation = false;
   Chart.defaults.font.family = "system-ui, 'DejaVu Sans', sans-serif";
-  Chart.defaults.color = "#1d232a";
+  Chart.defaults.color = style.ink;
   window.cosmoledgerCharts = {};
 
   // Index: one small D_L(z) chart per scenario card.
@@ -94,7 +96,7 @@
       var s = byKey[seriesInput.value];
       return ratioInput.checked
         ? `${s.label} / baseline (${data.baseline})`
-        : s.label + (s.unit ? ` [${s.unit.replace("^3", "\u00b3")}]` : "");
+        : s.label + (s.unitText ? ` [${s.unitText}]` : "");
     }
     var chart = new Chart(canvas, {
       type: "line",

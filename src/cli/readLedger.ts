@@ -1,13 +1,11 @@
-import { readFileSync, readdirSync } from "node:fs";
+import { readdirSync } from "node:fs";
 import { join } from "node:path";
 import { displayPath } from "../common/displayPath.js";
-import { loadScenario } from "../scenario/loadScenario.js";
-import { ScenarioInputError, type ScenarioIssue } from "../scenario/scenarioIssue.js";
-import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
+import type { ScenarioIssue } from "../scenario/scenarioIssue.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
-import type { TablesDocument } from "../contract/tablesDocument.js";
 import { readArchive } from "../archive/readArchive.js";
 import { sitePages, type PageExporter } from "../site/sitePages.js";
+import { loadScenarioFiles } from "./readScenarioFile.js";
 import type { SiteLedger } from "../site/siteLedger.js";
 import { EXPORT_FORMATS, exportFiles } from "../exports/exportFiles.js";
 import { cachedRenderers } from "../exports/imageCache.js";
@@ -33,31 +31,9 @@ export function readLedger(
   archiveDir: string = defaultArchive(dir),
   options: { exports?: boolean; images?: boolean } = {},
 ): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
-  const issues: ScenarioIssue[] = [];
-  const files: { scenario: ResolvedScenario; doc: TablesDocument }[] = [];
-  const seen = new Map<string, string>();
-  for (const file of scenarioFiles(dir)) {
-    const shown = displayPath(file);
-    const text = readFileSync(file, "utf8");
-    try {
-      const scenario = loadScenario(text, shown);
-      if (seen.has(scenario.id)) {
-        issues.push({
-          file: shown,
-          line: 1,
-          column: 1,
-          path: "id",
-          message: `scenario id ${scenario.id} is also used by ${seen.get(scenario.id)}`,
-        });
-        continue;
-      }
-      seen.set(scenario.id, shown);
-      files.push({ scenario, doc: buildTablesDocument(scenario) });
-    } catch (e) {
-      if (e instanceof ScenarioInputError) issues.push(...e.issues);
-      else throw e;
-    }
-  }
+  const loaded = loadScenarioFiles(scenarioFiles(dir));
+  const issues: ScenarioIssue[] = [...loaded.issues];
+  const files = loaded.scenarios.map((scenario) => ({ scenario, doc: buildTablesDocument(scenario) }));
   const archive = readArchive(archiveDir);
   for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
   if (issues.length > 0) return { ledger: null, issues };

@@ -1,30 +1,61 @@
 import { readFileSync } from "node:fs";
 import { displayPath } from "../common/displayPath.js";
 import { loadScenario } from "../scenario/loadScenario.js";
-import { ScenarioInputError, formatIssue } from "../scenario/scenarioIssue.js";
+import { ScenarioInputError, formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
+
+/** Reads and resolves one scenario file: the scenario, or every located issue (a file that cannot be read is one). */
+export function loadScenarioFile(
+  file: string,
+): { scenario: ResolvedScenario; issues: [] } | { scenario: null; issues: ScenarioIssue[] } {
+  const shown = displayPath(file);
+  let text: string;
+  try {
+    text = readFileSync(file, "utf8");
+  } catch (e) {
+    const why = (e as NodeJS.ErrnoException).code ?? (e as Error).message;
+    return {
+      scenario: null,
+      issues: [{ file: shown, line: 1, column: 1, path: "", message: `cannot read the file (${why})` }],
+    };
+  }
+  try {
+    return { scenario: loadScenario(text, shown), issues: [] };
+  } catch (e) {
+    if (!(e instanceof ScenarioInputError)) throw e;
+    return { scenario: null, issues: e.issues };
+  }
+}
+
+/** Reads several scenario files: the scenarios, and every issue of every file, including ids used twice. */
+export function loadScenarioFiles(files: string[]): { scenarios: ResolvedScenario[]; issues: ScenarioIssue[] } {
+  const scenarios: ResolvedScenario[] = [];
+  const issues: ScenarioIssue[] = [];
+  const seen = new Map<string, string>();
+  for (const file of files) {
+    const r = loadScenarioFile(file);
+    issues.push(...r.issues);
+    if (!r.scenario) continue;
+    const other = seen.get(r.scenario.id);
+    if (other) {
+      const message = `scenario id ${r.scenario.id} is also used by ${other}; ids must be unique across the files of one run`;
+      issues.push({ file: r.scenario.source.path, line: 1, column: 1, path: "id", message });
+      continue;
+    }
+    seen.set(r.scenario.id, r.scenario.source.path);
+    scenarios.push(r.scenario);
+  }
+  return { scenarios, issues };
+}
 
 /**
  * Reads and resolves one scenario file for a command; on a problem prints every located issue, says what was not
  * done (`nothing` e.g. "nothing was frozen") and returns null (the command then exits 2).
  */
 export function readScenarioFile(file: string, nothing: string): ResolvedScenario | null {
-  const shown = displayPath(file);
-  let text: string;
-  try {
-    text = readFileSync(file, "utf8");
-  } catch (e) {
-    process.stderr.write(
-      `error: ${shown}:1:1: cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}); ${nothing}.\n`,
-    );
-    return null;
-  }
-  try {
-    return loadScenario(text, shown);
-  } catch (e) {
-    if (!(e instanceof ScenarioInputError)) throw e;
-    for (const i of e.issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
-    process.stderr.write(`${e.issues.length} problem${e.issues.length === 1 ? "" : "s"} found; ${nothing}.\n`);
-    return null;
-  }
+  const r = loadScenarioFile(file);
+  if (r.scenario) return r.scenario;
+  for (const i of r.issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
+  process.stderr.write(`${r.issues.length} problem${r.issues.length === 1 ? "" : "s"} found; ${nothing}.\n`);
+  return null;
 }

@@ -1,55 +1,11 @@
-import { readFileSync } from "node:fs";
 import { join, sep } from "node:path";
-import { displayPath } from "../common/displayPath.js";
-import { loadScenario } from "../scenario/loadScenario.js";
-import { ScenarioInputError, formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
-import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
+import { formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
 import { tablesCsv } from "../tables/tablesCsv.js";
 import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
+import { loadScenarioFiles } from "./readScenarioFile.js";
 
 const PROGRESS_THRESHOLD = 3;
-
-function loadAll(files: string[]): { scenarios: ResolvedScenario[]; issues: ScenarioIssue[] } {
-  const scenarios: ResolvedScenario[] = [];
-  const issues: ScenarioIssue[] = [];
-  for (const file of files) {
-    const shown = displayPath(file);
-    let text: string;
-    try {
-      text = readFileSync(file, "utf8");
-    } catch (e) {
-      issues.push({
-        file: shown,
-        line: 1,
-        column: 1,
-        path: "",
-        message: `cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`,
-      });
-      continue;
-    }
-    try {
-      scenarios.push(loadScenario(text, shown));
-    } catch (e) {
-      if (e instanceof ScenarioInputError) issues.push(...e.issues);
-      else throw e;
-    }
-  }
-  const seen = new Map<string, string>();
-  for (const s of scenarios) {
-    const other = seen.get(s.id);
-    if (other)
-      issues.push({
-        file: s.source.path,
-        line: 1,
-        column: 1,
-        path: "id",
-        message: `scenario id ${s.id} is also used by ${other}; ids must be unique across the files of one run`,
-      });
-    else seen.set(s.id, s.source.path);
-  }
-  return { scenarios, issues };
-}
 
 function reportIssues(issues: ScenarioIssue[]): number {
   for (const i of issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
@@ -69,7 +25,7 @@ export async function runCommand(
     return 2;
   }
   const progress = !options.quiet && files.length > PROGRESS_THRESHOLD;
-  const { scenarios, issues } = loadAll(files);
+  const { scenarios, issues } = loadScenarioFiles(files);
   if (issues.length > 0) return reportIssues(issues);
   if (command === "check") {
     for (const s of scenarios) {

@@ -78,3 +78,6 @@ export function formatPercent(relative: number | null | undefined): string {
 export function formatExact(x: number | null | undefined): string {
   return partsText(exactParts(x));
 }
+
+/** Units as pages and exports write them: the key's ^2 and ^3 as superscripts (Gpc^3 -> Gpc³). */
+export const unitText = (u: string) => u.replace(/\^3/g, "\u00b3").replace(/\^2/g, "\u00b2");

@@ -193,7 +193,13 @@ export interface DocumentCatalog {
   CHARTS: typeof CHARTS;
   /** Catalogue quantities that the document's format does not have ("not computed in this version"), by label. */
   notComputed: string[];
+  /** Whether any model gives a baryon density, so that the early-universe quantities and BAO ratios exist. */
+  hasEarlyUniverse: boolean;
 }
+
+/** Whether any model of a document gives a baryon density (the early-universe quantities and BAO ratios need one). */
+export const hasEarlyUniverse = (doc: { models: readonly { parameters: { Omega_b: number | null } }[] }) =>
+  doc.models.some((m) => m.parameters.Omega_b !== null);
 
 /**
  * Filters the catalogue to the quantities a stored document holds (read from its first model), so that pages and
@@ -201,11 +207,11 @@ export interface DocumentCatalog {
  */
 export function catalogFor(doc: {
   models: readonly {
+    parameters: { Omega_b: number | null };
     summary: object;
     redshifts: readonly object[];
     grid: object;
     targets: readonly object[];
-    parameters: object;
   }[];
 }): DocumentCatalog {
   const m = doc.models[0];
@@ -230,5 +236,6 @@ export function catalogFor(doc: {
     CHART_SERIES: keep(CHART_SERIES, row),
     CHARTS: CHARTS.map((c) => ({ ...c, keys: c.keys.filter(row) })).filter((c) => c.keys.length > 0),
     notComputed,
+    hasEarlyUniverse: hasEarlyUniverse(doc),
   };
 }

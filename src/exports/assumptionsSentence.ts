@@ -1,3 +1,4 @@
+import { hasEarlyUniverse } from "../contract/quantityCatalog.js";
 import type { StoredModelTables, StoredTablesDocument } from "../contract/tablesDocument.js";
 import { escapeLatex } from "./exportFormats.js";
 import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
@@ -128,7 +129,7 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
           : ` in ${g.models.map((l) => quoted(l).tex).join(", ")}`;
     return { plain: `${join(g.pieces).plain}${where}`, tex: `${join(g.pieces).tex}${texWhere}` };
   });
-  const early = doc.models.some((m) => m.parameters.Omega_b !== null);
+  const early = hasEarlyUniverse(doc);
   const version =
     p.version === null
       ? `an unfrozen draft (inputs SHA-256 ${p.inputs_sha256})`

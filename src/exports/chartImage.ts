@@ -3,19 +3,20 @@ import { readFileSync } from "node:fs";
 import { createCanvas, GlobalFonts, SvgExportFlag, type SKRSContext2D } from "@napi-rs/canvas";
 import { Chart, registerables, type ChartConfiguration, type Plugin } from "chart.js";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
-import { catalogFor } from "../contract/quantityCatalog.js";
+import { catalogFor, hasEarlyUniverse } from "../contract/quantityCatalog.js";
 import { formatNumber } from "../contract/formatNumber.js";
-import { unitText } from "./exportFormats.js";
+import { escapeHtml, unitText } from "./exportFormats.js";
 import { provenanceLine, type ExportProvenance } from "./exportProvenance.js";
 import { withPngText } from "./pngText.js";
+import { CHART_STYLE } from "./chartStyle.js";
 
 Chart.register(...registerables);
 
-/** Our palette and line patterns (the same as content/assets/charts.js, so an exported chart looks like the page's). */
-const COLOURS = ["#0b6e69", "#c2571a", "#6a3d9a", "#7a8b1f", "#2f3e9e", "#a8324a", "#5d6d7e", "#b8860b"];
-const DASHES = [[], [9, 4], [2, 3], [12, 3, 2, 3], [5, 5], [1, 2], [14, 4, 4, 4], [3, 6]];
+/** The pages' palette and line patterns (chartStyle.ts), so an exported chart looks like the page's. */
+const COLOURS: string[] = [...CHART_STYLE.colours];
+const DASHES = CHART_STYLE.dashes.map((d) => [...d]);
 const FONT = "cosmoledger DejaVu Sans";
-const INK = "#1d232a";
+const INK = CHART_STYLE.ink;
 
 /** Chart size in CSS pixels; PNGs are drawn at 3x (1800 x 1020 px: 6 x 3.4 inches at 300 dpi), SVG at 1x (vector). */
 export const CHART_WIDTH = 600;
@@ -45,7 +46,7 @@ export interface ChartSpec {
 
 /** Every exportable chart of a page: one per chart and series, as the page offers them (log redshift axis, the page's default). */
 export function chartSpecs(doc: StoredTablesDocument): ChartSpec[] {
-  const early = doc.models.some((m) => m.parameters.Omega_b !== null);
+  const early = hasEarlyUniverse(doc);
   const z = doc.models[0].grid.z as number[];
   const specs: ChartSpec[] = [];
   const { CHARTS, CHART_SERIES } = catalogFor(doc); // only the series this document's format holds
@@ -217,7 +218,7 @@ export function chartSvg(spec: ChartSpec, p: ExportProvenance): string {
   const canvas = createCanvas(CHART_WIDTH, CHART_HEIGHT, SvgExportFlag.NoPrettyXML);
   const svg = drawThen(canvas.getContext("2d"), spec, p, 1, () => canvas.getContent().toString("utf8"));
   const withFallback = svg.replace(/font-family="DejaVu Sans"/g, 'font-family="DejaVu Sans, Verdana, sans-serif"');
-  const esc = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;");
+  const esc = escapeHtml;
   return withFallback.replace(
     /<svg\b([^>]*)>/,
     (_open, attrs: string) =>

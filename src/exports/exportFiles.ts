@@ -1,3 +1,4 @@
+import pLimit from "p-limit";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { exportTables, type ExportTable } from "./exportTables.js";
 import { tableCsv, tableHtml, tableJson, tableLatex, tableMarkdown } from "./exportFormats.js";
@@ -126,24 +127,26 @@ export async function writeExportFiles<T extends { content: ExportContent }>(
   write: (file: T, content: string | Buffer) => void,
   inFlight = 4,
 ): Promise<void> {
-  const pending = new Set<Promise<void>>();
+  const limit = pLimit(inFlight);
   let failure: { error: unknown } | null = null; // the first failure, raised once every started image has settled
+  const jobs: Promise<void>[] = [];
   for (const f of files) {
-    if (failure) break;
-    if (typeof f.content !== "function") {
-      write(f, f.content);
+    const content = f.content;
+    if (typeof content !== "function") {
+      write(f, content);
       continue;
     }
-    const job: Promise<void> = f
-      .content()
-      .then((content) => write(f, content))
-      .catch((error) => {
-        failure ??= { error };
-      })
-      .finally(() => pending.delete(job));
-    pending.add(job);
-    if (pending.size >= inFlight) await Promise.race(pending);
+    jobs.push(
+      limit(async () => {
+        if (failure) return; // after a failure, images not yet started are not drawn
+        try {
+          write(f, await content());
+        } catch (error) {
+          failure ??= { error };
+        }
+      }),
+    );
   }
-  await Promise.all(pending);
+  await Promise.all(jobs);
   if (failure) throw (failure as { error: unknown }).error;
 }

@@ -1,12 +1,12 @@
+import escapeHtmlText from "escape-html";
 import { stringify } from "csv-stringify/sync";
-import type { NumberParts } from "../contract/formatNumber.js";
+import { type NumberParts, unitText } from "../contract/formatNumber.js";
 import type { ExportCell, ExportTable } from "./exportTables.js";
 import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
 
 export const EXPORT_FORMAT = "cosmoledger.export/1";
 
-/** Units as the page writes them (Gpc^3 -> Gpc³). */
-export const unitText = (u: string) => u.replace(/\^3/g, "\u00b3").replace(/\^2/g, "\u00b2");
+export { unitText };
 const labelWithUnit = (label: string, unit: string) => (unit ? `${label} [${unitText(unit)}]` : label);
 /** Which span each column sits under (null when the table has no spans). */
 const spanOf = (t: ExportTable, column: number) => {
@@ -174,8 +174,8 @@ export function tableLatex(t: ExportTable, p: ExportProvenance): string {
   return lines.join("\n");
 }
 
-export const escapeHtml = (s: string) =>
-  s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
+/** Text for HTML content and attribute values (escape-html: & < > " '). */
+export const escapeHtml = (s: string) => escapeHtmlText(s);
 
 /** A self-contained HTML fragment for a wiki: one figure with the table, inline styles only, the source as its caption. */
 export function tableHtml(t: ExportTable, p: ExportProvenance): string {

@@ -45,12 +45,12 @@ const text = (s: string | null | undefined): ExportCell => ({
   parts: null,
   text: s ?? "",
 });
-const hasEarly = (doc: StoredTablesDocument) => doc.models.some((m) => m.parameters.Omega_b !== null);
 
 /** Every table of a scenario page in page order: models, at a glance, each redshift table, early universe, targets, surveys. */
 export function exportTables(doc: StoredTablesDocument): ExportTable[] {
   // Only the quantities this document's format holds: a quantity added by a later format is left out, never blank.
-  const { EARLY_QUANTITIES, PARAMETERS, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES } = catalogFor(doc);
+  const { EARLY_QUANTITIES, PARAMETERS, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES, hasEarlyUniverse } =
+    catalogFor(doc);
   const models = doc.models;
   const columns = models.map((m) => ({ label: m.label, unit: "" }));
   const perModel = (label: string, unit: string, f: (m: StoredModelTables) => ExportCell): ExportRow => ({
@@ -97,7 +97,7 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
     ],
   });
   for (const g of REDSHIFT_GROUPS) {
-    if (g.id === "bao" && !hasEarly(doc)) continue;
+    if (g.id === "bao" && !hasEarlyUniverse) continue;
     // The whole group in one table (a column block per quantity), then each quantity's table as the page shows it.
     tables.push({
       id: `group-${g.id}`,
@@ -130,7 +130,7 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
       });
     }
   }
-  if (hasEarly(doc)) {
+  if (hasEarlyUniverse) {
     tables.push({
       id: "early",
       title: "Early universe",

@@ -1,6 +1,7 @@
 import { createHash } from "node:crypto";
 import { createRequire } from "node:module";
-import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync } from "node:fs";
+import writeFileAtomic from "write-file-atomic";
 import { dirname, join } from "node:path";
 import { Chart } from "chart.js";
 import { chartPng, chartSvg, type ChartSpec } from "./chartImage.js";
@@ -36,9 +37,7 @@ export function cachedRenderers(): ChartRenderers {
   const keep = (file: string, content: string | Buffer) => {
     try {
       mkdirSync(dirname(file), { recursive: true });
-      const tmp = `${file}.${process.pid}.tmp`;
-      writeFileSync(tmp, content);
-      renameSync(tmp, file);
+      writeFileAtomic.sync(file, content);
     } catch {
       // A read-only or full cache only costs time.
     }

@@ -1,5 +1,7 @@
+import serialize from "serialize-javascript";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { catalogFor } from "../contract/quantityCatalog.js";
+import { unitText } from "../contract/formatNumber.js";
 
 /** Plot points are drawn, not read: six significant figures are more than a screen resolves. */
 const round = (x: number | null) => (x === null ? null : Number(x.toPrecision(6)));
@@ -11,7 +13,7 @@ export function chartPayload(doc: StoredTablesDocument) {
   return {
     baseline: doc.scenario.baseline,
     z,
-    series: CHART_SERIES,
+    series: CHART_SERIES.map((s) => ({ ...s, unitText: unitText(s.unit) })),
     models: doc.models.map((m) => ({
       id: m.id,
       label: m.label,
@@ -22,14 +24,12 @@ export function chartPayload(doc: StoredTablesDocument) {
   };
 }
 
-/** JSON safe to place inside a <script type="application/json"> element: <, > and & are escaped. */
+/**
+ * JSON safe to place inside a <script> element: serialize-javascript in JSON mode escapes <, >, / and the line
+ * separators U+2028 and U+2029, so no text can close the element or start markup.
+ */
 export function jsonForScriptElement(value: unknown): string {
-  return JSON.stringify(value)
-    .replace(/</g, "\\u003c")
-    .replace(/>/g, "\\u003e")
-    .replace(/&/g, "\\u0026")
-    .replace(/\u2028/g, "\\u2028")
-    .replace(/\u2029/g, "\\u2029");
+  return serialize(value, { isJSON: true });
 }
 
 /** The small overview chart of each scenario on the index: D_L against z, at most about 60 grid points. */

@@ -1,4 +1,4 @@
-import { formatExact, formatNumber, formatPercent } from "../contract/formatNumber.js";
+import { formatExact, formatNumber, formatPercent, unitText } from "../contract/formatNumber.js";
 import { renderMarkdown } from "./renderMarkdown.js";
 import { renderMath } from "./renderMath.js";
 import { chartPayload, indexChartPayload, jsonForScriptElement } from "./chartPayload.js";
@@ -21,7 +21,7 @@ export const TEXT_FILTERS = {
   /** The first 12 hex digits of a hash. */
   short: (hash: string) => hash.slice(0, 12),
   /** Units as written in keys (Gpc^3) with real superscripts. */
-  unit: (u: string) => u.replace(/\^3/g, "\u00b3").replace(/\^2/g, "\u00b2"),
+  unit: (u: string) => unitText(u),
   /** A version's creation time (ISO 8601, UTC) as "2026-03-14 09:30 UTC"; times come from the versions, never from the build. */
   when: (iso: string) =>
     /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(iso) ? `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC` : iso,
@@ -36,6 +36,8 @@ export const HTML_FILTERS = {
   math: (tex: string) => renderMath(tex, true),
   /** The chart data of a tables document as JSON for an inline data element. */
   chartJson: (doc: Parameters<typeof chartPayload>[0]) => jsonForScriptElement(chartPayload(doc)),
+  /** Any value as JSON for an inline data element (<script type="application/json">). */
+  scriptJson: (value: unknown) => jsonForScriptElement(value),
   /** The index's overview charts of all scenarios as JSON for an inline data element. */
   indexChartJson: (docs: Parameters<typeof indexChartPayload>[0]) => jsonForScriptElement(indexChartPayload(docs)),
 };

@@ -110,9 +110,12 @@ describe("hostile strings from a scenario are shown as text and run nothing", { 
     expect(r.code, r.stderr).toBe(0);
     const html = readFileSync(join(out, "hostile", "index.html"), "utf8");
     const page = parseHTML(html).document;
-    const scripts = [...page.querySelectorAll("script")].map((s) => s.getAttribute("src") ?? s.getAttribute("type"));
+    const scripts = [...page.querySelectorAll("script")].map(
+      (s) => s.getAttribute("src") ?? `${s.getAttribute("type")}#${s.getAttribute("id")}`,
+    );
     expect(scripts).toEqual([
-      "application/json",
+      "application/json#chart-data",
+      "application/json#chart-style",
       "../assets/chart.umd.min.js",
       "../assets/charts.js",
       "exports/copy.js",
