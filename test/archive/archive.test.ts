@@ -44,16 +44,33 @@ function listFiles(dir: string, prefix = ""): string[] {
 }
 
 // Builds draw chart images into empty caches here, so each test gets a generous time limit.
-describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
+describe("freeze, history, diff and verify", { timeout: 180_000 }, () => {
+  // Every test makes its own working folder, so that each passes alone and in any order.
   let work: string;
   const cli = (...args: string[]) => runCli(args, work);
-  beforeAll(() => {
-    compileProject();
+  beforeAll(() => compileProject());
+  /** A fresh folder with scenarios/shelf.yaml; with `versions`, v1 (H0 = 70) and v2 (H0 = 60) frozen. */
+  function fresh(o: { versions?: boolean; draft?: boolean; site?: boolean } = {}): void {
     work = tempDir();
     mkdirSync(join(work, "scenarios"));
-  });
+    const file = join(work, "scenarios/shelf.yaml");
+    writeFileSync(file, scenario(70));
+    if (o.versions) {
+      expect(cli("freeze", "scenarios/shelf.yaml", "-m", "first numbers").code).toBe(0);
+      writeFileSync(file, scenario(60));
+      expect(cli("freeze", "scenarios/shelf.yaml", "-m", "lower H0").code).toBe(0);
+    }
+    if (o.draft) writeFileSync(file, scenario(65));
+    if (o.site) {
+      const b = runCli(["build", "--scenarios", "scenarios", "--out", "site"], work, {
+        COSMOLEDGER_CACHE: join(work, "cache-a"),
+      });
+      expect(b.code, b.stderr).toBe(0);
+    }
+  }
 
   it("freezes version 1, treats an unchanged freeze as a no-op, and numbers an edit as version 2", () => {
+    fresh();
     const file = join(work, "scenarios/shelf.yaml");
     writeFileSync(file, scenario(70));
     const first = cli("freeze", "scenarios/shelf.yaml", "-m", "first numbers");
@@ -82,6 +99,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   });
 
   it("returning to an earlier version's inputs is a new version that names the earlier one", () => {
+    fresh();
     const dir = join(work, "revert");
     mkdirSync(dir);
     const f = join(dir, "s.yaml");
@@ -94,6 +112,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   });
 
   it("verify passes on the intact archive and reports zero drift", () => {
+    fresh({ versions: true });
     const r = cli("verify", "--archive", "scenarios/archive", "--strict");
     expect(r.code, r.stderr).toBe(0);
     expect(r.stdout).toMatch(
@@ -105,6 +124,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   });
 
   it("renders version pages, the history, the diff and marks the edited file as an unfrozen draft", () => {
+    fresh({ versions: true });
     writeFileSync(join(work, "scenarios/shelf.yaml"), scenario(65));
     const b = runCli(["build", "--scenarios", "scenarios", "--out", "site"], work, {
       COSMOLEDGER_CACHE: join(work, "cache-a"),
@@ -148,6 +168,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   });
 
   it("two builds of the same inputs and archive are byte-identical, chart images included", () => {
+    fresh({ versions: true, draft: true, site: true });
     // Each build draws its images afresh (its own empty image cache), so the comparison covers the drawing too.
     const r = runCli(["build", "--scenarios", "scenarios", "--out", "site-again"], work, {
       COSMOLEDGER_CACHE: join(work, "cache-b"),
@@ -162,6 +183,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   });
 
   it("a version frozen by an earlier engine is shown as frozen and verify reports its drift (exit 3 with --strict)", () => {
+    fresh({ versions: true, draft: true });
     // Simulate an archive written by an older engine: a valid, sealed version 3 whose stored c/H0 differs by 1e-6.
     const r2: VersionRecord = JSON.parse(readFileSync(join(work, "scenarios/archive/shelf-test/v2.json"), "utf8"));
     const tables = structuredClone(r2.tables);
@@ -195,6 +217,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   });
 
   it("a changed digit, a missing or a reordered version fails verify naming the file, and the build refuses it", () => {
+    fresh({ versions: true, draft: true, site: true });
     const copy = (name: string) => {
       const dir = join(work, name);
       mkdirSync(join(dir, "shelf-test"), { recursive: true });
@@ -251,6 +274,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   });
 
   it("a scenario whose file was removed keeps its pages; its address shows the latest frozen version", () => {
+    fresh();
     const dir = join(work, "gone");
     mkdirSync(dir);
     writeFileSync(join(dir, "s.yaml"), scenario(68));
@@ -266,6 +290,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   });
 
   it("bad input to freeze, verify, build and export: exit 2, a located message, nothing written", () => {
+    fresh({ versions: true });
     const bad = join(work, "bad.yaml");
     writeFileSync(bad, scenario(70).replace("    Omega_m: 0.3\n", "    Omega_m: -0.3\n"));
     const f = cli("freeze", "bad.yaml", "--archive", "bad-archive");
@@ -293,6 +318,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   });
 
   it("concurrent freezes of different edits take distinct numbers and leave an intact chain", async () => {
+    fresh();
     const dir = join(work, "race");
     mkdirSync(dir);
     const files = [61, 62, 63, 64, 66, 67].map((h0) => {
@@ -329,6 +355,7 @@ describe("freeze, history, diff and verify", { timeout: 120_000 }, () => {
   });
 
   it("a build killed part way leaves the previous site whole, and the next build cleans up after it", async () => {
+    fresh({ versions: true, site: true });
     const out = join(work, "site");
     const before = listFiles(out).map((f) => [f, readFileSync(join(out, f), "utf8")]);
     // Enough scenarios that Eleventy is still writing when the kill comes.
