@@ -5,7 +5,12 @@ export default {
   packageManager: "npm",
   testRunner: "vitest",
   vitest: { configFile: "test/vitest.mutation.config.ts" },
-  mutate: ["src/engine/**/*.ts", "!src/engine/index.ts", "!src/engine/declaredChanges.ts", "!src/engine/engineVersion.ts"],
+  mutate: [
+    "src/engine/**/*.ts",
+    "!src/engine/index.ts",
+    "!src/engine/declaredChanges.ts",
+    "!src/engine/engineVersion.ts",
+  ],
   coverageAnalysis: "perTest",
   // Static mutants (module-level tables and constants) need a full reload per mutant; they are checked by the
   // fixtures and closed forms anyway, and skipping them keeps the run near 20 minutes.
