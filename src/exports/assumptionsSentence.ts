@@ -1,3 +1,4 @@
+import { oneLine } from "../common/userText.js";
 import { hasEarlyUniverse } from "../contract/quantityCatalog.js";
 import type { StoredModelTables, StoredTablesDocument } from "../contract/tablesDocument.js";
 import { escapeLatex } from "./exportFormats.js";
@@ -73,7 +74,7 @@ function inputs(m: StoredModelTables, provenance: "set" | "default" | "inherited
 }
 
 /** Model labels are quoted, since they may hold commas. */
-const quoted = (label: string): Piece => ({ plain: `"${label}"`, tex: `\`\`${escapeLatex(label)}''` });
+const quoted = (label: string): Piece => ({ plain: `"${oneLine(label)}"`, tex: `\`\`${escapeLatex(label)}''` });
 const join = (xs: Piece[], sep = ", "): Piece => ({
   plain: xs.map((x) => x.plain).join(sep),
   tex: xs.map((x) => x.tex).join(sep),
@@ -135,7 +136,7 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
       ? `an unfrozen draft (inputs SHA-256 ${p.inputs_sha256})`
       : `${versionLabel(p)} (SHA-256 ${p.version_sha256})`;
   const plain = [
-    `Background quantities were computed for ${doc.models.length} FLRW model${doc.models.length === 1 ? "" : "s"} of the scenario "${doc.scenario.title}": ${models.map((m) => m.plain).join("; ")}.`,
+    `Background quantities were computed for ${doc.models.length} FLRW model${doc.models.length === 1 ? "" : "s"} of the scenario "${oneLine(doc.scenario.title)}": ${models.map((m) => m.plain).join("; ")}.`,
     defaults.length ? `Defaults applied: ${defaults.map((d) => d.plain).join("; ")}.` : "No defaults were applied.",
     `Curvature follows from the closure relation; integrals were evaluated by adaptive Gauss-Kronrod quadrature to a relative tolerance of ${doc.engine.tolerance}.`,
     early

@@ -3,6 +3,10 @@ import { stringify } from "csv-stringify/sync";
 import { type NumberParts, unitText } from "../contract/formatNumber.js";
 import type { ExportCell, ExportTable } from "./exportTables.js";
 import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
+import { csvText, latexText, oneLine } from "../common/userText.js";
+
+/** CSV fields that are always quoted: those holding "#" (some readers take it as a comment anywhere) or a line break. */
+export const CSV_QUOTED = /[#\r\n]/;
 
 export const EXPORT_FORMAT = "cosmoledger.export/1";
 
@@ -40,15 +44,18 @@ const heading = (t: ExportTable) =>
  */
 export function tableCsv(t: ExportTable, p: ExportProvenance): string {
   const comments = [
-    `# ${heading(t)}`,
-    `# source: ${provenanceLine(p)}`,
+    `# ${oneLine(heading(t))}`,
+    `# source: ${oneLine(provenanceLine(p))}`,
     "# numbers at full precision; an empty cell is an infinite or undefined quantity",
   ];
-  const value = (c: ExportCell) => (c.value === null ? "" : String(c.value));
-  const body = stringify([header(t), ...t.rows.map((r) => [labelWithUnit(r.label, r.unit), ...r.cells.map(value)])], {
-    record_delimiter: "\r\n",
-    quoted_match: /#/,
-  });
+  // Numbers stay numbers; text (labels, names, notes) is neutralised against formula injection.
+  const value = (c: ExportCell) =>
+    c.value === null ? "" : c.kind === "number" ? String(c.value) : csvText(String(c.value));
+  const rows = [
+    header(t).map(csvText),
+    ...t.rows.map((r) => [csvText(labelWithUnit(r.label, r.unit)), ...r.cells.map(value)]),
+  ];
+  const body = stringify(rows, { record_delimiter: "\r\n", quoted_match: CSV_QUOTED });
   return `${comments.join("\r\n")}\r\n${body}`;
 }
 
@@ -79,7 +86,7 @@ export function tableJson(t: ExportTable, p: ExportProvenance): string {
 
 /** Characters that Markdown (CommonMark with GFM tables) could read as markup; each is backslash-escaped. */
 const MARKDOWN_SPECIAL = /[\\`*_[\]<>|~&!#$^{}]/g;
-export const escapeMarkdown = (s: string) => s.replace(MARKDOWN_SPECIAL, (c) => `\\${c}`).replace(/\r?\n/g, " ");
+export const escapeMarkdown = (s: string) => oneLine(s).replace(MARKDOWN_SPECIAL, (c) => `\\${c}`);
 
 /** A GFM pipe table as wiki engines read it, cells as the page prints them, with a title line and a source line. */
 export function tableMarkdown(t: ExportTable, p: ExportProvenance): string {
@@ -98,40 +105,8 @@ export function tableMarkdown(t: ExportTable, p: ExportProvenance): string {
   return lines.join("\n");
 }
 
-const LATEX_SPECIAL: Record<string, string> = {
-  "\\": "\\textbackslash{}",
-  "&": "\\&",
-  "%": "\\%",
-  $: "\\$",
-  "#": "\\#",
-  _: "\\_",
-  "{": "\\{",
-  "}": "\\}",
-  "~": "\\textasciitilde{}",
-  "^": "\\textasciicircum{}",
-  "|": "\\textbar{}",
-  "<": "\\textless{}",
-  ">": "\\textgreater{}",
-  "\u2212": "$-$",
-  "\u00d7": "$\\times$",
-  "\u00b2": "\\textsuperscript{2}",
-  "\u00b3": "\\textsuperscript{3}",
-  "\u03c0": "$\\pi$",
-  "\u2264": "$\\le$",
-  "\u2265": "$\\ge$",
-  "\u2013": "--",
-  "\u2014": "---",
-  "\u00b7": "\\textperiodcentered{}",
-  "\u2192": "$\\rightarrow$",
-};
-/** Text for LaTeX: the ten special characters, | < > and the few non-ASCII symbols our labels use. */
-export const escapeLatex = (s: string) =>
-  s
-    .replace(
-      /[\\&%$#_{}~^|<>\u2212\u00d7\u00b2\u00b3\u03c0\u2264\u2265\u2013\u2014\u00b7\u2192]/g,
-      (c) => LATEX_SPECIAL[c],
-    )
-    .replace(/\r?\n/g, " ");
+/** Text for LaTeX (userText.ts): compiles with pdflatex and never reaches TeX as a command. */
+export const escapeLatex = latexText;
 
 /** A number in LaTeX with the digits the page shows: 0.306, $-0.015$, $7.76720\times10^{-5}$; no number is ---. */
 export function latexNumber(p: NumberParts | null): string {
@@ -148,8 +123,9 @@ export function tableLatex(t: ExportTable, p: ExportProvenance): string {
   const n = t.columns.length;
   const cell = (c: ExportCell) => (c.kind === "number" ? latexNumber(c.parts) : escapeLatex(c.text));
   const lines = [
-    `% ${heading(t)}`,
-    `% source: ${provenanceLine(p)}`,
+    // A comment ends only at a line break, and oneLine leaves none (TeX skips the rest of a comment line unread).
+    `% ${oneLine(heading(t))}`,
+    `% source: ${oneLine(provenanceLine(p))}`,
     "% needs \\usepackage{booktabs}",
     `\\begin{tabular}{l${"r".repeat(n)}}`,
     "\\toprule",

@@ -1,3 +1,4 @@
+import { oneLine } from "../common/userText.js";
 /** Where an export came from; every exported file carries it. */
 export interface ExportProvenance {
   tool: string;
@@ -21,5 +22,5 @@ export const versionLabel = (p: ExportProvenance) => (p.version === null ? "unfr
 /** One line naming the source of an export: tool, scenario, version and hash, engine, page. */
 export function provenanceLine(p: ExportProvenance): string {
   const hash = p.version_sha256 === null ? `inputs SHA-256 ${p.inputs_sha256}` : `SHA-256 ${p.version_sha256}`;
-  return `${p.tool} ${p.tool_version}; scenario ${p.scenario_id} "${p.scenario_title}", ${versionLabel(p)} (${hash}); engine ${p.engine_version}; page ${p.page}`;
+  return `${p.tool} ${p.tool_version}; scenario ${p.scenario_id} "${oneLine(p.scenario_title)}", ${versionLabel(p)} (${hash}); engine ${p.engine_version}; page ${p.page}`;
 }

@@ -1,7 +1,12 @@
+import { csvText } from "../common/userText.js";
 import { stringify } from "csv-stringify/sync";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 
-const cell = (v: unknown): string => (v === null || v === undefined ? "" : String(v));
+/** Empty for null; numbers as numbers; text neutralised against spreadsheet formula injection (OWASP). */
+const cell = (v: unknown): string =>
+  v === null || v === undefined ? "" : typeof v === "string" ? csvText(v) : String(v);
+/** Always quote a field holding "#" or a line break (a lone CR too, RFC 4180). */
+const QUOTED = /[#\r\n]/;
 
 /**
  * One RFC 4180 CSV per table shown on the page (the chart grid stays in tables.json) of the document (csv-stringify),
@@ -11,7 +16,7 @@ const cell = (v: unknown): string => (v === null || v === undefined ? "" : Strin
 export function tablesCsv(doc: StoredTablesDocument): Record<string, string> {
   const ids = doc.models.map((m) => m.id);
   const table = (header: string[], body: unknown[][]) =>
-    stringify([header, ...body.map((r) => r.map(cell))], { record_delimiter: "\r\n" });
+    stringify([header.map(cell), ...body.map((r) => r.map(cell))], { record_delimiter: "\r\n", quoted_match: QUOTED });
   const cellOf = (v: unknown) => (Array.isArray(v) ? v.join(" ") : v);
   const rec = (x: object) => x as Record<string, unknown>;
   const paramKeys = Object.keys(doc.models[0].parameters);
