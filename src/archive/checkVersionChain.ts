@@ -1,3 +1,4 @@
+import { parseStrictJson } from "../common/parseStrictJson.js";
 import { versionRecordProblem } from "../contract/validateContract.js";
 import {
   VERSION_FILE_PATTERN,
@@ -34,7 +35,7 @@ export function checkVersionChain(
     const n = Number(m[1]);
     let record: StoredVersionRecord;
     try {
-      record = JSON.parse(f.text);
+      record = parseStrictJson(f.text) as StoredVersionRecord;
     } catch (e) {
       issues.push({
         file: shown,
@@ -68,18 +69,24 @@ export function checkVersionChain(
     }
     byNumber.set(n, record);
   }
-  const highest = Math.max(0, ...[...files].map((f) => Number(VERSION_FILE_PATTERN.exec(f.name)?.[1] ?? 0)));
+  // Work over the numbers present, never over the range 1..highest: a stray v100000000.json costs nothing.
+  const present = [
+    ...new Set(files.map((f) => Number(VERSION_FILE_PATTERN.exec(f.name)?.[1] ?? 0)).filter((n) => n > 0)),
+  ].sort((a, b) => a - b);
+  const highest = present.at(-1) ?? 0;
   const versions: StoredVersionRecord[] = [];
-  for (let n = 1; n <= highest; n++) {
+  let expectedNext = 1;
+  for (const n of present) {
+    if (n > expectedNext) {
+      const gap = n - 1 === expectedNext ? `v${expectedNext} was` : `v${expectedNext} to v${n - 1} were`;
+      issues.push({
+        file: `${folderShown}/${versionFileName(expectedNext)}`,
+        message: `is missing: versions run to v${highest}, so ${gap} deleted or never landed${n > present.length + 1000 ? ` (v${n} is an implausible version number: a stray file?)` : ""}`,
+      });
+    }
+    expectedNext = n + 1;
     const record = byNumber.get(n);
     const shown = `${folderShown}/${versionFileName(n)}`;
-    if (!files.some((f) => f.name === versionFileName(n))) {
-      issues.push({
-        file: shown,
-        message: `is missing: versions run to v${highest}, so v${n} was deleted or never landed`,
-      });
-      continue;
-    }
     if (!record) continue;
     const expected = n === 1 ? null : byNumber.get(n - 1)?.sha256;
     if (n === 1 && record.previous_sha256 !== null)

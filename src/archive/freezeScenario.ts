@@ -1,20 +1,12 @@
-import {
-  closeSync,
-  constants,
-  copyFileSync,
-  fsyncSync,
-  linkSync,
-  mkdirSync,
-  openSync,
-  rmSync,
-  writeFileSync,
-} from "node:fs";
+import { makeFolders } from "../common/makeFolders.js";
+import { closeSync, constants, copyFileSync, fsyncSync, linkSync, openSync, rmSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { randomBytes } from "node:crypto";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import type { TablesDocument } from "../contract/tablesDocument.js";
 import { readScenarioArchive } from "./readArchive.js";
 import type { ArchiveIssue } from "./checkVersionChain.js";
+import { headLosses, readHeads, recordHead } from "./headRecord.js";
 import {
   frozenInputs,
   holdsSameInputs,
@@ -71,10 +63,19 @@ export function freezeScenario(
   now: () => Date = () => new Date(),
 ): FreezeOutcome {
   const folder = join(archiveDir, scenario.id);
-  mkdirSync(folder, { recursive: true });
+  makeFolders(folder);
   for (let attempt = 0; attempt < RETRIES; attempt++) {
     const issues: ArchiveIssue[] = [];
     const { versions } = readScenarioArchive(folder, scenario.id, issues);
+    const { heads, issue } = readHeads(archiveDir);
+    if (issue) issues.push(issue);
+    const newest = versions.at(-1);
+    if (heads && issues.length === 0) {
+      const have = new Map(newest ? [[scenario.id, { version: newest.version, sha256: newest.sha256 }]] : []);
+      issues.push(
+        ...headLosses(archiveDir, { ...(heads[scenario.id] ? { [scenario.id]: heads[scenario.id] } : {}) }, have),
+      );
+    }
     if (issues.length > 0) return { kind: "broken", issues };
     const latest = versions.at(-1);
     if (latest && holdsSameInputs(latest, doc))
@@ -86,7 +87,7 @@ export function freezeScenario(
         created: now().toISOString(),
         message,
         previous_sha256: latest?.sha256 ?? null,
-        source: { path: scenario.source.path, text: scenario.source.text },
+        source: { path: scenario.source.name, text: scenario.source.text },
         inputs: frozenInputs(scenario),
         tables: doc,
       },
@@ -105,6 +106,7 @@ export function freezeScenario(
       rmSync(tmp, { force: true });
     }
     fsyncPath(folder, "r");
+    recordHead(archiveDir, scenario.id, { version: record.version, sha256: record.sha256 });
     const earlier = versions.find((v) => holdsSameInputs(v, doc));
     return { kind: "frozen", record, file: final, sameInputsAs: earlier ? earlier.version : null };
   }

@@ -1,7 +1,9 @@
-import { existsSync, readFileSync, readdirSync, statSync } from "node:fs";
+import { lstatSync, readdirSync, statSync } from "node:fs";
 import { join } from "node:path";
 import { displayPath } from "../common/displayPath.js";
+import { readRegularFile } from "../common/readRegularFile.js";
 import { checkVersionChain, type ArchiveIssue } from "./checkVersionChain.js";
+import { HEADS_FILE, headLosses, readHeads } from "./headRecord.js";
 import type { StoredVersionRecord } from "../contract/versionRecord.js";
 
 export interface ScenarioArchive {
@@ -10,43 +12,96 @@ export interface ScenarioArchive {
   versions: StoredVersionRecord[];
 }
 
-/** Scenario ids are folder names in the archive; dotfiles (a freeze's temporary files) are skipped. */
+/** Scenario ids are folder names in the archive; dotfiles (a freeze's temporary files, the head lock) are skipped. */
 const visible = (name: string) => !name.startsWith(".");
 
-/** Reads and checks every scenario's version chain in an archive folder. A folder that does not exist is an empty archive. */
+/** What a path is, without following a broken link into an error: missing, a dangling link, a folder, a file, other. */
+export function pathKind(path: string): "missing" | "dangling-link" | "folder" | "file" | "other" {
+  let l: ReturnType<typeof lstatSync>;
+  try {
+    l = lstatSync(path);
+  } catch {
+    return "missing";
+  }
+  try {
+    const s = l.isSymbolicLink() ? statSync(path) : l;
+    return s.isDirectory() ? "folder" : s.isFile() ? "file" : "other";
+  } catch {
+    return "dangling-link";
+  }
+}
+
+const KIND_PROBLEM = {
+  "dangling-link": "is a symbolic link whose target does not exist",
+  file: "is a file, not an archive folder",
+  other: "is not a folder (a FIFO, socket or device)",
+} as const;
+
+/**
+ * Reads and checks every scenario's version chain in an archive folder, and the head record that notices a lost
+ * newest version or scenario folder. A folder that does not exist is an empty archive.
+ */
 export function readArchive(archiveDir: string): { archives: ScenarioArchive[]; issues: ArchiveIssue[] } {
   const archives: ScenarioArchive[] = [];
   const issues: ArchiveIssue[] = [];
-  if (!existsSync(archiveDir)) return { archives, issues };
-  if (!statSync(archiveDir).isDirectory())
-    return { archives, issues: [{ file: displayPath(archiveDir), message: "is a file, not an archive folder" }] };
+  const kind = pathKind(archiveDir);
+  if (kind === "missing") return { archives, issues };
+  if (kind !== "folder") return { archives, issues: [{ file: displayPath(archiveDir), message: KIND_PROBLEM[kind] }] };
   for (const id of readdirSync(archiveDir).filter(visible).sort()) {
     const folder = join(archiveDir, id);
-    if (!statSync(folder).isDirectory()) {
-      if (id.toLowerCase() !== "readme.md")
-        issues.push({
-          file: displayPath(folder),
-          message: "unexpected file in the archive (expected one folder per scenario id)",
-        });
+    const k = pathKind(folder);
+    if (k !== "folder") {
+      if (k === "file" && (id.toLowerCase() === "readme.md" || id === HEADS_FILE)) continue;
+      issues.push({
+        file: displayPath(folder),
+        message:
+          k === "dangling-link"
+            ? KIND_PROBLEM[k]
+            : "unexpected file in the archive (expected one folder per scenario id)",
+      });
       continue;
     }
     archives.push(readScenarioArchive(folder, id, issues));
+  }
+  const { heads, issue } = readHeads(archiveDir);
+  if (issue) issues.push(issue);
+  if (heads) {
+    const newest = new Map<string, { version: number; sha256: string }>();
+    const damaged = new Set(issues.map((i) => i.file));
+    for (const a of archives) {
+      const v = a.versions.at(-1);
+      if (v) newest.set(a.id, { version: v.version, sha256: v.sha256 });
+      else if ([...damaged].some((f) => f.startsWith(displayPath(a.folder))))
+        newest.set(a.id, { version: Infinity, sha256: "" });
+    }
+    issues.push(...headLosses(archiveDir, heads, newest));
+  } else if (!issue && archives.some((a) => a.versions.some((v) => v.format !== "cosmoledger.version/1"))) {
+    issues.push({
+      file: displayPath(join(archiveDir, HEADS_FILE)),
+      message:
+        "is missing: it records every scenario's newest version (restore it from git; versions of format 2 on are always recorded there)",
+    });
   }
   return { archives, issues };
 }
 
 /** One scenario's folder: its checked versions, oldest first; problems are added to `issues`. */
 export function readScenarioArchive(folder: string, id: string, issues: ArchiveIssue[]): ScenarioArchive {
-  const names = existsSync(folder) ? readdirSync(folder).filter(visible) : [];
+  const names = pathKind(folder) === "folder" ? readdirSync(folder).filter(visible) : [];
   const files: { name: string; text: string }[] = [];
   for (const name of names) {
     const path = join(folder, name);
-    if (statSync(path).isFile()) files.push({ name, text: readFileSync(path, "utf8") });
-    else
+    const k = pathKind(path);
+    if (k === "folder") {
       issues.push({
         file: displayPath(path),
         message: "unexpected folder in a version folder (expected v1.json, v2.json, ...)",
       });
+      continue;
+    }
+    const read = readRegularFile(path);
+    if ("why" in read) issues.push({ file: displayPath(path), message: `the path ${read.why}` });
+    else files.push({ name, text: read.bytes.toString("utf8") });
   }
   const checked = checkVersionChain(displayPath(folder), id, files);
   issues.push(...checked.issues);

@@ -1,4 +1,6 @@
-import { existsSync, mkdirSync, readdirSync, renameSync, rmSync } from "node:fs";
+import { makeFolders } from "../common/makeFolders.js";
+import { existsSync, readdirSync, realpathSync, renameSync, rmSync, statSync } from "node:fs";
+import { isLink } from "../common/readRegularFile.js";
 import { basename, dirname, join, resolve } from "node:path";
 import { PACKAGE_ROOT } from "../common/toolVersion.js";
 import { defaultArchive, readLedger } from "./readLedger.js";
@@ -21,7 +23,23 @@ export async function buildSite(
 ): Promise<number> {
   const scenarios = resolve(scenariosDir);
   const archive = resolve(archiveDir ?? defaultArchive(scenariosDir));
-  const out = resolve(outDir);
+  // A --out that is the user's symbolic link (to a web root, say) is kept: the site is built into its target.
+  let out = resolve(outDir);
+  if (existsSync(out) || isLink(out)) {
+    if (isLink(out)) {
+      if (!existsSync(out)) {
+        process.stderr.write(
+          `error: ${outDir} is a symbolic link whose target does not exist; create the target folder or choose another --out\n`,
+        );
+        return 2;
+      }
+      out = realpathSync(out);
+    }
+    if (!statSync(out).isDirectory()) {
+      process.stderr.write(`error: ${outDir} is a file, not a folder; choose another --out\n`);
+      return 2;
+    }
+  }
   if (!existsSync(scenarios)) {
     process.stderr.write(`error: scenarios folder ${scenariosDir} does not exist\n`);
     return 2;
@@ -52,7 +70,7 @@ export async function buildSite(
   const stamp = `${process.pid}-${Date.now()}`;
   const tmp = `${out}.building-${stamp}`;
   const old = `${out}.previous-${stamp}`;
-  mkdirSync(dirname(out), { recursive: true });
+  makeFolders(dirname(out));
   setSiteLedger(ledger);
   const cwd = process.cwd();
   try {

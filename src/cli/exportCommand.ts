@@ -3,7 +3,7 @@ import { displayPath } from "../common/displayPath.js";
 import { TOOL_VERSION } from "../common/toolVersion.js";
 import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
 import { readScenarioFile } from "./readScenarioFile.js";
-import { buildTablesDocument } from "../tables/buildTablesDocument.js";
+import { computeTables } from "./computeTables.js";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { readScenarioArchive } from "../archive/readArchive.js";
 import type { ArchiveIssue } from "../archive/checkVersionChain.js";
@@ -63,7 +63,7 @@ export async function exportCommand(
     doc = record.tables;
     page = `${scenario.id}/v${wanted}/index.html`;
   } else {
-    const current = buildTablesDocument(scenario);
+    const current = computeTables(scenario);
     doc = current;
     const latest = versions.at(-1);
     record = latest && holdsSameInputs(latest, current) ? latest : null;

@@ -1,9 +1,9 @@
-import { existsSync, statSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { displayPath } from "../common/displayPath.js";
 import { readScenarioFile } from "./readScenarioFile.js";
-import { buildTablesDocument } from "../tables/buildTablesDocument.js";
+import { computeTables } from "./computeTables.js";
 import { freezeScenario } from "../archive/freezeScenario.js";
+import { pathKind } from "../archive/readArchive.js";
 
 /**
  * `cosmoledger freeze FILE [-m MESSAGE] [--archive DIR]`: validates and computes the scenario, then records it as the
@@ -21,11 +21,18 @@ export function freezeCommand(files: string[], options: { message?: string; arch
   const scenario = readScenarioFile(file, "nothing was frozen");
   if (!scenario) return 2;
   const archive = options.archive ?? join(dirname(file), "archive");
-  if (existsSync(archive) && !statSync(archive).isDirectory()) {
-    process.stderr.write(`error: ${displayPath(archive)} is a file, not an archive folder; nothing was frozen\n`);
+  const kind = pathKind(archive);
+  if (kind !== "missing" && kind !== "folder") {
+    const what =
+      kind === "file"
+        ? "is a file, not an archive folder"
+        : kind === "dangling-link"
+          ? "is a symbolic link whose target does not exist"
+          : "is not a folder";
+    process.stderr.write(`error: ${displayPath(archive)} ${what}; nothing was frozen\n`);
     return 2;
   }
-  const outcome = freezeScenario(archive, scenario, buildTablesDocument(scenario), options.message ?? "");
+  const outcome = freezeScenario(archive, scenario, computeTables(scenario), options.message ?? "");
   if (outcome.kind === "broken") {
     for (const i of outcome.issues) process.stderr.write(`error: ${i.file}: ${i.message}\n`);
     process.stderr.write(

@@ -1,3 +1,5 @@
+import { ScenarioInputError, formatIssue } from "../scenario/scenarioIssue.js";
+import { FILE_SYSTEM_EXIT, fileSystemRefusal } from "./fileSystemRefusal.js";
 import { parseArgs } from "node:util";
 
 const HELP: Record<string, string> = {
@@ -21,8 +23,9 @@ Commands:
                             assumptions paragraph of a scenario or of one frozen version
 
 Run "cosmoledger <command> --help" for a command's options.
-Exit status: 0 success, 2 invalid input or a damaged archive (nothing written), 3 archived numbers drift
-(verify --strict), 1 unexpected failure.`,
+Exit status: 0 success, 2 invalid input, a refused output folder or a damaged archive (nothing written),
+3 archived numbers drift with no declared reason (verify --strict), 4 the file system refused (permission,
+read-only, full disk; nothing half-written is left), 1 unexpected failure (a bug: please report it).`,
   check: `Usage: cosmoledger check FILE...
 
 Validates each scenario file (YAML syntax, keys, types, ranges, inheritance, physics such as a missing big bang)
@@ -106,7 +109,26 @@ const OPTIONS = {
 
 const parseOptions = (args: string[]) => parseArgs({ args, allowPositionals: true, strict: true, options: OPTIONS });
 
+/** Runs a command; an error the file system raised becomes one located line and exit 4, never a stack trace. */
 export async function main(argv: string[]): Promise<number> {
+  try {
+    return await runMain(argv);
+  } catch (e) {
+    if (e instanceof ScenarioInputError) {
+      for (const i of e.issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
+      process.stderr.write(
+        `${e.issues.length} problem${e.issues.length === 1 ? "" : "s"} found; nothing was written.\n`,
+      );
+      return 2;
+    }
+    const refusal = fileSystemRefusal(e);
+    if (refusal === null) throw e;
+    process.stderr.write(`${refusal}\n`);
+    return FILE_SYSTEM_EXIT;
+  }
+}
+
+async function runMain(argv: string[]): Promise<number> {
   const [command, ...rest] = argv;
   if (command === undefined || command === "--help" || command === "-h" || command === "help") {
     process.stdout.write(HELP[rest[0] ?? ""] ?? HELP.main);

@@ -2,7 +2,7 @@ import { readdirSync } from "node:fs";
 import { join } from "node:path";
 import { displayPath } from "../common/displayPath.js";
 import type { ScenarioIssue } from "../scenario/scenarioIssue.js";
-import { buildTablesDocument } from "../tables/buildTablesDocument.js";
+import { computeTables } from "./computeTables.js";
 import { readArchive } from "../archive/readArchive.js";
 import { sitePages, type PageExporter } from "../site/sitePages.js";
 import { loadScenarioFiles } from "./readScenarioFile.js";
@@ -33,7 +33,7 @@ export function readLedger(
 ): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
   const loaded = loadScenarioFiles(scenarioFiles(dir));
   const issues: ScenarioIssue[] = [...loaded.issues];
-  const files = loaded.scenarios.map((scenario) => ({ scenario, doc: buildTablesDocument(scenario) }));
+  const files = loaded.scenarios.map((scenario) => ({ scenario, doc: computeTables(scenario) }));
   const archive = readArchive(archiveDir);
   for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
   if (issues.length > 0) return { ledger: null, issues };

@@ -1,4 +1,5 @@
-import { readFileSync } from "node:fs";
+import { readRegularFile } from "../common/readRegularFile.js";
+import { decodeScenarioText } from "../scenario/decodeScenarioText.js";
 import { displayPath } from "../common/displayPath.js";
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError, formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
@@ -9,18 +10,11 @@ export function loadScenarioFile(
   file: string,
 ): { scenario: ResolvedScenario; issues: [] } | { scenario: null; issues: ScenarioIssue[] } {
   const shown = displayPath(file);
-  let text: string;
+  const read = readRegularFile(file);
+  if ("why" in read)
+    return { scenario: null, issues: [{ file: shown, line: 1, column: 1, path: "", message: `the path ${read.why}` }] };
   try {
-    text = readFileSync(file, "utf8");
-  } catch (e) {
-    const why = (e as NodeJS.ErrnoException).code ?? (e as Error).message;
-    return {
-      scenario: null,
-      issues: [{ file: shown, line: 1, column: 1, path: "", message: `cannot read the file (${why})` }],
-    };
-  }
-  try {
-    return { scenario: loadScenario(text, shown), issues: [] };
+    return { scenario: loadScenario(decodeScenarioText(read.bytes, shown), shown), issues: [] };
   } catch (e) {
     if (!(e instanceof ScenarioInputError)) throw e;
     return { scenario: null, issues: e.issues };

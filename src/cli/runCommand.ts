@@ -1,6 +1,6 @@
 import { join, sep } from "node:path";
-import { formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
-import { buildTablesDocument } from "../tables/buildTablesDocument.js";
+import { ScenarioInputError, formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
+import { computeTables } from "./computeTables.js";
 import { tablesCsv } from "../tables/tablesCsv.js";
 import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
 import { loadScenarioFiles } from "./readScenarioFile.js";
@@ -28,6 +28,17 @@ export async function runCommand(
   const { scenarios, issues } = loadScenarioFiles(files);
   if (issues.length > 0) return reportIssues(issues);
   if (command === "check") {
+    // check computes every model in memory too, so that a model the engine cannot compute is refused here, located.
+    const computeIssues: ScenarioIssue[] = [];
+    for (const s of scenarios) {
+      try {
+        computeTables(s);
+      } catch (e) {
+        if (!(e instanceof ScenarioInputError)) throw e;
+        computeIssues.push(...e.issues);
+      }
+    }
+    if (computeIssues.length > 0) return reportIssues(computeIssues);
     for (const s of scenarios) {
       const warnings = s.models.flatMap((m) => m.warnings.map((w) => `${s.source.path}: model ${m.id}: ${w}`));
       for (const w of warnings) process.stderr.write(`warning: ${w}\n`);
@@ -42,10 +53,10 @@ export async function runCommand(
     return 2;
   }
   const outputs: { dir: string; files: Record<string, string> }[] = [];
-  const docs: ReturnType<typeof buildTablesDocument>[] = [];
+  const docs: ReturnType<typeof computeTables>[] = [];
   scenarios.forEach((s, i) => {
     if (progress) process.stderr.write(`[${i + 1}/${scenarios.length}] computing ${s.source.path}\n`);
-    const doc = buildTablesDocument(s);
+    const doc = computeTables(s);
     docs.push(doc);
     if (!options.json) {
       outputs.push({

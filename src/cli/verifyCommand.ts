@@ -7,6 +7,7 @@ import { frozenInputs } from "../contract/versionRecord.js";
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError } from "../scenario/scenarioIssue.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
+import { ModelComputeError } from "../tables/modelComputeError.js";
 import { ENGINE_TOLERANCE, ENGINE_VERSION } from "../engine/index.js";
 
 /** Exit status of `verify --strict` when the archive is intact but the current code no longer reproduces it unexplained. */
@@ -74,7 +75,14 @@ export function verifyCommand(options: {
         problems.push(
           `${label}: the current resolver gives different inputs (a default or an inheritance rule changed)`,
         );
-      const c = compareWithRecomputed(v.tables, buildTablesDocument(scenario));
+      let c: ReturnType<typeof compareWithRecomputed>;
+      try {
+        c = compareWithRecomputed(v.tables, buildTablesDocument(scenario));
+      } catch (e) {
+        if (!(e instanceof ModelComputeError)) throw e;
+        problems.push(`${label}: the current engine cannot compute it: ${e.message}`);
+        continue;
+      }
       for (const q of c.added) added.set(q, [...(added.get(q) ?? []), label]);
       for (const q of c.removed) removed.set(q, [...(removed.get(q) ?? []), label]);
       for (const s of c.shape) problems.push(`${label}: ${s}`);

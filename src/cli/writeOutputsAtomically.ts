@@ -1,3 +1,4 @@
+import { makeFolders } from "../common/makeFolders.js";
 import {
   closeSync,
   existsSync,
@@ -9,6 +10,7 @@ import {
   readdirSync,
   renameSync,
   rmSync,
+  statSync,
   writeFileSync,
 } from "node:fs";
 import { randomBytes } from "node:crypto";
@@ -113,6 +115,16 @@ function cleanLeftovers(parent: string): void {
  */
 export function writeOutputsAtomically(folders: { dir: string; files: Record<string, string | Buffer> }[]): void {
   for (const f of folders) {
+    for (let parent = dirname(f.dir); ; parent = dirname(parent)) {
+      if (existsSync(parent)) {
+        if (!lstatSync(parent).isDirectory() && !statSync(parent).isDirectory())
+          throw new OutputRefusedError(
+            `refusing to write ${f.dir}: ${parent} is a file, not a folder; choose another --out`,
+          );
+        break;
+      }
+      if (dirname(parent) === parent) break;
+    }
     const why = refusal(f.dir);
     if (why) throw new OutputRefusedError(why);
   }
@@ -121,7 +133,7 @@ export function writeOutputsAtomically(folders: { dir: string; files: Record<str
   try {
     for (const f of folders) {
       const parent = dirname(f.dir);
-      mkdirSync(parent, { recursive: true });
+      makeFolders(parent);
       const tmp = join(parent, `.${basename(f.dir)}.writing-${process.pid}-${randomBytes(4).toString("hex")}`);
       mkdirSync(tmp);
       staged.push({ dir: f.dir, tmp });

@@ -5,6 +5,7 @@
  */
 
 /** Every line break and control character (C0, C1, U+2028/2029) becomes one space: one line, whatever the text. */
+// biome-ignore lint/suspicious/noControlCharactersInRegex: control characters are exactly what is removed
 export const oneLine = (s: string) => s.replace(/\r\n|[\u0000-\u001f\u007f-\u009f\u2028\u2029]/g, " ");
 
 /**

@@ -3,6 +3,10 @@ import { ScenarioInputError, formatPath, type ScenarioIssue } from "./scenarioIs
 
 /** Largest number of alias expansions accepted (a guard against alias bombs). */
 export const MAX_ALIAS_COUNT = 200;
+/** Largest number of mapping keys in one file (a 1,000-model scenario has about 15,000). */
+export const MAX_KEY_COUNT = 50_000;
+/** At most this many problems are listed per file; the rest are counted. Keeps rejection linear in the file size. */
+export const MAX_LISTED_PROBLEMS = 100;
 
 export interface Position {
   line: number;
@@ -26,7 +30,8 @@ export function parseScenarioYaml(text: string, file: string): ParsedYaml {
   const lines = new LineCounter();
   const doc = parseDocument(text, {
     lineCounter: lines,
-    uniqueKeys: true,
+    // Duplicate keys are found below with one set per mapping: the library's own check compares every pair.
+    uniqueKeys: false,
     prettyErrors: false,
     strict: true,
     version: "1.2",
@@ -69,6 +74,7 @@ export function parseScenarioYaml(text: string, file: string): ParsedYaml {
   const valuePos = new Map<string, number>();
   const problems: ScenarioIssue[] = [];
   let aliases = 0;
+  let keys = 0;
 
   const walk = (node: unknown, path: (string | number)[]): unknown => {
     const here = formatPath(path);
@@ -89,6 +95,7 @@ export function parseScenarioYaml(text: string, file: string): ParsedYaml {
     if (n?.range && !valuePos.has(here)) valuePos.set(here, n.range[0]);
     if (isMap(n)) {
       const out: Record<string, unknown> = {};
+      const seen = new Set<string>();
       for (const pair of n.items) {
         const k = isScalar(pair.key) ? pair.key.value : pair.key;
         if (typeof k !== "string" && typeof k !== "number") {
@@ -97,8 +104,22 @@ export function parseScenarioYaml(text: string, file: string): ParsedYaml {
           continue;
         }
         const key = String(k);
-        const childPath = [...path, key];
         const keyNode = pair.key as Node | null;
+        if (seen.has(key)) {
+          problems.push(issue(keyNode?.range?.[0] ?? 0, here, "duplicate key: each key may appear once in a mapping"));
+          continue;
+        }
+        seen.add(key);
+        if (++keys > MAX_KEY_COUNT) {
+          throw new ScenarioInputError([
+            issue(
+              keyNode?.range?.[0] ?? 0,
+              here,
+              `more than ${MAX_KEY_COUNT} keys: refusing (a scenario needs far fewer)`,
+            ),
+          ]);
+        }
+        const childPath = [...path, key];
         if (keyNode?.range) keyPos.set(formatPath(childPath), keyNode.range[0]);
         const child = walk(pair.value, childPath);
         Object.defineProperty(out, key, { value: child, enumerable: true, writable: true, configurable: true });

@@ -364,6 +364,8 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     targets,
     surveys,
     defaults_applied: defaultsApplied,
-    source: { path: parsed.file, text: sourceText },
+    // The recorded name is the file's own name: documents and versions never depend on where a command ran,
+    // and never hold a path of the builder's machine.
+    source: { path: parsed.file, name: parsed.file.split(/[\\/]/).pop() ?? parsed.file, text: sourceText },
   };
 }

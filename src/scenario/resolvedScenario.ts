@@ -77,5 +77,6 @@ export interface ResolvedScenario {
   surveys: ResolvedSurvey[];
   /** Scenario-level keys that took their defaults. */
   defaults_applied: string[];
-  source: { path: string; text: string };
+  /** The file as given on the command line (for messages), its own name (recorded in documents), and its text. */
+  source: { path: string; name: string; text: string };
 }

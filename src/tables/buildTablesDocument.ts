@@ -8,6 +8,9 @@ import {
   FLATNESS_THRESHOLD,
   REDSHIFT_COLUMN_KEYS,
   BAO_KEYS,
+  NoBigBangError,
+  NoSuchRedshiftError,
+  QuadratureError,
   backgroundSummary,
   physicalBaryonDensity,
   baoRatios,
@@ -20,6 +23,7 @@ import {
 import type { ResolvedModel, ResolvedScenario } from "../scenario/resolvedScenario.js";
 import { DEFAULT_W0, DEFAULT_WA } from "../scenario/resolveScenario.js";
 import { gridRedshifts } from "./gridRedshifts.js";
+import { ModelComputeError, nullNonFinite } from "./modelComputeError.js";
 import { targetRows } from "./targetRows.js";
 import { surveyRows } from "./surveyRows.js";
 import { differencesFromBaseline } from "./differences.js";
@@ -145,7 +149,34 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
 export function buildTablesDocument(s: ResolvedScenario): TablesDocument {
   const grid = gridRedshifts(s.grid);
   const inputs = frozenInputs(s);
-  const models = s.models.map((m) => modelTables(m, s, grid));
+  const models = s.models.map((m, i) => {
+    let tables: ModelTables;
+    try {
+      tables = modelTables(m, s, grid);
+    } catch (e) {
+      // The engine throws rather than return an unconverged number; the model is then refused where it is written.
+      if (
+        e instanceof QuadratureError ||
+        e instanceof NoBigBangError ||
+        e instanceof RangeError ||
+        e instanceof NoSuchRedshiftError
+      ) {
+        throw new ModelComputeError(
+          i,
+          m.id,
+          `${(e as Error).message}; the engine cannot compute this model to its relative accuracy ${ENGINE_TOLERANCE} (it is probably very close to a static or loitering model)`,
+        );
+      }
+      throw e;
+    }
+    // A number beyond double precision (an extreme but valid input) is stored as null, with a note; never Infinity.
+    const overflowed = nullNonFinite(tables);
+    if (overflowed > 0)
+      tables.warnings.push(
+        `${overflowed} value${overflowed === 1 ? "" : "s"} beyond double precision (infinite or undefined) reported as null`,
+      );
+    return tables;
+  });
   const baseline = models.find((m) => m.id === s.baseline)!;
   const differences: TablesDocument["differences"] = {};
   for (const m of models) if (m.id !== s.baseline) differences[m.id] = differencesFromBaseline(m, baseline);
@@ -161,7 +192,7 @@ export function buildTablesDocument(s: ResolvedScenario): TablesDocument {
       author: s.author,
       tags: s.tags,
       baseline: s.baseline,
-      source_path: s.source.path,
+      source_path: s.source.name,
       source_sha256: sha256(s.source.text),
       inputs_sha256: inputsSha256(ENGINE_VERSION, inputs),
       defaults_applied: s.defaults_applied,

@@ -1,0 +1,39 @@
+import { closeSync, constants, fstatSync, lstatSync, openSync, readFileSync } from "node:fs";
+
+/**
+ * The bytes of a regular file, or why it cannot be read as a scenario. Opened without blocking and checked with
+ * fstat before reading, so a FIFO or device named *.yaml is refused instead of hanging the command.
+ */
+export function readRegularFile(file: string): { bytes: Buffer } | { why: string } {
+  let fd: number;
+  try {
+    fd = openSync(file, constants.O_RDONLY | constants.O_NONBLOCK);
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    if (code === "ENOENT" && isLink(file)) return { why: "is a symbolic link whose target does not exist" };
+    if (code === "ENOENT") return { why: "does not exist" };
+    if (code === "EACCES" || code === "EPERM") return { why: `cannot be read: permission denied (${code})` };
+    return { why: `cannot be read (${code ?? (e as Error).message})` };
+  }
+  try {
+    const st = fstatSync(fd);
+    if (st.isDirectory()) return { why: "is a folder, not a scenario file" };
+    if (!st.isFile()) return { why: "is not a regular file (a FIFO, socket or device); only regular files are read" };
+    return { bytes: readFileSync(fd) };
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    return {
+      why: code === "EISDIR" ? "is a folder, not a scenario file" : `cannot be read (${code ?? (e as Error).message})`,
+    };
+  } finally {
+    closeSync(fd);
+  }
+}
+
+export const isLink = (file: string) => {
+  try {
+    return lstatSync(file).isSymbolicLink();
+  } catch {
+    return false;
+  }
+};
