@@ -66,8 +66,10 @@ export function freezeScenario(
   makeFolders(folder);
   for (let attempt = 0; attempt < RETRIES; attempt++) {
     const issues: ArchiveIssue[] = [];
-    const { versions } = readScenarioArchive(folder, scenario.id, issues);
+    // The head record first: heads only move forward after a version is published, so the folder read next holds
+    // at least what they record, even while other freezes run.
     const { heads, issue } = readHeads(archiveDir);
+    const { versions } = readScenarioArchive(folder, scenario.id, issues);
     if (issue) issues.push(issue);
     const newest = versions.at(-1);
     if (heads && issues.length === 0) {

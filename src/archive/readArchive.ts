@@ -47,6 +47,8 @@ export function readArchive(archiveDir: string): { archives: ScenarioArchive[]; 
   const kind = pathKind(archiveDir);
   if (kind === "missing") return { archives, issues };
   if (kind !== "folder") return { archives, issues: [{ file: displayPath(archiveDir), message: KIND_PROBLEM[kind] }] };
+  // Heads first (they only move forward after a publish), then the folders: never a false "lost" during a freeze.
+  const { heads, issue } = readHeads(archiveDir);
   for (const id of readdirSync(archiveDir).filter(visible).sort()) {
     const folder = join(archiveDir, id);
     const k = pathKind(folder);
@@ -63,7 +65,6 @@ export function readArchive(archiveDir: string): { archives: ScenarioArchive[]; 
     }
     archives.push(readScenarioArchive(folder, id, issues));
   }
-  const { heads, issue } = readHeads(archiveDir);
   if (issue) issues.push(issue);
   if (heads) {
     const newest = new Map<string, { version: number; sha256: string }>();

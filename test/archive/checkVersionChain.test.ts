@@ -22,7 +22,7 @@ function chain(n: number): VersionRecord[] {
           created: `2026-01-0${v}T00:00:00.000Z`,
           message: `v${v}`,
           previous_sha256: out.at(-1)?.sha256 ?? null,
-          source: s.source,
+          source: { path: s.source.name, text: s.source.text },
           inputs: frozenInputs(s),
           tables: buildTablesDocument(s),
         },

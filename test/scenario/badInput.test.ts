@@ -48,10 +48,10 @@ describe("bad input gives located, actionable errors", () => {
   it("wrong type: flat: maybe", () =>
     expectIssue(`title: t\nmodels:\n${GOOD_MODEL}    flat: maybe\n`, 6, 11, "models[0].flat", /must be true/));
   for (const [key, value, re] of [
-    ["H0", "0", /must be > 0/],
-    ["H0", "-70", /must be > 0/],
+    ["H0", "0", /must be >= 0.01 \(got 0\)/],
+    ["H0", "-70", /must be >= 0.01 \(got -70\)/],
     ["Omega_m", "-0.1", /must be >= 0/],
-    ["T_cmb", "-1", /must be > 0/],
+    ["T_cmb", "-1", /must be >= 0.01 \(got -1\)/],
     ["N_eff", "-3", /must be >= 0/],
   ] as const) {
     it(`out of range: ${key}: ${value}`, () => {
