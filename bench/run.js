@@ -3,6 +3,7 @@ import { runEngineBench } from "./engine.js";
 import { runComputeBench } from "./compute.js";
 import { runSiteBench } from "./site.js";
 import { runArchiveBench } from "./archive.js";
+import { runLimitsBench } from "./limits.js";
 
 const engine = runEngineBench();
 console.log(`engine: ${engine.points} points (8 models x 2000 redshifts, z 0..20, all per-redshift quantities)`);
@@ -38,6 +39,11 @@ console.log(
 console.log(
   `  verify ${archive.versions} versions (hashes, chain, recompute): ${archive.verifyMs.toFixed(0)} ms; build with ${archive.versions} version pages and every diff pair (--skip-images): ${(archive.buildMs / 1000).toFixed(2)} s`,
 );
+const limits = runLimitsBench();
+for (const l of limits)
+  console.log(
+    `limits: ${l.name}: compute ${l.compute.seconds.toFixed(1)} s, peak ${l.compute.peakMB.toFixed(0)} MB; build ${l.build.seconds.toFixed(1)} s, peak ${l.build.peakMB.toFixed(0)} MB (2 GB heap)`,
+  );
 console.log(
   JSON.stringify({
     points: engine.points,
@@ -52,5 +58,6 @@ console.log(
     freeze_ms: Number(archive.freezeMedianMs.toFixed(1)),
     verify_20_ms: Number(archive.verifyMs.toFixed(1)),
     build_20_versions_s: Number((archive.buildMs / 1000).toFixed(2)),
+    limits_peak_mb: Math.max(...limits.flatMap((l) => [l.compute.peakMB, l.build.peakMB])),
   }),
 );

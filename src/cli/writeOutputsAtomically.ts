@@ -66,6 +66,8 @@ function namesWeWrote(dir: string): Set<string> | null {
 
 /** Why an existing output folder may not be replaced, or null when it may (absent, empty, or entirely ours). */
 function refusal(dir: string): string | null {
+  if (isDanglingLink(dir))
+    return `refusing to write ${dir}: it is a symbolic link whose target does not exist; remove the link or choose another --out`;
   if (!existsSync(dir)) return null;
   if (!lstatSync(dir).isDirectory())
     return `refusing to write ${dir}: it exists and is not a folder; choose another --out`;
@@ -106,6 +108,14 @@ function cleanLeftovers(parent: string): void {
   }
 }
 
+function isDanglingLink(path: string): boolean {
+  try {
+    return lstatSync(path).isSymbolicLink();
+  } catch {
+    return false;
+  }
+}
+
 /**
  * Writes every output folder whole or not at all. Each folder is built aside (`.<name>.writing-*` beside it, every file
  * flushed), then swapped in: the old folder is moved aside, the new one renamed into place, the old one removed. So a
@@ -116,6 +126,10 @@ function cleanLeftovers(parent: string): void {
 export function writeOutputsAtomically(folders: { dir: string; files: Record<string, string | Buffer> }[]): void {
   for (const f of folders) {
     for (let parent = dirname(f.dir); ; parent = dirname(parent)) {
+      if (!existsSync(parent) && isDanglingLink(parent))
+        throw new OutputRefusedError(
+          `refusing to write ${f.dir}: ${parent} is a symbolic link whose target does not exist; create the target folder or choose another --out`,
+        );
       if (existsSync(parent)) {
         if (!lstatSync(parent).isDirectory() && !statSync(parent).isDirectory())
           throw new OutputRefusedError(

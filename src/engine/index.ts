@@ -28,3 +28,4 @@ export * from "./fermiDiracEnergy.js";
 export * from "./baoRatios.js";
 export * from "./declaredChanges.js";
 export * from "./targetObservables.js";
+export * from "./slowestPastExpansion.js";

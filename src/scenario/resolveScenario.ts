@@ -24,7 +24,10 @@ export const DEFAULT_GRID_POINTS = 200;
 export const DEFAULT_W0 = -1;
 export const DEFAULT_WA = 0;
 /** Largest number of (model, redshift) evaluations one scenario may ask for. */
-export const MAX_WORK_POINTS = 5_000_000;
+/** At most this many model-redshift evaluations in the tables (redshifts, targets, survey edges): each is ~1.4 kB of JSON. */
+export const MAX_TABLE_EVALUATIONS = 20_000;
+/** At most this many model-redshift evaluations on the chart grid: each is ~0.35 kB of JSON. */
+export const MAX_GRID_EVALUATIONS = 100_000;
 
 const CURVATURE_KEYS: CurvatureKey[] = ["flat", "Omega_k", "Omega_de", "Omega_Lambda"];
 const BARYON_KEYS = ["Omega_b", "omega_b"] as const;
@@ -342,11 +345,19 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     });
   });
 
-  const work = rawModels.length * (redshifts.length + grid.points + targets.length + 2 * surveys.length);
-  if (work > MAX_WORK_POINTS) {
+  // Limits sized so that a scenario at both computes in ~0.5 GB and builds its page in ~1.1 GB (npm run bench).
+  const tableWork = rawModels.length * (redshifts.length + targets.length + 2 * surveys.length);
+  if (tableWork > MAX_TABLE_EVALUATIONS) {
     fail(
       ["models"],
-      `this scenario asks for ${work} model-redshift evaluations; at most ${MAX_WORK_POINTS} are allowed (fewer models, redshifts or grid points)`,
+      `this scenario asks for ${tableWork} table evaluations (models x (redshifts + targets + 2 x surveys)); at most ${MAX_TABLE_EVALUATIONS} are allowed (fewer models, redshifts, targets or surveys)`,
+    );
+  }
+  const gridWork = rawModels.length * grid.points;
+  if (gridWork > MAX_GRID_EVALUATIONS) {
+    fail(
+      grid.points > 200 ? ["grid", "points"] : ["models"],
+      `this scenario asks for ${gridWork} chart-grid evaluations (models x grid points); at most ${MAX_GRID_EVALUATIONS} are allowed (fewer models or grid points)`,
     );
   }
   if (issues.length > 0) throw new ScenarioInputError(issues);

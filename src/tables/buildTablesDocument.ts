@@ -17,6 +17,7 @@ import {
   earlyUniverse,
   redshiftAtComovingDistance,
   redshiftTable,
+  slowestPastExpansion,
   type BaoColumns,
   type RedshiftColumns,
 } from "../engine/index.js";
@@ -145,6 +146,17 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
   };
 }
 
+/** Why the engine gave up on a model, with how close it comes to a static or loitering one (smallest past H^2). */
+function nearCriticalNote(m: ResolvedModel, e: unknown): string {
+  const cannot = `the engine cannot compute this model to its relative accuracy ${ENGINE_TOLERANCE}`;
+  if (e instanceof NoBigBangError) return cannot;
+  const slowest = slowestPastExpansion(m.background);
+  if (!(slowest.E2 < 1e-3)) return cannot;
+  if (slowest.E2 <= 0)
+    return `this model has no big bang: going back in time (H/H0)^2 falls to ${slowest.E2.toPrecision(2)} near z = ${slowest.z.toPrecision(4)}, so its expansion turned around there, within a hair of the static model; lower Omega_de, raise Omega_m or add radiation`;
+  return `${cannot}: it is very close to a static or loitering model (going back in time, (H/H0)^2 falls to ${slowest.E2.toPrecision(2)} at z = ${slowest.z.toPrecision(4)}; 0 there would be a static point). Move Omega_de or Omega_m away from that critical model`;
+}
+
 /** Resolved scenario -> tables document (pure apart from hashing; deterministic: the same input gives the same bytes). */
 export function buildTablesDocument(s: ResolvedScenario): TablesDocument {
   const grid = gridRedshifts(s.grid);
@@ -161,11 +173,7 @@ export function buildTablesDocument(s: ResolvedScenario): TablesDocument {
         e instanceof RangeError ||
         e instanceof NoSuchRedshiftError
       ) {
-        throw new ModelComputeError(
-          i,
-          m.id,
-          `${(e as Error).message}; the engine cannot compute this model to its relative accuracy ${ENGINE_TOLERANCE} (it is probably very close to a static or loitering model)`,
-        );
+        throw new ModelComputeError(i, m.id, `${(e as Error).message}; ${nearCriticalNote(m, e)}`);
       }
       throw e;
     }

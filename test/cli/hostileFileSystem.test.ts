@@ -104,6 +104,26 @@ describe("the file system says no", { timeout: 180_000 }, () => {
     expect(temps(dir)).toEqual([]);
   });
 
+  it("--out or OUT/<id> that is a dangling symbolic link is refused by name (exit 2) and the link is kept", () => {
+    const dir = tempDir();
+    writeFileSync(join(dir, "good.yaml"), GOOD);
+    symlinkSync(join(dir, "gone"), join(dir, "link-out"));
+    refused(
+      cli(["compute", "good.yaml", "--out", "link-out"], dir),
+      2,
+      /link-out is a symbolic link whose target does not exist/,
+    );
+    mkdirSync(join(dir, "out"));
+    symlinkSync(join(dir, "gone-too"), join(dir, "out/good"));
+    refused(
+      cli(["compute", "good.yaml", "--out", "out"], dir),
+      2,
+      /out\/good: it is a symbolic link whose target does not exist/,
+    );
+    expect(readdirSync(join(dir, "out"))).toEqual(["good"]);
+    expect(temps(dir)).toEqual([]);
+  });
+
   it("a path the system refuses (permission, read-only, no such device) is one line and exit 4, nothing half-written", () => {
     const dir = tempDir();
     writeFileSync(join(dir, "good.yaml"), GOOD);
@@ -241,5 +261,23 @@ describe("limits that hold", { timeout: 300_000 }, () => {
     );
     for (const command of ["check", "compute"])
       refused(cli([command, "l.yaml"], dir), 2, /l\.yaml:3:\d+: models\[0\]: model a: .*cannot compute this model/);
+    // How close: with radiation off, E^2(x = 1 + z) = 0.1 x^3 + (0.9 - Omega_Lambda) x^2 + Omega_Lambda has its
+    // minimum at x = 3 (z = 2) for the critical model, where it equals 8 (1.35 - Omega_Lambda) = 8e-8 here.
+    refused(
+      cli(["check", "l.yaml"], dir),
+      2,
+      /\(H\/H0\)\^2 falls to 8\.0e-8 at z = 2\.000; 0 there would be a static point/,
+    );
+    // Just past the critical model it bounced: the scan for the turnaround misses so shallow a dip, and the
+    // message says so, with the (negative) depth, instead of an unexpected failure.
+    writeFileSync(
+      join(dir, "b.yaml"),
+      "title: T\nmodels:\n  - { id: a, H0: 70, Omega_m: 0.1, Omega_Lambda: 1.35000001, radiation: none }\n",
+    );
+    refused(
+      cli(["check", "b.yaml"], dir),
+      2,
+      /b\.yaml:3:\d+: models\[0\]: model a: .*no big bang: .*falls to -8\.0e-8 near z = 2\.000/,
+    );
   });
 });

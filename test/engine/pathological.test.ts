@@ -9,7 +9,7 @@ import {
   redshiftAtLookbackTime,
   redshiftTable,
 } from "../../src/engine/index.js";
-import { hubbleDistanceMpc } from "../helpers/referenceScales.js";
+import { hubbleDistanceMpc, hubbleTimeGyr } from "../helpers/referenceScales.js";
 import { modelOf, relErr } from "../helpers/modelOf.js";
 
 describe("models without a big bang are rejected, naming the turnaround redshift", () => {
@@ -86,6 +86,44 @@ describe("inverse look-ups", () => {
     expect(() => redshiftAtComovingDistance(modelOf({ Om: 1, Ode: 0 }), 3 * hubbleDistanceMpc(70))).toThrow(
       `must lie in (0, ${(2 * hubbleDistanceMpc(70)).toPrecision(10)})`,
     );
+  });
+});
+
+describe("ages near the big bang (issue 12: target notes must be true)", () => {
+  // Flat matter + radiation (Lambda negligible at z > 1e5): t(a) = 4 a_eq^2 / (3 H0 sqrt(Omega_r))
+  // [1 - (1 - a / (2 a_eq)) sqrt(1 + a / a_eq)], a_eq = Omega_r / Omega_m (Ryden, Introduction to Cosmology,
+  // 2nd ed., eq. 6.31 as recalled from memory; the a << a_eq limit t = a^2 / (2 H0 sqrt(Omega_r)) is eq. 6.33).
+  const Om = 0.3;
+  const Or = 8.5e-5;
+  const m = modelOf({ Om, Or, Ode: 1 - Om - Or });
+  const tHGyr = hubbleTimeGyr(70);
+  const closedFormAgeGyr = (z: number) => {
+    const a = 1 / (1 + z);
+    const aEq = Or / Om;
+    return ((4 * aEq * aEq) / (3 * Math.sqrt(Or))) * (1 - (1 - a / (2 * aEq)) * Math.sqrt(1 + a / aEq)) * tHGyr;
+  };
+  it("an age of 1e-9 Gyr is found (near z = 8.7e5), and the closed form gives that age there", () => {
+    const z = redshiftAtAge(m, 1e-9);
+    expect(z).toBeGreaterThan(1e5);
+    expect(relErr(closedFormAgeGyr(z), 1e-9)).toBeLessThan(1e-6);
+  });
+  it("the same epoch placed by lookback time (age today minus 1e-9 Gyr) is the same redshift", () => {
+    const age0 = backgroundSummary(m).summary.age_Gyr!;
+    const zAge = redshiftAtAge(m, 1e-9);
+    // age0 - 1e-9 is rounded to a double of age0's size: the age left is known to about 1e-15 Gyr only.
+    expect(relErr(redshiftAtLookbackTime(m, age0 - 1e-9), zAge)).toBeLessThan(1e-5);
+  });
+  it("an age reached only above z = 1e9 says so, with the age at z = 1e9 (and does not contradict itself)", () => {
+    const ageAtCeiling = closedFormAgeGyr(1e9);
+    expect(() => redshiftAtAge(m, 1e-20)).toThrow(NoSuchRedshiftError);
+    expect(() => redshiftAtAge(m, 1e-20)).toThrow(
+      `an age of 1e-20 Gyr is reached only above z = 1000000000 (the age there is ${ageAtCeiling.toPrecision(3)} Gyr)`,
+    );
+  });
+  it("a comoving distance just inside the particle horizon is reached, above the old bracket's stopping point", () => {
+    const horizon = backgroundSummary(m).summary.particle_horizon_Mpc!;
+    const z = redshiftAtComovingDistance(m, horizon * (1 - 1e-6));
+    expect(z).toBeGreaterThan(1e3);
   });
 });
 

@@ -146,25 +146,45 @@ describe("bad input gives located, actionable errors", () => {
       /add a line such as "id: my-scenario"/,
     );
   });
-  it("more than 1,000 models", () => {
-    const models = Array.from({ length: 1001 }, (_, i) => `  - { id: m${i}, H0: 70, Omega_m: 0.3 }\n`).join("");
-    expectIssue(`title: t\nmodels:\n${models}`, 3, 3, "models", /at most 1000 items/);
+  it("more than 500 models", () => {
+    const models = Array.from({ length: 501 }, (_, i) => `  - { id: m${i}, H0: 70, Omega_m: 0.3 }\n`).join("");
+    expectIssue(`title: t\nmodels:\n${models}`, 3, 3, "models", /at most 500 items/);
   });
-  it("more than 100,000 redshift points", () => {
+  it("more than 10,000 table redshifts or 20,000 grid points", () => {
     expectIssue(
-      `title: t\nredshifts: [${Array.from({ length: 100001 }, () => "1").join(",")}]\nmodels:\n${GOOD_MODEL}`,
+      `title: t\nredshifts: [${Array.from({ length: 10001 }, () => "1").join(",")}]\nmodels:\n${GOOD_MODEL}`,
       2,
       12,
       "redshifts",
-      /at most 100000 items/,
+      /at most 10000 items/,
+    );
+    expectIssue(`title: t\ngrid: { points: 20001 }\nmodels:\n${GOOD_MODEL}`, 2, 17, "grid.points", /must be <= 20000/);
+  });
+  it("more than 20,000 table or 100,000 grid evaluations (the documented limits), each list within its own", () => {
+    const models = (n: number) =>
+      Array.from({ length: n }, (_, i) => `  - { id: m${i}, H0: 70, Omega_m: 0.3 }\n`).join("");
+    const zs = Array.from({ length: 1001 }, (_, i) => (i / 100).toString()).join(",");
+    expectIssue(
+      `title: t\nredshifts: [${zs}]\ngrid: { points: 10 }\nmodels:\n${models(20)}`,
+      5,
+      3,
+      "models",
+      /20020 table evaluations .* at most 20000/,
     );
     expectIssue(
-      `title: t\ngrid: { points: 100001 }\nmodels:\n${GOOD_MODEL}`,
-      2,
+      `title: t\nredshifts: [1]\ngrid: { points: 5001 }\nmodels:\n${models(20)}`,
+      3,
       17,
       "grid.points",
-      /must be <= 100000/,
+      /100020 chart-grid evaluations .* at most 100000/,
     );
+    // Exactly at both limits: accepted.
+    expect(() =>
+      loadScenario(
+        `title: t\nredshifts: [${zs.split(",").slice(0, 1000).join(",")}]\ngrid: { points: 5000 }\nmodels:\n${models(20)}`,
+        "t.yaml",
+      ),
+    ).not.toThrow();
   });
   it("YAML alias bombs are refused", () => {
     const bomb =
