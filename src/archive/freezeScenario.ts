@@ -1,4 +1,5 @@
-import { makeFolders } from "../common/makeFolders.js";
+import { makeFolders, removeEmptyFolders } from "../common/makeFolders.js";
+import { namePathOnError } from "../common/namePathOnError.js";
 import { closeSync, constants, copyFileSync, fsyncSync, linkSync, openSync, rmSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { randomBytes } from "node:crypto";
@@ -63,7 +64,23 @@ export function freezeScenario(
   now: () => Date = () => new Date(),
 ): FreezeOutcome {
   const folder = join(archiveDir, scenario.id);
-  makeFolders(folder);
+  const made = makeFolders(folder);
+  try {
+    return freezeInto(archiveDir, folder, scenario, doc, message, now);
+  } catch (e) {
+    removeEmptyFolders(made); // a failed first freeze leaves no empty archive behind
+    throw e;
+  }
+}
+
+function freezeInto(
+  archiveDir: string,
+  folder: string,
+  scenario: ResolvedScenario,
+  doc: TablesDocument,
+  message: string,
+  now: () => Date,
+): FreezeOutcome {
   for (let attempt = 0; attempt < RETRIES; attempt++) {
     const issues: ArchiveIssue[] = [];
     // The head record first: heads only move forward after a version is published, so the folder read next holds
@@ -97,9 +114,11 @@ export function freezeScenario(
     );
     const final = join(folder, versionFileName(record.version));
     const tmp = join(folder, `.freeze-${process.pid}-${randomBytes(6).toString("hex")}.tmp`);
-    writeFileSync(tmp, `${JSON.stringify(record)}\n`, { flag: "wx" });
     try {
-      fsyncPath(tmp, "r+");
+      namePathOnError(final, () => {
+        writeFileSync(tmp, `${JSON.stringify(record)}\n`, { flag: "wx" });
+        fsyncPath(tmp, "r+");
+      });
       publish(tmp, final);
     } catch (e) {
       if ((e as NodeJS.ErrnoException).code === "EEXIST") continue; // another freeze took this number first

@@ -1,3 +1,4 @@
+import { namePathOnError } from "../common/namePathOnError.js";
 import { closeSync, existsSync, fsyncSync, openSync, readFileSync, renameSync, rmSync, writeSync } from "node:fs";
 import { join } from "node:path";
 import { randomBytes } from "node:crypto";
@@ -96,14 +97,21 @@ export function recordHead(archiveDir: string, id: string, head: Head): void {
         .map((k) => [k, next[k]]),
     );
     const tmp = join(archiveDir, `.heads-${process.pid}-${randomBytes(4).toString("hex")}.tmp`);
-    const fd = openSync(tmp, "wx");
-    try {
-      writeSync(fd, `${JSON.stringify({ format: HEADS_FORMAT, heads: sorted }, null, 1)}\n`);
-      fsyncSync(fd);
-    } finally {
-      closeSync(fd);
-    }
-    renameSync(tmp, join(archiveDir, HEADS_FILE));
+    const file = join(archiveDir, HEADS_FILE);
+    namePathOnError(
+      file,
+      () => {
+        const fd = openSync(tmp, "wx");
+        try {
+          writeSync(fd, `${JSON.stringify({ format: HEADS_FORMAT, heads: sorted }, null, 1)}\n`);
+          fsyncSync(fd);
+        } finally {
+          closeSync(fd);
+        }
+        renameSync(tmp, file);
+      },
+      () => rmSync(tmp, { force: true }),
+    );
   });
 }
 

@@ -1,5 +1,6 @@
-import { makeFolders } from "../common/makeFolders.js";
-import { existsSync, readdirSync, realpathSync, renameSync, rmSync, statSync } from "node:fs";
+import { namePathOnError } from "../common/namePathOnError.js";
+import { makeFolders, removeEmptyFolders } from "../common/makeFolders.js";
+import { existsSync, mkdirSync, readdirSync, realpathSync, renameSync, rmSync, statSync } from "node:fs";
 import { isLink } from "../common/readRegularFile.js";
 import { basename, dirname, join, resolve } from "node:path";
 import { PACKAGE_ROOT } from "../common/toolVersion.js";
@@ -70,20 +71,34 @@ export async function buildSite(
   const stamp = `${process.pid}-${Date.now()}`;
   const tmp = `${out}.building-${stamp}`;
   const old = `${out}.previous-${stamp}`;
-  makeFolders(dirname(out));
+  const made = makeFolders(dirname(out));
   setSiteLedger(ledger);
   const cwd = process.cwd();
+  let lateRefusal: unknown = null;
   try {
     process.chdir(PACKAGE_ROOT); // Eleventy resolves the config, content/ and passthrough paths from here
+    namePathOnError(outDir, () => mkdirSync(tmp)); // a refused folder fails here, before Eleventy's parallel writes
+    // Eleventy's parallel writes (passthrough copies) can fail after, or without, the write() call failing: a late
+    // refusal is the one already reported, and what such writes leave is removed again when the process ends.
+    process.on("unhandledRejection", (late) => {
+      if (!systemRefusalInside(late, outDir)) throw late;
+      lateRefusal ??= late;
+    });
+    process.on("exit", () => {
+      if (existsSync(tmp)) rmSync(tmp, { recursive: true, force: true });
+    });
     const { Eleventy } = await import("@11ty/eleventy");
     process.env.COSMOLEDGER_SITE_OUT = tmp;
     const eleventy = new Eleventy("content", tmp, { configPath: ".eleventy.js", quietMode: true });
     eleventy.disableLogger(); // cosmoledger reports the build itself; Eleventy's errors still arrive as exceptions
     await eleventy.write();
+    if (lateRefusal) throw lateRefusal;
     if (!existsSync(join(tmp, SITE_MARKER))) throw new Error("Eleventy finished without writing the site marker");
   } catch (e) {
     rmSync(tmp, { recursive: true, force: true });
-    throw e;
+    removeEmptyFolders(made);
+    process.on("exit", () => removeEmptyFolders(made));
+    throw systemRefusalInside(e, outDir) ?? e;
   } finally {
     process.chdir(cwd);
     delete process.env.COSMOLEDGER_SITE_OUT;
@@ -98,6 +113,24 @@ export async function buildSite(
       `built ${ledger.docs.length} scenario page${ledger.docs.length === 1 ? "" : "s"} and ${frozen} frozen version page${frozen === 1 ? "" : "s"} into ${outDir}/\n`,
     );
   return 0;
+}
+
+/**
+ * Eleventy wraps a write that the file system refused (full disk, permission) in its own error; the refusal found
+ * along the cause chain, renamed to the site folder the user chose, so that it gets the file-system exit status.
+ */
+function systemRefusalInside(error: unknown, outDir: string): NodeJS.ErrnoException | null {
+  const seen = new Set<unknown>();
+  for (let e = error as { code?: unknown; cause?: unknown; originalError?: unknown } | undefined; e && !seen.has(e); ) {
+    seen.add(e);
+    if (typeof e.code === "string" && /^E[A-Z]+$/.test(e.code)) {
+      const refusal = e as NodeJS.ErrnoException;
+      refusal.path = outDir;
+      return refusal;
+    }
+    e = (e.originalError ?? e.cause) as typeof e;
+  }
+  return null;
 }
 
 const alive = (pid: number) => {

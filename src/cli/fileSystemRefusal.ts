@@ -1,6 +1,6 @@
 import { displayPath } from "../common/displayPath.js";
 
-/** Exit status when the file system refuses (permission, read-only, full disk, a path of the wrong kind). */
+/** Exit status when the system refuses (permission, read-only, full disk, quota); a path of the wrong kind is 2. */
 export const FILE_SYSTEM_EXIT = 4;
 
 const ADVICE: Record<string, string> = {

@@ -1,4 +1,4 @@
-import { makeFolders } from "../common/makeFolders.js";
+import { makeFolders, removeEmptyFolders } from "../common/makeFolders.js";
 import {
   closeSync,
   existsSync,
@@ -144,10 +144,11 @@ export function writeOutputsAtomically(folders: { dir: string; files: Record<str
   }
   for (const parent of new Set(folders.map((f) => dirname(f.dir)))) cleanLeftovers(parent);
   const staged: { dir: string; tmp: string }[] = [];
+  const made: string[] = [];
   try {
     for (const f of folders) {
       const parent = dirname(f.dir);
-      makeFolders(parent);
+      made.push(...makeFolders(parent));
       const tmp = join(parent, `.${basename(f.dir)}.writing-${process.pid}-${randomBytes(4).toString("hex")}`);
       mkdirSync(tmp);
       staged.push({ dir: f.dir, tmp });
@@ -161,6 +162,10 @@ export function writeOutputsAtomically(folders: { dir: string; files: Record<str
     }
   } catch (e) {
     for (const s of staged) rmSync(s.tmp, { recursive: true, force: true });
+    removeEmptyFolders(made);
+    // Name the output folder the user chose, not the staging folder that is gone now.
+    const err = e as NodeJS.ErrnoException;
+    if (typeof err.code === "string") err.path = staged.at(-1)?.dir ?? folders[0]?.dir ?? err.path;
     throw e;
   }
   for (const s of staged) {

@@ -12,8 +12,9 @@ export function readRegularFile(file: string): { bytes: Buffer } | { why: string
     const code = (e as NodeJS.ErrnoException).code;
     if (code === "ENOENT" && isLink(file)) return { why: "is a symbolic link whose target does not exist" };
     if (code === "ENOENT") return { why: "does not exist" };
-    if (code === "EACCES" || code === "EPERM") return { why: `cannot be read: permission denied (${code})` };
-    return { why: `cannot be read (${code ?? (e as Error).message})` };
+    if (code === "ENOTDIR") return { why: "has a file where a folder should be in its path" };
+    // The system refused (permission, I/O error, too many open files): the command's file-system exit, not input.
+    throw e;
   }
   try {
     const st = fstatSync(fd);
@@ -22,9 +23,9 @@ export function readRegularFile(file: string): { bytes: Buffer } | { why: string
     return { bytes: readFileSync(fd) };
   } catch (e) {
     const code = (e as NodeJS.ErrnoException).code;
-    return {
-      why: code === "EISDIR" ? "is a folder, not a scenario file" : `cannot be read (${code ?? (e as Error).message})`,
-    };
+    if (code === "EISDIR") return { why: "is a folder, not a scenario file" };
+    (e as NodeJS.ErrnoException).path ??= file;
+    throw e;
   } finally {
     closeSync(fd);
   }

@@ -85,7 +85,7 @@ describe("compute writes each scenario's folder whole", { timeout: 120_000 }, ()
 
   it("a compute killed at any moment leaves the previous folder whole, and the next run leaves no temporary file", async () => {
     const dir = tempDir();
-    writeFileSync(join(dir, "s.yaml"), scenario(true, 40, 3000));
+    writeFileSync(join(dir, "s.yaml"), scenario(true, 30, 3000));
     expect(runCli(["compute", "s.yaml", "--out", "out"], dir).code).toBe(0);
     const complete = () => {
       const names = readdirSync(join(dir, "out/outfold"));
