@@ -19,6 +19,30 @@ function median(fn, runs) {
   return t[Math.floor(runs / 2)];
 }
 
+function run(args) {
+  const r = spawnSync(process.execPath, args, { encoding: "utf8" });
+  if (r.status !== 0) throw new Error(r.stderr);
+  return r.stdout;
+}
+
+function elapsedMs(fn) {
+  const t0 = process.hrtime.bigint();
+  fn();
+  return Number(process.hrtime.bigint() - t0) / 1e6;
+}
+
+/** Median over pairs of (command time / `node -e 0` time), the two run alternately. */
+function pairedRatio(fn, pairs) {
+  const ratios = [];
+  for (let i = 0; i < pairs; i++) {
+    const a = elapsedMs(fn);
+    const b = elapsedMs(() => spawnSync(process.execPath, ["-e", "0"]));
+    ratios.push(a / b);
+  }
+  ratios.sort((x, y) => x - y);
+  return ratios[Math.floor(pairs / 2)];
+}
+
 export function runComputeBench(runs = 7) {
   const dir = mkdtempSync(join(tmpdir(), "cosmoledger-bench-"));
   const file = join(dir, "bench.yaml");
@@ -40,12 +64,14 @@ export function runComputeBench(runs = 7) {
   const node = median(() => spawnSync(process.execPath, ["-e", "0"]), runs);
   const help = median(() => spawnSync(process.execPath, [BIN, "--help"]), runs);
   let out = 0;
-  const compute = median(() => {
-    const r = spawnSync(process.execPath, [BIN, "compute", file, "--out", join(dir, `out${out++}`)], {
-      encoding: "utf8",
-    });
-    if (r.status !== 0) throw new Error(r.stderr);
-  }, runs);
+  const computeArgs = () => [BIN, "compute", file, "--out", join(dir, `out${out++}`)];
+  const compute = median(() => run(computeArgs()), runs);
+  const quoteArgs = [BIN, "quote", "--model", "H0=70 Omega_m=0.3", "--z", "0.5,1,2"];
+  // Side by side: each command alternates with `node -e 0` and the ratio is taken pair by pair (a drifting machine
+  // speed cancels), then the median ratio is quoted.
+  const quoteRatio = pairedRatio(() => run(quoteArgs), runs * 2);
+  const computeRatio = pairedRatio(() => run(computeArgs()), runs * 2);
+  const phases = JSON.parse(run([join(ROOT, "bench/computePhases.js"), file, join(dir, "phases")]));
   rmSync(dir, { recursive: true, force: true });
-  return { nodeStartMs: node, helpMs: help, computeMs: compute };
+  return { nodeStartMs: node, helpMs: help, computeMs: compute, quoteRatio, computeRatio, phases };
 }

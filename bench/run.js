@@ -20,6 +20,14 @@ console.log(`  --help ${cli.helpMs.toFixed(0)} ms (${(cli.helpMs - cli.nodeStart
 console.log(
   `  compute, 8 models x (2000 grid + 20 table redshifts): ${cli.computeMs.toFixed(0)} ms (${(cli.computeMs - cli.nodeStartMs).toFixed(0)} ms beyond node)`,
 );
+console.log(
+  `  side by side with node -e 0 (median of pair ratios): quote of 1 model at 3 redshifts ${cli.quoteRatio.toFixed(2)}x; compute (as above) ${cli.computeRatio.toFixed(2)}x`,
+);
+console.log(
+  `  compute phases, one cold process: ${Object.entries(cli.phases)
+    .map(([k, v]) => `${k} ${v} ms`)
+    .join("; ")}`,
+);
 const site = runSiteBench();
 site.sizes.forEach((n, i) =>
   console.log(
@@ -52,6 +60,8 @@ console.log(
     max_rel_error: engine.maxRelError,
     help_ms_beyond_node: Number((cli.helpMs - cli.nodeStartMs).toFixed(1)),
     compute_ms_beyond_node: Number((cli.computeMs - cli.nodeStartMs).toFixed(1)),
+    quote_over_node: Number(cli.quoteRatio.toFixed(2)),
+    compute_over_node: Number(cli.computeRatio.toFixed(2)),
     site_200_s: Number(site.seconds[2].toFixed(2)),
     site_10_with_images_s: Number(site.imageSeconds.toFixed(2)),
     max_page_kb: Number(site.maxPageKB.toFixed(1)),

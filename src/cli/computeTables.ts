@@ -9,9 +9,9 @@ import type { TablesDocument } from "../contract/tablesDocument.js";
  * The tables document of a scenario; a model the engine cannot compute to its accuracy becomes a located input error
  * (file:line:column of the model, exit 2), never an unexpected failure.
  */
-export function computeTables(s: ResolvedScenario): TablesDocument {
+export function computeTables(s: ResolvedScenario, options: { chartGrid?: boolean } = {}): TablesDocument {
   try {
-    return buildTablesDocument(s);
+    return buildTablesDocument(s, options);
   } catch (e) {
     if (!(e instanceof ModelComputeError)) throw e;
     const at = parseScenarioYaml(s.source.text, s.source.path).locate(["models", e.modelIndex], "value");

@@ -1,8 +1,10 @@
 import { ScenarioInputError, formatIssue } from "../scenario/scenarioIssue.js";
 import { FILE_SYSTEM_EXIT, fileSystemRefusal } from "./fileSystemRefusal.js";
 import { parseArgs } from "node:util";
+import { QUOTE_HELP } from "./quoteHelp.js";
 
 const HELP: Record<string, string> = {
+  quote: QUOTE_HELP,
   main: `cosmoledger: compare FLRW background cosmologies from YAML scenario files.
 
 Usage: cosmoledger <command> [options]
@@ -18,6 +20,8 @@ Commands:
                             record the scenario as its next frozen version (default archive: beside FILE)
   verify [--archive DIR] [--strict] [--json] [--verbose]
                             check the archive's hashes and chains, and recompute every version
+  quote (--model "H0=70 Omega_m=0.3"... | FILE) --z 0.5,1,2 [--quantities D_A,scale] [--format F]
+                            print numbers for one or more models at a few redshifts, ages or distances
   export FILE [--version N] [--format F,...] [--out DIR]
                             write every table (csv json md tex html), chart (png svg) and the
                             assumptions paragraph of a scenario or of one frozen version
@@ -134,6 +138,10 @@ async function runMain(argv: string[]): Promise<number> {
     process.stdout.write(HELP[rest[0] ?? ""] ?? HELP.main);
     process.stdout.write("\n");
     return command === undefined ? 2 : 0;
+  }
+  if (command === "quote") {
+    const { quoteCommand } = await import("./quoteCommand.js");
+    return quoteCommand(rest);
   }
   if (!(command in HELP) || command === "main") {
     process.stderr.write(`cosmoledger: unknown command "${command}"\n\n${HELP.main}\n`);

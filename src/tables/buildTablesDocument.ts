@@ -58,6 +58,12 @@ function gridColumns(columns: Columns): RedshiftGrid {
   const out = {} as Record<(typeof ROW_KEYS)[number], Num[]>;
   for (const key of ROW_KEYS) {
     const column = columns[key];
+    let finite = true;
+    for (let i = 0; i < column.length && finite; i++) finite = Number.isFinite(column[i]);
+    if (finite) {
+      out[key] = Array.from(column); // all numbers: an array of unboxed doubles
+      continue;
+    }
     const values = new Array<Num>(column.length);
     for (let i = 0; i < column.length; i++) values[i] = Number.isFinite(column[i]) ? column[i] : null;
     out[key] = values;
@@ -158,8 +164,9 @@ function nearCriticalNote(m: ResolvedModel, e: unknown): string {
 }
 
 /** Resolved scenario -> tables document (pure apart from hashing; deterministic: the same input gives the same bytes). */
-export function buildTablesDocument(s: ResolvedScenario): TablesDocument {
-  const grid = gridRedshifts(s.grid);
+export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: boolean } = {}): TablesDocument {
+  // `quote` needs no chart curves: without them its document is not a complete contract document, never written.
+  const grid = options.chartGrid === false ? [] : gridRedshifts(s.grid);
   const inputs = frozenInputs(s);
   const models = s.models.map((m, i) => {
     let tables: ModelTables;

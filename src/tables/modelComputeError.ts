@@ -14,23 +14,34 @@ export class ModelComputeError extends Error {
   }
 }
 
-/** Replaces every non-finite number in a tables document's models by null; returns how many were replaced. */
-export function nullNonFinite(value: unknown): number {
+/**
+ * Replaces every non-finite number in a model's tables by null; returns how many were replaced. The chart grid is
+ * skipped: gridColumns already stores its non-finite values as null.
+ */
+export function nullNonFinite(value: unknown, skipKey = "grid"): number {
   let n = 0;
   const walk = (v: unknown): void => {
     if (Array.isArray(v)) {
       for (let i = 0; i < v.length; i++) {
-        if (typeof v[i] === "number" && !Number.isFinite(v[i])) {
-          v[i] = null;
-          n++;
-        } else if (v[i] && typeof v[i] === "object") walk(v[i]);
+        const x = v[i];
+        if (typeof x === "number") {
+          if (!Number.isFinite(x)) {
+            v[i] = null;
+            n++;
+          }
+        } else if (x !== null && typeof x === "object") walk(x);
       }
-    } else if (v && typeof v === "object") {
-      for (const [k, x] of Object.entries(v)) {
-        if (typeof x === "number" && !Number.isFinite(x)) {
-          (v as Record<string, unknown>)[k] = null;
-          n++;
-        } else if (x && typeof x === "object") walk(x);
+    } else if (v !== null && typeof v === "object") {
+      const o = v as Record<string, unknown>;
+      for (const k in o) {
+        if (k === skipKey && o === value) continue;
+        const x = o[k];
+        if (typeof x === "number") {
+          if (!Number.isFinite(x)) {
+            o[k] = null;
+            n++;
+          }
+        } else if (x !== null && typeof x === "object") walk(x);
       }
     }
   };

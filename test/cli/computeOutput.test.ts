@@ -94,11 +94,13 @@ describe("compute writes each scenario's folder whole", { timeout: 120_000 }, ()
         JSON.parse(readFileSync(join(dir, "out/outfold/tables.json"), "utf8")).format
       );
     };
-    for (const delayMs of [50, 300, 700]) {
+    for (const delayMs of [30, 120, 300, 700]) {
       const child = spawn(process.execPath, [BIN, "compute", "s.yaml", "--out", "out"], { cwd: dir, stdio: "ignore" });
+      // Listen before killing: a run that finishes first has already exited, and then there is nothing to await.
+      const exited = new Promise((r) => child.once("exit", r));
       await new Promise((r) => setTimeout(r, delayMs));
       child.kill("SIGKILL");
-      await new Promise((r) => child.once("exit", r));
+      await exited;
       expect(complete()).toBeTruthy();
     }
     expect(runCli(["compute", "s.yaml", "--out", "out"], dir).code).toBe(0);

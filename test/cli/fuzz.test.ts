@@ -149,8 +149,8 @@ const archiveDamage = fc.constantFrom<ArchiveDamage>(
   "lost-head",
   "dangling-version",
 );
-type Command = "check" | "compute" | "freeze" | "verify" | "export" | "build";
-const command = fc.constantFrom<Command>("check", "compute", "compute", "freeze", "verify", "export");
+type Command = "check" | "compute" | "freeze" | "verify" | "export" | "build" | "quote";
+const command = fc.constantFrom<Command>("check", "compute", "compute", "freeze", "verify", "export", "quote");
 
 function makePath(path: string, state: PathState, content?: Buffer): void {
   if (state === "absent") return;
@@ -244,6 +244,7 @@ function argvFor(c: Command, p: { dir: string; file: string; out: string; archiv
   if (c === "compute") return ["compute", p.file, "--out", p.out, "--quiet"];
   if (c === "freeze") return ["freeze", p.file, "-m", "fuzz", "--archive", p.archive];
   if (c === "verify") return ["verify", "--archive", p.archive, "--strict", "--quiet"];
+  if (c === "quote") return ["quote", p.file, "--z", "0.5,2", "--age-Gyr", "1", "--format", "csv", "--save", p.out];
   if (c === "build")
     return ["build", "--scenarios", p.dir, "--archive", p.archive, "--out", p.out, "--skip-images", "--quiet"];
   return ["export", p.file, "--format", "csv,json,md,tex", "--out", p.out, "--archive", p.archive];
