@@ -7,6 +7,8 @@ import {
 } from "../engine/index.js";
 import type { StoredTablesDocument, TablesDocument } from "../contract/tablesDocument.js";
 import { tablesDrift } from "./tablesDrift.js";
+import { fateInFormat } from "../contract/quantityCatalog.js";
+import { tablesFormatOf } from "../contract/versionRecord.js";
 
 /** Drift of one quantity in one model of one archived version, recomputed with the current code. */
 export interface DriftFinding {
@@ -86,8 +88,12 @@ export function compareWithRecomputed(
       shape.push(`model ${m.id} is no longer computed`);
       continue;
     }
-    // id and the derived differences are not quantities of the model; everything else is compared.
-    consider(m.id, m.parameters, m, n, ["id"]);
+    // id and the derived differences are not quantities of the model; everything else is compared. The fate is
+    // compared in the stored format's own vocabulary (formats 1 and 2 say only expands_forever or recollapses).
+    const storedFormat = tablesFormatOf(stored);
+    const nowInStoredTerms =
+      storedFormat >= 3 ? n : { ...n, summary: { ...n.summary, fate: fateInFormat(n.summary.fate, storedFormat) } };
+    consider(m.id, m.parameters, m, nowInStoredTerms, ["id"]);
   }
   for (const n of now.models)
     if (!stored.models.some((m) => m.id === n.id)) shape.push(`model ${n.id} is computed now but was not stored`);

@@ -1,4 +1,5 @@
 import { namePathOnError } from "../common/namePathOnError.js";
+import { reportWarnings } from "./scenarioWarnings.js";
 import { makeFolders, removeEmptyFolders } from "../common/makeFolders.js";
 import { existsSync, mkdirSync, readdirSync, realpathSync, renameSync, rmSync, statSync } from "node:fs";
 import { isLink } from "../common/readRegularFile.js";
@@ -6,7 +7,7 @@ import { basename, dirname, join, resolve } from "node:path";
 import { PACKAGE_ROOT } from "../common/toolVersion.js";
 import { defaultArchive, readLedger } from "./readLedger.js";
 import { setSiteLedger } from "../site/siteLedger.js";
-import { formatIssue } from "../scenario/scenarioIssue.js";
+import { issueLine, issueSummary } from "../scenario/scenarioIssue.js";
 
 import { SITE_MARKER } from "./siteMarker.js";
 
@@ -20,7 +21,7 @@ export async function buildSite(
   outDir: string,
   quiet: boolean,
   archiveDir?: string,
-  options: { images?: boolean } = {},
+  options: { images?: boolean; strict?: boolean } = {},
 ): Promise<number> {
   const scenarios = resolve(scenariosDir);
   const archive = resolve(archiveDir ?? defaultArchive(scenariosDir));
@@ -55,14 +56,13 @@ export async function buildSite(
     );
     return 2;
   }
-  const { ledger, issues } = readLedger(scenarios, archive, { images: options.images });
+  const { ledger, issues, warnings } = readLedger(scenarios, archive, { images: options.images });
   if (!ledger) {
-    for (const i of issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
-    process.stderr.write(
-      `${issues.length} problem${issues.length === 1 ? "" : "s"} found; the site was not built and ${outDir} is untouched.\n`,
-    );
+    for (const i of issues) process.stderr.write(`${issueLine(i)}\n`);
+    process.stderr.write(`${issueSummary(issues, `the site was not built and ${outDir} is untouched.`)}\n`);
     return 2;
   }
+  if (reportWarnings(warnings, options.strict ?? false)) return 2;
   if (ledger.docs.length === 0) {
     process.stderr.write(`error: no scenario files (*.yaml) in ${scenariosDir}\n`);
     return 2;

@@ -1,4 +1,4 @@
-import { ScenarioInputError, formatIssue } from "../scenario/scenarioIssue.js";
+import { ScenarioInputError, issueLine, issueSummary } from "../scenario/scenarioIssue.js";
 import { FILE_SYSTEM_EXIT, fileSystemRefusal } from "./fileSystemRefusal.js";
 import { parseArgs } from "node:util";
 import { QUOTE_HELP } from "./quoteHelp.js";
@@ -30,11 +30,17 @@ Run "cosmoledger <command> --help" for a command's options.
 Exit status: 0 success, 2 invalid input, a refused output folder or a damaged archive (nothing written),
 3 archived numbers drift with no declared reason (verify --strict), 4 the file system refused (permission,
 read-only, full disk; nothing half-written is left), 1 unexpected failure (a bug: please report it).`,
-  check: `Usage: cosmoledger check FILE...
+  check: `Usage: cosmoledger check FILE|FOLDER... [--strict]
 
-Validates each scenario file (YAML syntax, keys, types, ranges, inheritance, physics such as a missing big bang)
-and prints every problem as file:line:column: key path: message. Writes nothing.`,
-  compute: `Usage: cosmoledger compute FILE... [--out DIR] [--json]
+Validates each scenario file (a folder stands for its *.yaml files): YAML syntax, keys, types, ranges,
+inheritance, physics such as a missing big bang; computes every model in memory. Prints every problem as
+file:line:column: key path: message, and warnings the same way (H0 outside 20 to 150, omega_b above 0.05,
+Omega_b below 0.03 or above Omega_m, T_cmb far from 2.7255 K, a recollapse, parameters outside the verified box).
+Writes nothing.
+
+Options:
+  --strict    warnings are errors (exit 2)`,
+  compute: `Usage: cosmoledger compute FILE|FOLDER... [--out DIR] [--json] [--strict]
 
 Validates and computes every file, then writes DIR/<id>/tables.json plus parameters.csv, summary.csv,
 redshifts.csv, differences.csv and, where the scenario has them, targets.csv and surveys.csv.
@@ -43,8 +49,9 @@ If any file is invalid, nothing at all is written.
 Options:
   --out DIR   output folder (default out/tables)
   --json      print the tables document of a single file to stdout instead of writing files
-  --quiet     no progress messages on stderr`,
-  build: `Usage: cosmoledger build [--scenarios DIR] [--out DIR] [--archive DIR] [--skip-images] [--quiet]
+  --quiet     no progress messages on stderr
+  --strict    warnings (as check prints them) are errors: exit 2, nothing written`,
+  build: `Usage: cosmoledger build [--scenarios DIR] [--out DIR] [--archive DIR] [--skip-images] [--quiet] [--strict]
 
 Checks and computes every *.yaml scenario in DIR (default scenarios/), checks every frozen version in the
 archive (default: the folder "archive" inside the scenarios folder), then renders the static comparison site
@@ -55,7 +62,8 @@ give byte-identical output.
 
 Beside every table the pages offer CSV, JSON, Markdown, LaTeX and HTML exports, and beside every chart PNG and
 SVG images (drawn at build time, about 0.5 s per page; kept in node_modules/.cache/cosmoledger/images, so a
-frozen version is drawn once). --skip-images leaves the chart images out (the tables' exports stay).`,
+frozen version is drawn once). --skip-images leaves the chart images out (the tables' exports stay).
+Warnings are printed as check prints them; --strict makes them errors (exit 2, the site untouched).`,
   freeze: `Usage: cosmoledger freeze FILE [-m MESSAGE] [--archive DIR]
 
 Validates and computes FILE, then records it as the next version of its scenario in DIR/<id>/vN.json
@@ -119,10 +127,8 @@ export async function main(argv: string[]): Promise<number> {
     return await runMain(argv);
   } catch (e) {
     if (e instanceof ScenarioInputError) {
-      for (const i of e.issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
-      process.stderr.write(
-        `${e.issues.length} problem${e.issues.length === 1 ? "" : "s"} found; nothing was written.\n`,
-      );
+      for (const i of e.issues) process.stderr.write(`${issueLine(i)}\n`);
+      process.stderr.write(`${issueSummary(e.issues, "nothing was written.")}\n`);
       return 2;
     }
     const refusal = fileSystemRefusal(e);
@@ -169,12 +175,12 @@ async function runMain(argv: string[]): Promise<number> {
       parsed.values.out ?? "_site",
       parsed.values.quiet ?? false,
       parsed.values.archive,
-      { images: !parsed.values["skip-images"] },
+      { images: !parsed.values["skip-images"], strict: parsed.values.strict ?? false },
     );
   }
   const known: Record<string, string[]> = {
-    check: ["quiet"],
-    compute: ["out", "json", "quiet"],
+    check: ["quiet", "strict"],
+    compute: ["out", "json", "quiet", "strict"],
     freeze: ["archive", "message"],
     verify: ["archive", "strict", "json", "quiet", "verbose"],
     export: ["version", "format", "out", "archive"],

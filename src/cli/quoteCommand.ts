@@ -3,7 +3,7 @@ import { parseArgs } from "node:util";
 import { closest } from "fastest-levenshtein";
 import { parseDocument } from "yaml";
 import { loadScenario, loadScenarioData } from "../scenario/loadScenario.js";
-import { ScenarioInputError, formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
+import { ScenarioInputError, issueLine, type ScenarioIssue } from "../scenario/scenarioIssue.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import type { TablesDocument } from "../contract/tablesDocument.js";
 import { TOOL_VERSION } from "../common/toolVersion.js";
@@ -133,7 +133,7 @@ export async function quoteCommand(argv: string[]): Promise<number> {
     if (file) {
       const loaded = loadScenarioFile(file);
       if (loaded.scenario === null) {
-        for (const i of loaded.issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
+        for (const i of loaded.issues) process.stderr.write(`${issueLine(i)}\n`);
         return 2;
       }
       const ids = loaded.scenario.models.map((m) => m.id);

@@ -1,4 +1,3 @@
-import { readdirSync } from "node:fs";
 import { join } from "node:path";
 import { displayPath } from "../common/displayPath.js";
 import type { ScenarioIssue } from "../scenario/scenarioIssue.js";
@@ -10,14 +9,10 @@ import type { SiteLedger } from "../site/siteLedger.js";
 import { EXPORT_FORMATS, exportFiles } from "../exports/exportFiles.js";
 import { cachedRenderers } from "../exports/imageCache.js";
 import { TOOL_VERSION } from "../common/toolVersion.js";
+import { scenarioFiles } from "./scenarioFiles.js";
+import { scenarioWarnings } from "./scenarioWarnings.js";
 
-/** Scenario files in a folder: *.yaml and *.yml, sorted so builds are deterministic. */
-export function scenarioFiles(dir: string): string[] {
-  return readdirSync(dir)
-    .filter((f) => /\.ya?ml$/i.test(f))
-    .sort()
-    .map((f) => join(dir, f));
-}
+export { scenarioFiles };
 
 /** The archive that belongs to a scenarios folder when none is named: a folder "archive" inside it. */
 export const defaultArchive = (scenariosDir: string) => join(scenariosDir, "archive");
@@ -30,13 +25,14 @@ export function readLedger(
   dir: string,
   archiveDir: string = defaultArchive(dir),
   options: { exports?: boolean; images?: boolean } = {},
-): { ledger: SiteLedger | null; issues: ScenarioIssue[] } {
+): { ledger: SiteLedger | null; issues: ScenarioIssue[]; warnings: ScenarioIssue[] } {
   const loaded = loadScenarioFiles(scenarioFiles(dir));
   const issues: ScenarioIssue[] = [...loaded.issues];
   const files = loaded.scenarios.map((scenario) => ({ scenario, doc: computeTables(scenario) }));
   const archive = readArchive(archiveDir);
   for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
-  if (issues.length > 0) return { ledger: null, issues };
+  const warnings = files.flatMap((f) => scenarioWarnings(f.scenario, f.doc));
+  if (issues.length > 0) return { ledger: null, issues, warnings };
   const renderers = cachedRenderers();
   const formats = options.images === false ? EXPORT_FORMATS.filter((f) => f !== "png" && f !== "svg") : EXPORT_FORMATS;
   const exporter: PageExporter = (doc, base, page) => exportFiles(doc, base, page, formats, renderers);
@@ -46,5 +42,9 @@ export function readLedger(
     options.exports === false ? null : exporter,
     TOOL_VERSION,
   );
-  return { ledger: { ...pages, docs: pages.live.map((p) => p.doc), archive: displayPath(archiveDir) }, issues: [] };
+  return {
+    ledger: { ...pages, docs: pages.live.map((p) => p.doc), archive: displayPath(archiveDir) },
+    issues: [],
+    warnings,
+  };
 }

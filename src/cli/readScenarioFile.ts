@@ -2,7 +2,7 @@ import { readRegularFile } from "../common/readRegularFile.js";
 import { decodeScenarioText } from "../scenario/decodeScenarioText.js";
 import { displayPath } from "../common/displayPath.js";
 import { loadScenario } from "../scenario/loadScenario.js";
-import { ScenarioInputError, formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
+import { ScenarioInputError, issueLine, issueSummary, type ScenarioIssue } from "../scenario/scenarioIssue.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 
 /** Reads and resolves one scenario file: the scenario, or every located issue (a file that cannot be read is one). */
@@ -49,7 +49,7 @@ export function loadScenarioFiles(files: string[]): { scenarios: ResolvedScenari
 export function readScenarioFile(file: string, nothing: string): ResolvedScenario | null {
   const r = loadScenarioFile(file);
   if (r.scenario) return r.scenario;
-  for (const i of r.issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
-  process.stderr.write(`${r.issues.length} problem${r.issues.length === 1 ? "" : "s"} found; ${nothing}.\n`);
+  for (const i of r.issues) process.stderr.write(`${issueLine(i)}\n`);
+  process.stderr.write(`${issueSummary(r.issues, `${nothing}.`)}\n`);
   return null;
 }

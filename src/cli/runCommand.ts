@@ -1,22 +1,26 @@
 import { join, sep } from "node:path";
-import { ScenarioInputError, formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
+import { ScenarioInputError, issueLine, issueSummary, type ScenarioIssue } from "../scenario/scenarioIssue.js";
 import { computeTables } from "./computeTables.js";
 import { tablesCsv } from "../tables/tablesCsv.js";
 import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
 import { loadScenarioFiles } from "./readScenarioFile.js";
+import { expandFolders } from "./scenarioFiles.js";
+import { reportWarnings, scenarioWarnings } from "./scenarioWarnings.js";
+import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
+import type { TablesDocument } from "../contract/tablesDocument.js";
 
 const PROGRESS_THRESHOLD = 3;
 
 function reportIssues(issues: ScenarioIssue[]): number {
-  for (const i of issues) process.stderr.write(`error: ${formatIssue(i)}\n`);
-  process.stderr.write(`${issues.length} problem${issues.length === 1 ? "" : "s"} found; nothing was written.\n`);
+  for (const i of issues) process.stderr.write(`${issueLine(i)}\n`);
+  process.stderr.write(`${issueSummary(issues, "nothing was written.")}\n`);
   return 2;
 }
 
 export async function runCommand(
   command: "check" | "compute",
   files: string[],
-  options: { out?: string; json?: boolean; quiet?: boolean },
+  options: { out?: string; json?: boolean; quiet?: boolean; strict?: boolean },
 ): Promise<number> {
   if (files.length === 0) {
     process.stderr.write(
@@ -24,28 +28,39 @@ export async function runCommand(
     );
     return 2;
   }
+  // A folder stands for its scenario files (check scenarios/).
+  const expanded = expandFolders(files);
+  if (expanded.emptyFolders.length > 0) {
+    for (const f of expanded.emptyFolders)
+      process.stderr.write(`error: ${f}: a folder with no scenario files (*.yaml)\n`);
+    return 2;
+  }
+  files = expanded.files;
   const progress = !options.quiet && files.length > PROGRESS_THRESHOLD;
   const { scenarios, issues } = loadScenarioFiles(files);
   if (issues.length > 0) return reportIssues(issues);
-  if (command === "check") {
-    // check computes every model in memory too, so that a model the engine cannot compute is refused here, located.
-    const computeIssues: ScenarioIssue[] = [];
-    for (const s of scenarios) {
-      try {
-        computeTables(s);
-      } catch (e) {
-        if (!(e instanceof ScenarioInputError)) throw e;
-        computeIssues.push(...e.issues);
-      }
+  // Both commands compute every model (check in memory), so that a model the engine cannot compute is refused
+  // here, located, and every warning is known before anything is written.
+  const computeIssues: ScenarioIssue[] = [];
+  const computed: { s: ResolvedScenario; doc: TablesDocument }[] = [];
+  scenarios.forEach((s, i) => {
+    if (progress && command === "compute")
+      process.stderr.write(`[${i + 1}/${scenarios.length}] computing ${s.source.path}\n`);
+    try {
+      computed.push({ s, doc: computeTables(s) });
+    } catch (e) {
+      if (!(e instanceof ScenarioInputError)) throw e;
+      computeIssues.push(...e.issues);
     }
-    if (computeIssues.length > 0) return reportIssues(computeIssues);
-    for (const s of scenarios) {
-      const warnings = s.models.flatMap((m) => m.warnings.map((w) => `${s.source.path}: model ${m.id}: ${w}`));
-      for (const w of warnings) process.stderr.write(`warning: ${w}\n`);
+  });
+  if (computeIssues.length > 0) return reportIssues(computeIssues);
+  const warnings = computed.flatMap(({ s, doc }) => scenarioWarnings(s, doc));
+  if (reportWarnings(warnings, options.strict ?? false)) return 2;
+  if (command === "check") {
+    for (const { s } of computed)
       process.stdout.write(
         `ok: ${s.source.path} (${s.id}, ${s.models.length} model${s.models.length === 1 ? "" : "s"})\n`,
       );
-    }
     return 0;
   }
   if (options.json && scenarios.length !== 1) {
@@ -53,18 +68,13 @@ export async function runCommand(
     return 2;
   }
   const outputs: { dir: string; files: Record<string, string> }[] = [];
-  const docs: ReturnType<typeof computeTables>[] = [];
-  scenarios.forEach((s, i) => {
-    if (progress) process.stderr.write(`[${i + 1}/${scenarios.length}] computing ${s.source.path}\n`);
-    const doc = computeTables(s);
-    docs.push(doc);
-    if (!options.json) {
+  const docs = computed.map(({ doc }) => doc);
+  if (!options.json)
+    for (const { s, doc } of computed)
       outputs.push({
         dir: join(options.out ?? join("out", "tables"), s.id),
         files: { "tables.json": `${JSON.stringify(doc)}\n`, ...tablesCsv(doc) },
       });
-    }
-  });
   if (options.json) {
     process.stdout.write(`${JSON.stringify(docs[0])}\n`);
     return 0;

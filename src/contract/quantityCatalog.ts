@@ -77,7 +77,30 @@ export const SUMMARY_QUANTITIES: QuantityInfo<SummaryKey>[] = [
   { key: "z_matter_de_equality", label: "Matter-dark-energy equality z", unit: "" },
   { key: "max_scale_factor", label: "Maximum scale factor", unit: "" },
   { key: "crunch_time_Gyr", label: "Big crunch at", unit: "Gyr" },
+  { key: "time_to_rip_Gyr", label: "Big rip in (from today)", unit: "Gyr" },
+  { key: "rip_time_Gyr", label: "Big rip at cosmic time", unit: "Gyr" },
 ];
+
+/**
+ * The words for a model's fate in every format: formats 1 and 2 know only whether it recollapses; from format 3
+ * the fate is one of a complete set (README, "Fates").
+ */
+export function fateText(fate: string): string {
+  const words: Record<string, string> = {
+    expands_forever: "expands forever",
+    expands_decelerating: "expands forever, decelerating",
+    coasts: "expands forever, coasting",
+    expands_accelerating: "expands forever, accelerating",
+    big_rip: "big rip",
+    recollapses: "recollapses",
+  };
+  return words[fate] ?? fate;
+}
+
+/** A fate in the vocabulary of an older tables format (1 and 2: expands_forever or recollapses). */
+export function fateInFormat(fate: string, format: number): string {
+  return format >= 3 || fate === "recollapses" ? fate : "expands_forever";
+}
 
 export const PARAMETERS: QuantityInfo<keyof ModelParameters>[] = [
   { key: "H0", label: "H0", unit: "km/s/Mpc" },
@@ -100,33 +123,48 @@ export const PARAMETERS: QuantityInfo<keyof ModelParameters>[] = [
 
 /** Early-universe quantities; the source of each fitting formula is named on the page. */
 export const EARLY_QUANTITIES: (QuantityInfo<SummaryKey> & { method: string })[] = [
-  { key: "z_recombination", label: "Decoupling redshift z*", unit: "", method: "fitting formula, Hu & Sugiyama 1996" },
+  {
+    key: "z_recombination",
+    label: "Decoupling redshift z* (fitted)",
+    unit: "",
+    method: "fitting formula, Hu & Sugiyama 1996: about 0.2 % above the z* of a full recombination code",
+  },
   {
     key: "z_drag",
-    label: "Drag-epoch redshift z_drag",
+    label: "Drag-epoch redshift z_drag (fitted)",
     unit: "",
     method: "fitting formula, Eisenstein & Hu 1998 (approximate, a few % low)",
   },
   {
     key: "sound_horizon_recombination_Mpc",
-    label: "Sound horizon at z*, r*",
+    label: "Sound horizon at the fitted z*, r*",
     unit: "Mpc",
-    method: "integral of c_s/H",
+    method: "integral of c_s/H to the fitted z*: carries its error, about 0.1 to 0.2 % in r*",
   },
   {
     key: "sound_horizon_drag_Mpc",
     label: "Sound horizon at drag, r_drag",
     unit: "Mpc",
-    method: "calibrated formula, Aubourg et al. 2015 eq. 16",
+    method: "calibrated formula, Aubourg et al. 2015 eq. 16 (the value to quote for BAO)",
   },
   {
     key: "sound_horizon_drag_integral_Mpc",
-    label: "r_drag as the integral to z_drag",
+    label: "Integral of c_s/H to the fitted z_drag (not r_drag)",
     unit: "Mpc",
-    method: "integral of c_s/H at the fitted z_drag",
+    method: "integral of c_s/H to the fitted z_drag: about 2.5 % above r_drag; do not quote it as r_drag",
   },
-  { key: "theta_star_100", label: "100 theta* = 100 r*/D_M(z*)", unit: "", method: "ratio" },
-  { key: "transverse_comoving_distance_recombination_Mpc", label: "D_M(z*)", unit: "Mpc", method: "integral" },
+  {
+    key: "theta_star_100",
+    label: "100 theta* = 100 r*/D_M(z*), at the fitted z*",
+    unit: "",
+    method: "ratio at the fitted z*: carries its error, about 0.1 to 0.2 %",
+  },
+  {
+    key: "transverse_comoving_distance_recombination_Mpc",
+    label: "D_M(z*), at the fitted z*",
+    unit: "Mpc",
+    method: "integral",
+  },
   {
     key: "z_matter_radiation_equality",
     label: "Matter-radiation equality z_eq",
@@ -145,6 +183,9 @@ export const TARGET_QUANTITIES: QuantityInfo<TargetKey>[] = [
   { key: "angular_size_arcsec", label: "Angular size", unit: "arcsec" },
   { key: "apparent_magnitude", label: "Apparent magnitude (no K-corr.)", unit: "mag" },
   { key: "bolometric_flux_erg_s_cm2", label: "Bolometric flux", unit: "erg/s/cm^2" },
+  { key: "size_arcsec", label: "Given angular size", unit: "arcsec" },
+  { key: "proper_size_kpc", label: "Proper size of that angle", unit: "kpc" },
+  { key: "comoving_size_kpc", label: "Comoving size of that angle", unit: "kpc" },
 ];
 
 /** Series offered by the charts: key in the grid, label and unit. */
@@ -205,6 +246,9 @@ export const hasEarlyUniverse = (doc: { models: readonly { parameters: { Omega_b
  * Filters the catalogue to the quantities a stored document holds (read from its first model), so that pages and
  * exports of an older format leave out a quantity added later instead of showing a blank that looks like a null.
  */
+const RIP_KEYS: string[] = ["time_to_rip_Gyr", "rip_time_Gyr"];
+const ANGLE_KEYS: string[] = ["size_arcsec", "proper_size_kpc", "comoving_size_kpc"];
+
 export function catalogFor(doc: {
   models: readonly {
     parameters: { Omega_b: number | null };
@@ -229,10 +273,27 @@ export function catalogFor(doc: {
   );
   return {
     REDSHIFT_GROUPS: groups,
-    SUMMARY_QUANTITIES: keep(SUMMARY_QUANTITIES, (k) => k in m.summary),
+    // The big-rip rows appear only where a model has one (most scenarios have none; older formats cannot).
+    SUMMARY_QUANTITIES: keep(
+      SUMMARY_QUANTITIES.filter(
+        (q) =>
+          !RIP_KEYS.includes(q.key) || doc.models.some((x) => (x.summary as Record<string, unknown>)[q.key] != null),
+      ),
+      (k) => k in m.summary,
+    ),
     PARAMETERS: keep(PARAMETERS, (k) => k in m.parameters),
     EARLY_QUANTITIES: keep(EARLY_QUANTITIES, (k) => k in m.summary),
-    TARGET_QUANTITIES: m.targets.length ? keep(TARGET_QUANTITIES, (k) => k in m.targets[0]) : TARGET_QUANTITIES,
+    // The size-from-angle rows appear only where a target was given an angular size.
+    TARGET_QUANTITIES: m.targets.length
+      ? keep(
+          TARGET_QUANTITIES.filter(
+            (q) =>
+              !ANGLE_KEYS.includes(q.key) ||
+              doc.models.some((x) => x.targets.some((t) => (t as Record<string, unknown>).size_arcsec != null)),
+          ),
+          (k) => k in m.targets[0],
+        )
+      : TARGET_QUANTITIES,
     CHART_SERIES: keep(CHART_SERIES, row),
     CHARTS: CHARTS.map((c) => ({ ...c, keys: c.keys.filter(row) })).filter((c) => c.keys.length > 0),
     notComputed,

@@ -5,13 +5,14 @@
  */
 import type { TablesDocumentFormat1 } from "./generated/tablesFormat1.js";
 import type { TablesDocumentFormat2 } from "./generated/tablesFormat2.js";
+import type { TablesDocumentFormat3 } from "./generated/tablesFormat3.js";
 
-export type { TablesDocumentFormat1, TablesDocumentFormat2 };
+export type { TablesDocumentFormat1, TablesDocumentFormat2, TablesDocumentFormat3 };
 
 /** The format this release writes. */
-export type TablesDocument = TablesDocumentFormat2;
+export type TablesDocument = TablesDocumentFormat3;
 /** Every format this release reads (pages, exports, diffs and verify take any of them). */
-export type StoredTablesDocument = TablesDocumentFormat1 | TablesDocumentFormat2;
+export type StoredTablesDocument = TablesDocumentFormat1 | TablesDocumentFormat2 | TablesDocumentFormat3;
 
 export type Num = number | null;
 export type ModelTables = TablesDocument["models"][number];

@@ -9,8 +9,21 @@ import { comovingVolumeWithin } from "./comovingVolume.js";
 import { decelerationParameter } from "./decelerationParameter.js";
 import { accelerationOnsetRedshift } from "./accelerationOnsetRedshift.js";
 import { matterDarkEnergyEqualityRedshift, matterRadiationEqualityRedshift } from "./equalityRedshifts.js";
+import { dominantTermLate } from "./dominantTerm.js";
 
-export type Fate = "expands_forever" | "recollapses";
+/**
+ * The fate of a model, one of a complete set decided from E^2 ~ c a^-p, the dominant term as a -> infinity
+ * (Friedmann equation; acceleration iff p < 2 since d^2a/dt^2 / a = -H^2 (p - 2) / 2 when one term dominates):
+ * - recollapses: H^2 reaches zero at a finite a_max ahead and the expansion reverses (crunch at a finite time);
+ * - big_rip: the dark-energy density grows without bound (p < 0, or CPL with wa > 0) so fast that the scale factor
+ *   diverges at a finite time (Caldwell, Kamionkowski & Weinberg 2003);
+ * - expands_accelerating: 0 <= p < 2 (a cosmological constant, or w between -1 and -1/3);
+ * - coasts: p = 2 (curvature, or w = -1/3, dominates): the expansion speed of a comoving separation tends to a constant;
+ * - expands_decelerating: p > 2 (matter or radiation dominates forever), H -> 0.
+ * A model exactly at the boundary between recollapse and expansion (approaching an Einstein static state forever)
+ * is not representable in floating point; models next to it are refused with how close they are.
+ */
+export type Fate = "expands_decelerating" | "coasts" | "expands_accelerating" | "big_rip" | "recollapses";
 
 /** Quantities of a model today. null marks a quantity that is infinite or does not apply. */
 export interface BackgroundSummary {
@@ -33,6 +46,9 @@ export interface BackgroundSummary {
   max_scale_factor: number | null;
   max_expansion_time_Gyr: number | null;
   crunch_time_Gyr: number | null;
+  /** Big rip only: time from today until the scale factor diverges, and the cosmic time (age) at the rip. */
+  time_to_rip_Gyr: number | null;
+  rip_time_Gyr: number | null;
 }
 
 export interface SummaryResult {
@@ -41,6 +57,14 @@ export interface SummaryResult {
 }
 
 const finiteOrNull = (x: number): number | null => (Number.isFinite(x) ? x : null);
+
+/** The fate of a model that never stops expanding, from the dominant term of E^2 as a -> infinity. */
+function expandingFate(model: BackgroundModel, timeToRip: number): Fate {
+  if (Number.isFinite(timeToRip)) return "big_rip";
+  const p = dominantTermLate(model).power;
+  if (p < 2) return "expands_accelerating";
+  return p === 2 ? "coasts" : "expands_decelerating";
+}
 
 /** Throws NoBigBangError when E^2 <= 0 somewhere in 0 < a < 1 (Friedmann equation). */
 export function assertBigBang(model: BackgroundModel): void {
@@ -91,9 +115,10 @@ export function backgroundSummary(model: BackgroundModel): SummaryResult {
         );
     }
   }
-  let fate: Fate = "expands_forever";
+  let fate: Fate = expandingFate(model, future.timeToRip);
   let maxExpansionTime: number | null = null;
   let crunch: number | null = null;
+  const timeToRip = fate === "big_rip" ? future.timeToRip * tH : null;
   if (aMax !== null) {
     fate = "recollapses";
     maxExpansionTime = finiteOrNull((past.age0 + future.timeToTurnaround) * tH);
@@ -123,6 +148,8 @@ export function backgroundSummary(model: BackgroundModel): SummaryResult {
       max_scale_factor: aMax,
       max_expansion_time_Gyr: maxExpansionTime,
       crunch_time_Gyr: crunch,
+      time_to_rip_Gyr: timeToRip,
+      rip_time_Gyr: timeToRip === null || !Number.isFinite(age) ? null : age + timeToRip,
     },
     warnings,
   };

@@ -11,6 +11,11 @@ export interface FutureIntegrals {
   readonly timeToTurnaround: number;
   /** int_1^a_end da/(a^2 E): comoving distance light covers until maximum expansion, or until t -> infinity. */
   readonly conformalToTurnaround: number;
+  /**
+   * int_1^inf da/(a E): time from now until the scale factor diverges. Finite only for a big rip (dark energy whose
+   * density grows without bound: E^2 ~ a^-p late with p < 0, or CPL with wa > 0); Infinity otherwise.
+   */
+  readonly timeToRip: number;
 }
 
 /**
@@ -27,7 +32,7 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
   const error = new Float64Array(2);
   if (maxScaleFactor === null) {
     const late = dominantTermLate(model);
-    if (!(late.power < 2)) return { timeToTurnaround: Infinity, conformalToTurnaround: Infinity };
+    if (!(late.power < 2)) return { timeToTurnaround: Infinity, conformalToTurnaround: Infinity, timeToRip: Infinity };
     const one = new GaussKronrodIntegrator(1);
     const v1 = new Float64Array(1);
     const err1 = new Float64Array(1);
@@ -45,7 +50,21 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
         v1,
         err1,
       );
-      return { timeToTurnaround: Infinity, conformalToTurnaround: v1[0] };
+      const conformal = v1[0];
+      // Time to the rip: int_0^1 du / (u E(1/u)); the integrand vanishes faster than any power as u -> 0.
+      one.integrate(
+        (u, out) => {
+          const E2 = e2(1 / u);
+          out[0] = u > 0 && Number.isFinite(E2) ? 1 / (u * Math.sqrt(E2)) : 0;
+        },
+        0,
+        1,
+        PANEL_REL_TOL,
+        0,
+        v1,
+        err1,
+      );
+      return { timeToTurnaround: Infinity, conformalToTurnaround: conformal, timeToRip: v1[0] };
     }
     // Power-law terms only (wa = 0): E^2(1/u) = u^p S(u), S(u) = sum_i c_i u^(p_i - p) -> late coefficient as u -> 0.
     // With u = v^k the integrand du / E = k v^(k - 1 - k p/2) dv / sqrt(S), and k = 2/(2 - p) (p > 0) or 1 (p <= 0)
@@ -77,7 +96,29 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
       v1,
       err1,
     );
-    return { timeToTurnaround: Infinity, conformalToTurnaround: v1[0] };
+    const conformal = v1[0];
+    if (!(p < 0)) return { timeToTurnaround: Infinity, conformalToTurnaround: conformal, timeToRip: Infinity };
+    // Big rip with a power law (constant w < -1): time int_0^1 du / (u E(1/u)) = int u^(-1 - p/2) du / sqrt(S); with
+    // u = v^m, m = -2/p, the integrand m / sqrt(S(v^m)) dv is bounded at v = 0 (Caldwell et al. 2003 for the idea).
+    const m = -2 / p;
+    const liveT = terms.filter(([c]) => c !== 0).map(([c, pi]) => [c, (pi - p) * m] as [number, number]);
+    one.integrate(
+      (v, out) => {
+        const lnv = Math.log(v);
+        let S = 0;
+        for (const [c, q] of liveT) S += q === 0 ? c : c * Math.exp(q * lnv);
+        for (const nu of model.massiveNeutrinos)
+          S += nu.Omega_rel * Math.exp((4 - p) * m * lnv + lnEnergyRatio(nu.lnY0 - m * lnv));
+        out[0] = m / Math.sqrt(S);
+      },
+      0,
+      1,
+      PANEL_REL_TOL,
+      0,
+      v1,
+      err1,
+    );
+    return { timeToTurnaround: Infinity, conformalToTurnaround: conformal, timeToRip: v1[0] };
   }
   const aMax = maxScaleFactor;
   const e2Below = expansionRateSquaredBelowTurnaround(model, aMax);
@@ -118,7 +159,7 @@ export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number |
   );
   t += value[0];
   c += value[1];
-  return { timeToTurnaround: t, conformalToTurnaround: c };
+  return { timeToTurnaround: t, conformalToTurnaround: c, timeToRip: Infinity };
 }
 
 /**

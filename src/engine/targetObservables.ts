@@ -7,6 +7,11 @@ export function angularSizeArcsec(sizeKpc: number, kpcPerArcsecProper: number): 
     : null;
 }
 
+/** Proper size in kpc of an angular size in arcsec at a scale in kpc per arcsec: l = theta D_A (Hogg 1999 eq. 18). */
+export function sizeKpcOfArcsec(sizeArcsec: number, kpcPerArcsec: number): number | null {
+  return Number.isFinite(kpcPerArcsec) ? sizeArcsec * Math.abs(kpcPerArcsec) : null;
+}
+
 /** Apparent magnitude m = M + mu, without K-correction (Hogg 1999 eq. 24 and the definition of the distance modulus). */
 export function apparentMagnitude(absoluteMagnitude: number, distanceModulusMag: number): number | null {
   return Number.isFinite(distanceModulusMag) ? absoluteMagnitude + distanceModulusMag : null;

@@ -142,7 +142,8 @@ export function tableLatex(t: ExportTable, p: ExportProvenance): string {
     lines.push(` & ${cells.join(" & ")} \\\\`, rules.join(" "));
   }
   lines.push(
-    `${escapeLatex(t.stub)} & ${t.columns.map((c) => latexLabel(c.label, c.unit)).join(" & ")} \\\\`,
+    // A model's label_tex was checked to hold mathematics only (src/scenario/labelTex.ts); set in math mode.
+    `${escapeLatex(t.stub)} & ${t.columns.map((c) => (c.tex ? `$${c.tex}$` : latexLabel(c.label, c.unit))).join(" & ")} \\\\`,
     "\\midrule",
   );
   for (const r of t.rows) lines.push(`${latexLabel(r.label, r.unit)} & ${r.cells.map(cell).join(" & ")} \\\\`);

@@ -1,5 +1,5 @@
 import { quantityValue, type StoredModelTables, type StoredTablesDocument } from "../contract/tablesDocument.js";
-import { catalogFor } from "../contract/quantityCatalog.js";
+import { catalogFor, fateText } from "../contract/quantityCatalog.js";
 import { exactParts, numberParts, partsText, type NumberParts } from "../contract/formatNumber.js";
 
 /** One cell: the raw value (full precision, for CSV and JSON) and what the page prints (number parts or text). */
@@ -27,7 +27,8 @@ export interface ExportTable {
    */
   spans: { label: string; unit: string; columns: number }[] | null;
   stub: string;
-  columns: { label: string; unit: string }[];
+  /** tex: the model's LaTeX label (label_tex), used by the LaTeX export instead of the escaped plain label. */
+  columns: { label: string; unit: string; tex?: string }[];
   rows: ExportRow[];
 }
 
@@ -52,7 +53,10 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
   const { EARLY_QUANTITIES, PARAMETERS, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES, hasEarlyUniverse } =
     catalogFor(doc);
   const models = doc.models;
-  const columns = models.map((m) => ({ label: m.label, unit: "" }));
+  const columns = models.map((m) => {
+    const tex = "label_tex" in m ? m.label_tex : null; // format 3 on
+    return tex ? { label: m.label, unit: "", tex } : { label: m.label, unit: "" };
+  });
   const perModel = (label: string, unit: string, f: (m: StoredModelTables) => ExportCell): ExportRow => ({
     label,
     unit,
@@ -90,7 +94,7 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
     columns,
     rows: [
       perModel("Geometry", "", (m) => text(m.summary.geometry as string)),
-      perModel("Fate", "", (m) => text(m.summary.fate === "recollapses" ? "recollapses" : "expands forever")),
+      perModel("Fate", "", (m) => text(fateText(m.summary.fate))),
       ...SUMMARY_QUANTITIES.map((q) =>
         perModel(q.label, q.unit, (m) => num(quantityValue(m.summary, q.key) as number | null)),
       ),
@@ -169,6 +173,7 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
     });
   });
   if (models[0].surveys.length > 0) {
+    const perDeg2 = "volume_per_deg2_Mpc3" in models[0].surveys[0];
     tables.push({
       id: "surveys",
       title: "Survey shells",
@@ -181,6 +186,7 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
         { label: "z max", unit: "" },
         ...models.flatMap((m) => [
           { label: `${m.label}: volume`, unit: "Gpc^3" },
+          ...(perDeg2 ? [{ label: `${m.label}: volume per deg^2`, unit: "Mpc^3" }] : []),
           { label: `${m.label}: expected count`, unit: "" },
         ]),
       ],
@@ -191,7 +197,11 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
           exact(s.area_deg2),
           exact(s.z_min),
           exact(s.z_max),
-          ...models.flatMap((m) => [num(m.surveys[si].volume_Gpc3), num(m.surveys[si].expected_count)]),
+          ...models.flatMap((m) => [
+            num(m.surveys[si].volume_Gpc3),
+            ...(perDeg2 ? [num(quantityValue(m.surveys[si], "volume_per_deg2_Mpc3") as number | null)] : []),
+            num(m.surveys[si].expected_count),
+          ]),
         ],
       })),
     });

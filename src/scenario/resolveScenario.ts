@@ -1,3 +1,5 @@
+import { labelTexProblem } from "./labelTex.js";
+import { plausibilityWarnings } from "./plausibility.js";
 import {
   DEFAULT_N_EFF,
   DEFAULT_T_CMB_K,
@@ -91,6 +93,10 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       );
     if (m.Omega_b !== undefined && m.omega_b !== undefined)
       fail(["models", i, "omega_b"], "baryons are over-determined: give Omega_b or omega_b, not both", "key");
+    if (typeof m.label_tex === "string") {
+      const problem = labelTexProblem(m.label_tex);
+      if (problem) fail(["models", i, "label_tex"], `label_tex ${problem}`);
+    }
     if (m.radiation === "none" && (m.T_cmb !== undefined || m.N_eff !== undefined)) {
       fail(
         ["models", i, m.T_cmb !== undefined ? "T_cmb" : "N_eff"],
@@ -102,7 +108,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       fail(["models", i, "extends"], `extends unknown model ${m.extends}; known ids: ${[...index.keys()].join(", ")}`);
     }
   });
-  if (issues.length > 0) throw new ScenarioInputError(issues);
+  // No stop here: every model without a problem so far is still resolved, so that one run reports every problem.
 
   // Flatten inheritance: own keys override; a curvature key replaces the parent's curvature group.
   type Flat = { values: Record<string, unknown>; provenance: Record<string, Provenance> };
@@ -118,7 +124,9 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     let values: Record<string, unknown> = {};
     const provenance: Record<string, Provenance> = {};
     if (m.extends !== undefined) {
-      const parent = flatten(index.get(m.extends as string)!, [...chain, m.id]);
+      const parentIndex = index.get(m.extends as string);
+      if (parentIndex === undefined) return null; // an unknown parent, reported above
+      const parent = flatten(parentIndex, [...chain, m.id]);
       if (!parent) return null;
       values = { ...parent.values };
       for (const k of Object.keys(parent.values)) provenance[k] = "inherited";
@@ -159,11 +167,18 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     return result;
   };
   for (let i = 0; i < rawModels.length; i++) flatten(i, []);
-  if (issues.length > 0) throw new ScenarioInputError(issues);
+  // Models with a problem so far (a bad id, an unknown or cyclic parent, over-determined keys) are not resolved
+  // further; the others are, and their problems are reported in the same run.
+  const brokenModels = new Set(
+    issues.map((x) => /^models\[(\d+)\]/.exec(x.path)).flatMap((m) => (m ? [Number(m[1])] : [])),
+  );
 
   const models: ResolvedModel[] = [];
+  const plausibility: ScenarioIssue[] = [];
   rawModels.forEach((m, i) => {
-    const { values: v, provenance: p } = flattened.get(m.id)!;
+    const flat = brokenModels.has(i) ? undefined : flattened.get(m.id);
+    if (!flat) return;
+    const { values: v, provenance: p } = flat;
     const here = ["models", i];
     for (const k of ["H0", "Omega_m"]) {
       if (v[k] === undefined) fail(here, `${k} is required: set it in model ${m.id} or extend a model that sets it`);
@@ -216,6 +231,13 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       );
       return;
     }
+    for (const w of plausibilityWarnings(inputs, (k) => p[k] === "set"))
+      plausibility.push({
+        file: parsed.file,
+        ...parsed.locate([...here, w.key], "value"),
+        path: formatPath([...here, w.key]),
+        message: w.message,
+      });
     const curvature: CurvatureSpec =
       curvatureKey === "flat"
         ? { kind: "flat" }
@@ -274,6 +296,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     models.push({
       id: m.id,
       label: (m.label as string | undefined) ?? m.id,
+      ...(m.label_tex !== undefined ? { label_tex: m.label_tex as string } : {}),
       extends: (m.extends as string | undefined) ?? null,
       notes: (m.notes as string | undefined) ?? null,
       inputs,
@@ -326,6 +349,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       name: t.name,
       placement: by === "z" ? { by, z: t.z } : { by, value: t[by] },
       size_kpc: t.size_kpc ?? null,
+      ...(t.size_arcsec !== undefined ? { size_arcsec: t.size_arcsec } : {}),
       absolute_magnitude: t.absolute_magnitude ?? null,
       luminosity_erg_s: t.luminosity_erg_s ?? null,
     });
@@ -360,7 +384,9 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       `this scenario asks for ${gridWork} chart-grid evaluations (models x grid points); at most ${MAX_GRID_EVALUATIONS} are allowed (fewer models or grid points)`,
     );
   }
-  if (issues.length > 0) throw new ScenarioInputError(issues);
+  // Warnings go with the errors: they may explain one (H0 = 0.7 makes omega_b = 0.0224 an impossible Omega_b).
+  if (issues.length > 0)
+    throw new ScenarioInputError([...issues, ...plausibility.map((w) => ({ ...w, severity: "warning" as const }))]);
 
   return {
     id: id!,
@@ -375,6 +401,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     targets,
     surveys,
     defaults_applied: defaultsApplied,
+    plausibility,
     // The recorded name is the file's own name: documents and versions never depend on where a command ran,
     // and never hold a path of the builder's machine.
     source: { path: parsed.file, name: parsed.file.split(/[\\/]/).pop() ?? parsed.file, text: sourceText },

@@ -1,3 +1,4 @@
+import type { ScenarioIssue } from "./scenarioIssue.js";
 import type { BackgroundModel } from "../engine/index.js";
 
 export type Provenance = "set" | "inherited" | "default";
@@ -25,6 +26,8 @@ export interface ResolvedModelInputs {
 export interface ResolvedModel {
   id: string;
   label: string;
+  /** The label in LaTeX, only when the scenario gives one (absent, so that inputs without it hash as before). */
+  label_tex?: string;
   extends: string | null;
   notes: string | null;
   inputs: ResolvedModelInputs;
@@ -44,6 +47,8 @@ export interface ResolvedTarget {
   name: string;
   placement: TargetPlacement;
   size_kpc: number | null;
+  /** Given only when the scenario sets it (absent, not null, so that inputs without it hash as in format 2). */
+  size_arcsec?: number;
   absolute_magnitude: number | null;
   luminosity_erg_s: number | null;
 }
@@ -77,6 +82,8 @@ export interface ResolvedScenario {
   surveys: ResolvedSurvey[];
   /** Scenario-level keys that took their defaults. */
   defaults_applied: string[];
+  /** Valid values that are probably not what was meant (H0 = 0.7), located; warnings, errors under --strict. Not an input. */
+  plausibility: ScenarioIssue[];
   /** The file as given on the command line (for messages), its own name (recorded in documents), and its text. */
   source: { path: string; name: string; text: string };
 }

@@ -6,6 +6,8 @@ export interface ScenarioIssue {
   /** Key path such as models[1].H0; "" for the whole file. */
   path: string;
   message: string;
+  /** A warning printed beside the errors (it may explain one: H0 = 0.7 looks like h); errors when absent. */
+  severity?: "warning";
 }
 
 /** Invalid input: carries every issue found; the CLI prints them and exits with status 2. */
@@ -16,6 +18,15 @@ export class ScenarioInputError extends Error {
     this.name = "ScenarioInputError";
     this.issues = issues;
   }
+}
+
+/** The terminal line of an issue: "error: ..." or "warning: ...". */
+export const issueLine = (issue: ScenarioIssue) => `${issue.severity ?? "error"}: ${formatIssue(issue)}`;
+
+/** The problems found and the sentence that closes the list ("2 problems found; ..."), warnings not counted. */
+export function issueSummary(issues: ScenarioIssue[], after: string): string {
+  const n = issues.filter((i) => i.severity !== "warning").length;
+  return `${n} problem${n === 1 ? "" : "s"} found; ${after}`;
 }
 
 /** file:line:column: path: message, the form editors and terminals turn into links. */

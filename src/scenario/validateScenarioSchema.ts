@@ -81,8 +81,10 @@ function message(
       const allowed = Object.keys(schemaAt(segments)?.properties ?? {});
       const near = allowed.length ? closest(key, allowed) : undefined;
       const lower = allowed.find((k) => k.toLowerCase() === key.toLowerCase());
-      const suggestion = lower ?? near;
-      const hint = suggestion && (lower || levenshteinClose(key, suggestion)) ? ` did you mean ${suggestion}?` : "";
+      const synonym = SYNONYMS.get(key.toLowerCase())?.find((k) => allowed.includes(k));
+      const suggestion = lower ?? synonym ?? near;
+      const hint =
+        suggestion && (lower || synonym || levenshteinClose(key, suggestion)) ? ` did you mean ${suggestion}?` : "";
       return {
         path: [...segments, key],
         at: "key",
@@ -95,18 +97,33 @@ function message(
         at: "value",
         text: `missing required key ${(e.params as { missingProperty: string }).missingProperty}`,
       };
-    case "type":
+    case "type": {
+      const v = valueAt(root, segments);
+      // YAML 1.2 (what scenario files are read as) has only true and false; yes/no/on/off are text there.
+      const yaml11 =
+        (e.params as { type: string }).type === "boolean" &&
+        typeof v === "string" &&
+        YAML_11_BOOLEANS.has(v.toLowerCase())
+          ? `; scenario files are YAML 1.2, where only true and false are booleans (write ${/^(y|yes|on|true)$/i.test(v) ? "true" : "false"})`
+          : "";
       return {
         path: segments,
         at: "value",
-        text: `must be ${article((e.params as { type: string }).type)} (got ${got})`,
+        text: `must be ${article((e.params as { type: string }).type)} (got ${got})${yaml11}`,
       };
-    case "const":
+    }
+    case "const": {
+      const v = valueAt(root, segments);
+      const yaml11 =
+        typeof v === "string" && YAML_11_BOOLEANS.has(v.toLowerCase())
+          ? "; scenario files are YAML 1.2, where only true and false are booleans"
+          : "";
       return {
         path: segments,
         at: "value",
-        text: `must be true (got ${got}); to fix the curvature otherwise give Omega_k or Omega_de instead`,
+        text: `must be true (got ${got})${yaml11}; to fix the curvature otherwise give Omega_k or Omega_de instead`,
       };
+    }
     case "enum":
       return {
         path: segments,
@@ -147,6 +164,43 @@ function message(
   }
 }
 
+/** Words people write for a key, mapped to the keys they mean (did-you-mean where spelling distance cannot tell). */
+const SYNONYMS = new Map<string, string[]>(
+  Object.entries({
+    redshift: ["z", "redshifts"],
+    zs: ["redshifts"],
+    lookback: ["lookback_Gyr"],
+    lookback_time: ["lookback_Gyr"],
+    age: ["age_Gyr"],
+    distance: ["comoving_distance_Mpc"],
+    comoving_distance: ["comoving_distance_Mpc"],
+    d_c: ["comoving_distance_Mpc"],
+    size: ["size_kpc"],
+    angular_size: ["size_arcsec"],
+    area: ["area_deg2"],
+    zmin: ["z_min"],
+    zmax: ["z_max"],
+    density: ["density_per_Mpc3"],
+    number_density: ["density_per_Mpc3"],
+    m: ["absolute_magnitude"],
+    abs_mag: ["absolute_magnitude"],
+    luminosity: ["luminosity_erg_s"],
+    h: ["H0"],
+    hubble: ["H0"],
+    omega_lambda: ["Omega_Lambda"],
+    lambda: ["Omega_Lambda"],
+    w: ["w0"],
+    mnu: ["m_nu_eV"],
+    m_nu: ["m_nu_eV"],
+    tcmb: ["T_cmb"],
+    neff: ["N_eff"],
+    parent: ["extends"],
+    name: ["label"],
+  }),
+);
+
+const YAML_11_BOOLEANS = new Set(["y", "yes", "n", "no", "on", "off"]);
+
 function article(type: string): string {
   return type === "integer"
     ? "a whole number"
@@ -164,9 +218,15 @@ function levenshteinClose(a: string, b: string): boolean {
 
 /** Validates parsed YAML against src/schema/scenario.schema.json with ajv; returns located, readable issues. */
 export function validateScenarioSchema(parsed: ParsedYaml): ScenarioIssue[] {
-  if (validate(parsed.value)) return [];
+  return schemaProblems(parsed).issues;
+}
+
+/** The schema's issues and, for each, the key path it concerns (so that the rest of the file can still be checked). */
+export function schemaProblems(parsed: ParsedYaml): { issues: ScenarioIssue[]; paths: (string | number)[][] } {
+  if (validate(parsed.value)) return { issues: [], paths: [] };
   const seen = new Set<string>();
   const issues: ScenarioIssue[] = [];
+  const paths: (string | number)[][] = [];
   for (const e of validate.errors ?? []) {
     const segments = segmentsOf(e.instancePath);
     const m = message(e, parsed.value, segments);
@@ -175,6 +235,7 @@ export function validateScenarioSchema(parsed: ParsedYaml): ScenarioIssue[] {
     if (seen.has(dedupe)) continue;
     seen.add(dedupe);
     issues.push({ file: parsed.file, ...parsed.locate(m.path, m.at), path: pathText, message: m.text });
+    paths.push(m.path);
   }
-  return issues;
+  return { issues, paths };
 }

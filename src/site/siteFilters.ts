@@ -1,3 +1,4 @@
+import { fateText } from "../contract/quantityCatalog.js";
 import { formatExact, formatNumber, formatPercent, unitText } from "../contract/formatNumber.js";
 import { renderMarkdown } from "./renderMarkdown.js";
 import { renderMath } from "./renderMath.js";
@@ -5,6 +6,8 @@ import { chartPayload, indexChartPayload, jsonForScriptElement } from "./chartPa
 
 /** The Nunjucks filters of the site: formatting only. Filters marked html return markup (marked safe by the config). */
 export const TEXT_FILTERS = {
+  /** A model's fate in words, in the vocabulary of any format. */
+  fate: (fate: string) => fateText(fate),
   /**
    * Six significant figures, an em dash for null (computed: undefined or infinite), and "not computed" for a key the
    * document does not have at all (an older format), so that the two can never be confused.
@@ -34,6 +37,8 @@ export const TEXT_FILTERS = {
 export const HTML_FILTERS = {
   markdown: (text: string | null) => renderMarkdown(text),
   math: (tex: string) => renderMath(tex, true),
+  /** A model's LaTeX label (checked to hold mathematics only) as inline MathML; empty when it has none. */
+  labelMath: (tex: string | null | undefined) => (tex ? renderMath(tex, false) : ""),
   /** The chart data of a tables document as JSON for an inline data element. */
   chartJson: (doc: Parameters<typeof chartPayload>[0]) => jsonForScriptElement(chartPayload(doc)),
   /** Any value as JSON for an inline data element (<script type="application/json">). */

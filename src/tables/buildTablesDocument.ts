@@ -119,6 +119,7 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
   return {
     id: m.id,
     label: m.label,
+    label_tex: m.label_tex ?? null,
     extends: m.extends,
     notes: m.notes,
     warnings: allWarnings,
@@ -152,15 +153,19 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
   };
 }
 
-/** Why the engine gave up on a model, with how close it comes to a static or loitering one (smallest past H^2). */
+/** Why the engine gave up on a model, with how close it comes to a static or loitering one (smallest H^2). */
 function nearCriticalNote(m: ResolvedModel, e: unknown): string {
   const cannot = `the engine cannot compute this model to its relative accuracy ${ENGINE_TOLERANCE}`;
   if (e instanceof NoBigBangError) return cannot;
-  const slowest = slowestPastExpansion(m.background);
-  if (!(slowest.E2 < 1e-3)) return cannot;
-  if (slowest.E2 <= 0)
-    return `this model has no big bang: going back in time (H/H0)^2 falls to ${slowest.E2.toPrecision(2)} near z = ${slowest.z.toPrecision(4)}, so its expansion turned around there, within a hair of the static model; lower Omega_de, raise Omega_m or add radiation`;
-  return `${cannot}: it is very close to a static or loitering model (going back in time, (H/H0)^2 falls to ${slowest.E2.toPrecision(2)} at z = ${slowest.z.toPrecision(4)}; 0 there would be a static point). Move Omega_de or Omega_m away from that critical model`;
+  const past = slowestPastExpansion(m.background);
+  if (past.E2 <= 0)
+    return `this model has no big bang: going back in time (H/H0)^2 falls to ${past.E2.toPrecision(2)} near z = ${past.z.toPrecision(4)}, so its expansion turned around there, within a hair of the static model; lower Omega_de, raise Omega_m or add radiation`;
+  if (past.E2 < 1e-3)
+    return `${cannot}: it is very close to a static or loitering model (going back in time, (H/H0)^2 falls to ${past.E2.toPrecision(2)} at z = ${past.z.toPrecision(4)}; 0 there would be a static point). Move Omega_de or Omega_m away from that critical model`;
+  const ahead = slowestPastExpansion(m.background, true);
+  if (ahead.a > 1 && Math.abs(ahead.E2) < 1e-3)
+    return `${cannot}: it is very close to a model that approaches a static state ahead (in the future (H/H0)^2 ${ahead.E2 < 0 ? "turns negative" : "falls to"} ${ahead.E2.toPrecision(2)} near a = ${ahead.a.toPrecision(4)}; exactly 0 there would be an Einstein static state). Move Omega_de or Omega_m away from that critical model`;
+  return cannot;
 }
 
 /** Resolved scenario -> tables document (pure apart from hashing; deterministic: the same input gives the same bytes). */

@@ -2,7 +2,7 @@ import { shellVolumeMpc3, type BackgroundModel } from "../engine/index.js";
 import type { ResolvedSurvey } from "../scenario/resolvedScenario.js";
 import type { SurveyRow } from "../contract/tablesDocument.js";
 
-/** Comoving volume of each survey shell and the expected count density x volume (Hogg 1999, eq. 29). */
+/** Comoving volume of each survey shell (also per square degree of its area) and the expected count density x volume (Hogg 1999, eq. 29). */
 export function surveyRows(model: BackgroundModel, surveys: readonly ResolvedSurvey[]): SurveyRow[] {
   return surveys.map((s) => {
     const volumeMpc3 = shellVolumeMpc3(model, s.z_min, s.z_max, s.area_deg2);
@@ -12,6 +12,8 @@ export function surveyRows(model: BackgroundModel, surveys: readonly ResolvedSur
       z_min: s.z_min,
       z_max: s.z_max,
       volume_Gpc3: volumeMpc3 * 1e-9,
+      volume_Mpc3: volumeMpc3,
+      volume_per_deg2_Mpc3: volumeMpc3 / s.area_deg2,
       density_per_Mpc3: s.density_per_Mpc3,
       expected_count: s.density_per_Mpc3 === null ? null : s.density_per_Mpc3 * volumeMpc3,
     };

@@ -1,6 +1,7 @@
 import {
   NoSuchRedshiftError,
   angularSizeArcsec,
+  sizeKpcOfArcsec,
   apparentMagnitude,
   bolometricFluxErgSCm2,
   redshiftAtAge,
@@ -34,6 +35,9 @@ export function targetRows(model: BackgroundModel, targets: readonly ResolvedTar
       angular_size_arcsec: null,
       apparent_magnitude: null,
       bolometric_flux_erg_s_cm2: null,
+      size_arcsec: t.size_arcsec ?? null,
+      proper_size_kpc: null,
+      comoving_size_kpc: null,
       note: null,
     };
     let z: number;
@@ -69,6 +73,9 @@ export function targetRows(model: BackgroundModel, targets: readonly ResolvedTar
       angular_size_arcsec: t.size_kpc !== null ? angularSizeArcsec(t.size_kpc, kpc) : null,
       apparent_magnitude: t.absolute_magnitude !== null ? apparentMagnitude(t.absolute_magnitude, mu) : null,
       bolometric_flux_erg_s_cm2: t.luminosity_erg_s !== null ? bolometricFluxErgSCm2(t.luminosity_erg_s, DL) : null,
+      proper_size_kpc: t.size_arcsec !== undefined ? sizeKpcOfArcsec(t.size_arcsec, kpc) : null,
+      comoving_size_kpc:
+        t.size_arcsec !== undefined ? sizeKpcOfArcsec(t.size_arcsec, r.kpc_per_arcsec_comoving[0]) : null,
       note: t.absolute_magnitude !== null ? "apparent magnitude without K-correction" : null,
     };
   });

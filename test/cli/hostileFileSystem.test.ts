@@ -274,6 +274,14 @@ describe("limits that hold", { timeout: 300_000 }, () => {
       join(dir, "b.yaml"),
       "title: T\nmodels:\n  - { id: a, H0: 70, Omega_m: 0.1, Omega_Lambda: 1.35000001, radiation: none }\n",
     );
+    // Ahead: Omega_m = 3.2, Omega_Lambda = 0.2 (closed) has a double root of E^2 at a = 2 (E^2 = 3.2 x^3 + Omega_k x^2
+    // + Omega_Lambda and its derivative vanish at x = 1/a = 1/2), an Einstein static state approached forever; with
+    // Omega_Lambda = 0.2 + 1e-9 the minimum there is 0.4 - 0.25 (2.4 + 1e-9) - 0.4 + 0.2 + 1e-9 = 7.5e-10.
+    writeFileSync(
+      join(dir, "f.yaml"),
+      "title: T\nmodels:\n  - { id: a, H0: 70, Omega_m: 3.2, Omega_Lambda: 0.200000001, radiation: none }\n",
+    );
+    refused(cli(["check", "f.yaml"], dir), 2, /approaches a static state ahead .*falls to 7\.5e-10 near a = 2\.000/);
     refused(
       cli(["check", "b.yaml"], dir),
       2,

@@ -30,7 +30,7 @@ describe("Einstein-de Sitter (Omega_m = 1, no radiation): closed forms", () => {
     expect(relErr(s.particle_horizon_Mpc!, 2 * DH)).toBeLessThan(TOL);
     expect(s.event_horizon_Mpc).toBeNull();
     expect(s.deceleration_q0).toBeCloseTo(0.5, 14);
-    expect(s.fate).toBe("expands_forever");
+    expect(s.fate).toBe("expands_decelerating"); // matter forever: q = 1/2 > 0
     expect(s.z_acceleration).toBeNull();
   });
 });

@@ -32,6 +32,8 @@ function hostileScenario(): string {
     "models:",
     `  - { id: a, label: ${q(evil("label-a"))}, notes: ${q(evil("notes"))}, H0: 70, Omega_m: 0.3, omega_b: 0.0224 }`,
     `  - { id: b, label: ${q(`-${evil("label-b")}`)}, extends: a, w0: -0.9 }`,
+    // A LaTeX label (checked to hold mathematics only) is set in math mode in every .tex export and must compile.
+    `  - { id: c, label: plain, label_tex: '\\Lambda\\mathrm{CDM}_{\\nu}', extends: a, w0: -1.1 }`,
     "targets:",
     `  - { name: ${q(`@${evil("target")}`)}, z: 1, size_kpc: 5, absolute_magnitude: -21 }`,
     "surveys:",
