@@ -29,6 +29,11 @@ export default function (eleventyConfig) {
     current = ledger;
     return current;
   });
+  // The dev server (npm start) reloads open pages over a WebSocket; only its output may connect anywhere. A built site
+  // keeps connect-src 'none'.
+  eleventyConfig.addGlobalData("connectSrc", () =>
+    process.env.ELEVENTY_RUN_MODE === "serve" ? "'self' ws: wss:" : "'none'",
+  );
   eleventyConfig.addGlobalData("catalog", { ...catalog });
   eleventyConfig.addGlobalData("chartStyle", CHART_STYLE);
   eleventyConfig.addGlobalData("tex", { friedmann: FRIEDMANN_TEX, closure: CLOSURE_TEX });

@@ -1,0 +1,187 @@
+// Issue 13, checked in headless Chromium (not by reading HTML): no page kind scrolls sideways at 390 px, tables use
+// the page's width at 1400 px, a title is escaped once, and `npm start` reloads an open page when a scenario changes
+// (its dev-server output alone may open the reload socket; a built site keeps connect-src 'none').
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import { createServer } from "node:net";
+import { join } from "node:path";
+import type { BrowserContext } from "playwright-core";
+import { ROOT, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
+
+const chromiumPath = spawnSync("sh", ["-c", "command -v chromium"], { encoding: "utf8" }).stdout.trim();
+const required = process.env.COSMOLEDGER_REQUIRE_BROWSER === "1";
+if (!chromiumPath && required) throw new Error("chromium not found; .ci/run must install it");
+const SHOTS = join(ROOT, "test-output", "screenshots");
+
+const SIX_MODELS = `title: "A & B: six models"
+id: six-models
+redshifts: [0.5, 1, 2, 3]
+models:
+${Array.from({ length: 6 }, (_, i) => `  - { id: m${i}, label: "Model number ${i} with a long label", H0: ${66 + i}, Omega_m: ${0.28 + 0.01 * i}, omega_b: 0.0224 }`).join("\n")}
+targets:
+  - { name: Arc, z: 2.3, size_kpc: 5 }
+`;
+
+const freePort = () =>
+  new Promise<number>((ok) => {
+    const s = createServer();
+    s.listen(0, "127.0.0.1", () => {
+      const port = (s.address() as { port: number }).port;
+      s.close(() => ok(port));
+    });
+  });
+
+describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chromium", { timeout: 300_000 }, () => {
+  let site: string;
+  let context: BrowserContext;
+
+  beforeAll(async () => {
+    compileProject();
+    const dir = tempDir();
+    mkdirSync(join(dir, "scenarios"));
+    writeFileSync(join(dir, "scenarios/six.yaml"), SIX_MODELS);
+    for (const f of ["lantern-deep-field.yaml", "harbor-lights-census.yaml"])
+      writeFileSync(join(dir, "scenarios", f), readFileSync(join(ROOT, "scenarios", f)));
+    // A frozen version (for the version, history and diff pages), then a change so that a diff exists.
+    const freeze = (m: string) => runCli(["freeze", "scenarios/six.yaml", "-m", m], dir);
+    expect(freeze("first").code).toBe(0);
+    writeFileSync(join(dir, "scenarios/six.yaml"), SIX_MODELS.replace("H0: 66,", "H0: 66.5,"));
+    expect(freeze("second").code).toBe(0);
+    site = join(dir, "site");
+    const r = runCli(["build", "--scenarios", "scenarios", "--out", site, "--quiet", "--skip-images"], dir);
+    if (r.code !== 0) throw new Error(r.stderr);
+    const { chromium } = await import("playwright-core");
+    context = await chromium.launchPersistentContext(tempDir("cosmoledger-chromium-"), {
+      executablePath: chromiumPath,
+      headless: true,
+      args: [
+        "--headless",
+        "--no-sandbox",
+        "--disable-gpu",
+        "--disable-background-networking",
+        "--disable-component-update",
+        "--disable-sync",
+        "--no-first-run",
+      ],
+    });
+    mkdirSync(SHOTS, { recursive: true });
+  }, 300_000);
+
+  afterAll(async () => {
+    await context?.close();
+  });
+
+  const PAGES = [
+    "index.html",
+    "six-models/index.html",
+    "six-models/v1/index.html",
+    "six-models/history/index.html",
+    "six-models/diff/v1-v2/index.html",
+    "lantern-deep-field/index.html",
+  ];
+
+  it("at 390 px no page kind scrolls sideways; wide tables scroll inside their own box", async () => {
+    const page = await context.newPage();
+    await page.setViewportSize({ width: 390, height: 844 });
+    for (const p of PAGES) {
+      await page.goto(`file://${join(site, p)}`);
+      const { scrollWidth, clientWidth } = await page.evaluate(() => ({
+        scrollWidth: document.documentElement.scrollWidth,
+        clientWidth: document.documentElement.clientWidth,
+      }));
+      expect(scrollWidth, p).toBeLessThanOrEqual(clientWidth);
+    }
+    await page.goto(`file://${join(site, "six-models/index.html")}`);
+    // The six-model tables are wider than the phone: each scrolls in its .table-wrap.
+    const scrolls = await page.evaluate(() =>
+      [...document.querySelectorAll(".table-wrap")].some((w) => w.scrollWidth > w.clientWidth),
+    );
+    expect(scrolls).toBe(true);
+    await page.screenshot({ path: join(SHOTS, "six-models-390.png"), fullPage: false });
+    await page.close();
+  });
+
+  it("at 1400 px each redshift table with its export bar is one cell as wide as its models need (six models: full width)", async () => {
+    const page = await context.newPage();
+    await page.setViewportSize({ width: 1400, height: 900 });
+    await page.goto(`file://${join(site, "six-models/index.html")}`);
+    const r = await page.evaluate(() => {
+      const grid = document.querySelector(".quantity-grid")!;
+      const cells = [...grid.children];
+      return {
+        gridWidth: grid.getBoundingClientRect().width,
+        cellWidths: cells.map((c) => c.getBoundingClientRect().width),
+        cellsHoldTheirExports: cells.every((c) => c.querySelector("table") && c.querySelector(".exports")),
+        tablesScroll: [...document.querySelectorAll(".quantity-grid .table-wrap")].filter(
+          (w) => w.scrollWidth > w.clientWidth,
+        ).length,
+      };
+    });
+    expect(r.cellsHoldTheirExports).toBe(true);
+    for (const w of r.cellWidths) expect(w).toBeGreaterThan(0.95 * r.gridWidth); // one per row: the page's width
+    expect(r.tablesScroll).toBe(0); // and then nothing needs to scroll at 1400 px
+    await page.screenshot({ path: join(SHOTS, "six-models-1400.png"), fullPage: false });
+    await page.close();
+  });
+
+  it("a title with & shows & in the browser tab, escaped once", async () => {
+    const page = await context.newPage();
+    await page.goto(`file://${join(site, "six-models/index.html")}`);
+    expect(await page.title()).toBe("A & B: six models · cosmoledger");
+    await page.goto(`file://${join(site, "six-models/history/index.html")}`);
+    expect(await page.title()).toBe("History of A & B: six models · cosmoledger");
+    await page.close();
+  });
+
+  it("the built site keeps connect-src 'none'", () => {
+    const html = readFileSync(join(site, "six-models/index.html"), "utf8");
+    expect(html).toContain("connect-src 'none';");
+  });
+
+  it("npm start: editing a scenario changes the open page without a manual reload", async () => {
+    const dir = tempDir();
+    mkdirSync(join(dir, "scenarios"));
+    const file = join(dir, "scenarios/live.yaml");
+    writeFileSync(file, "title: Live\nid: live\nmodels:\n  - { id: a, label: Before, H0: 70, Omega_m: 0.3 }\n");
+    const port = await freePort();
+    // The dev server as npm start runs it (eleventy --serve), on our scenarios folder and output.
+    const server: ChildProcess = spawn(
+      process.execPath,
+      [join(ROOT, "node_modules/@11ty/eleventy/cmd.cjs"), "--serve", "--port", String(port), "--quiet"],
+      {
+        cwd: ROOT,
+        env: { ...process.env, COSMOLEDGER_SCENARIOS: join(dir, "scenarios"), COSMOLEDGER_SITE_OUT: join(dir, "out") },
+        stdio: "ignore",
+        detached: true,
+      },
+    );
+    try {
+      const page = await context.newPage();
+      const url = `http://localhost:${port}/live/index.html`;
+      const deadline = Date.now() + 120_000;
+      for (;;) {
+        try {
+          const response = await page.goto(url);
+          if (response?.ok()) break;
+        } catch {
+          // not listening yet
+        }
+        if (Date.now() > deadline) throw new Error("the dev server did not start within 120 s");
+        await page.waitForTimeout(500);
+      }
+      await page.waitForFunction(() => document.body.textContent?.includes("Before"), null, { timeout: 60_000 });
+      const csp = await page.evaluate(
+        () => document.querySelector('meta[http-equiv="Content-Security-Policy"]')?.getAttribute("content") ?? "",
+      );
+      expect(csp).toContain("connect-src 'self' ws: wss:");
+      // Give the reload client time to connect, then edit; the page must show the new label on its own.
+      await page.waitForTimeout(1500);
+      writeFileSync(file, "title: Live\nid: live\nmodels:\n  - { id: a, label: After, H0: 71, Omega_m: 0.3 }\n");
+      await page.waitForFunction(() => document.body.textContent?.includes("After"), null, { timeout: 90_000 });
+      await page.close();
+    } finally {
+      if (server.pid) process.kill(-server.pid, "SIGTERM");
+    }
+  });
+});
