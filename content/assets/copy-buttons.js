@@ -38,10 +38,12 @@
   document.querySelectorAll("p.exports[data-export]").forEach((p) => {
     var id = p.getAttribute("data-export");
     if (id !== "assumptions" && !data.tables[id]) return;
-    [
+    var formats = [
       ["md", id === "assumptions" ? "Copy text" : "Copy Markdown"],
       ["tex", "Copy LaTeX"],
-    ].forEach((pair) => {
+    ];
+    if (data.tables[id] && data.tables[id].txt) formats.push(["txt", "Copy plain text"]);
+    formats.forEach((pair) => {
       var button = document.createElement("button");
       button.type = "button";
       button.className = "copy";

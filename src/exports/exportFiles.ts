@@ -1,7 +1,7 @@
 import pLimit from "p-limit";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { exportTables, type ExportTable } from "./exportTables.js";
-import { tableCsv, tableHtml, tableJson, tableLatex, tableMarkdown } from "./exportFormats.js";
+import { tableCsv, tableHtml, tableJson, tableLatex, tableMarkdown, tablePlainText } from "./exportFormats.js";
 import { assumptionsSentence } from "./assumptionsSentence.js";
 import { chartPng, chartSpecs, chartSvg, type ChartSpec } from "./chartImage.js";
 import { escapeHtml, escapeMarkdown } from "./exportFormats.js";
@@ -21,7 +21,7 @@ export interface ExportIndex {
   charts: { id: string; key: string; title: string; alt: string; files: Partial<Record<ExportFormat, string>> }[];
   assumptions: { txt: string; tex: string; plain: string; latex: string };
   /** Markdown and LaTeX of each table, for copy-to-clipboard. */
-  copy: Record<string, { md: string; tex: string }>;
+  copy: Record<string, { md: string; tex: string; txt?: string }>;
 }
 
 /**
@@ -63,7 +63,10 @@ export function exportFiles(
       files.push({ name, content: RENDER[f](t, p) });
       entry.files[f] = name;
     }
-    index.copy[t.id] = { md: tableMarkdown(t, p), tex: tableLatex(t, p) };
+    index.copy[t.id] =
+      t.id === "key-numbers"
+        ? { md: tableMarkdown(t, p), tex: tableLatex(t, p), txt: tablePlainText(t, p) }
+        : { md: tableMarkdown(t, p), tex: tableLatex(t, p) };
     index.tables.push(entry);
   }
   const wantCharts = CHART_FORMATS.filter((f) => formats.includes(f));

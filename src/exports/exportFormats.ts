@@ -105,6 +105,27 @@ export function tableMarkdown(t: ExportTable, p: ExportProvenance): string {
   return lines.join("\n");
 }
 
+/**
+ * Plain text for pasting into an e-mail or a document: aligned columns (spaces), the printed digits and units, a
+ * title line and a source line. One line per row; user text is kept on one line.
+ */
+export function tablePlainText(t: ExportTable, p: ExportProvenance): string {
+  const head = header(t).map(oneLine);
+  const body = t.rows.map((r) => [
+    oneLine(labelWithUnit(r.label, r.unit)),
+    ...r.cells.map((c) => oneLine(c.text || "—")),
+  ]);
+  const widths = head.map((h, i) => Math.max([...h].length, ...body.map((r) => [...r[i]].length)));
+  const line = (cells: string[]) =>
+    cells
+      .map((c, i) => (i === 0 ? c.padEnd(widths[i]) : c.padStart(widths[i])))
+      .join("  ")
+      .trimEnd();
+  return [oneLine(heading(t)), "", line(head), ...body.map(line), "", `Source: ${oneLine(provenanceLine(p))}`, ""].join(
+    "\n",
+  );
+}
+
 /** Text for LaTeX (userText.ts): compiles with pdflatex and never reaches TeX as a command. */
 export const escapeLatex = latexText;
 

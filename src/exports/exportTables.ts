@@ -47,6 +47,56 @@ const text = (s: string | null | undefined): ExportCell => ({
   text: s ?? "",
 });
 
+/** The per-redshift quantities a proposal quotes, in the order the key-number sheet lists them. */
+const SHEET_ROWS = [
+  ["luminosity_distance_Mpc", "D_L", "Mpc"],
+  ["angular_diameter_distance_Mpc", "D_A", "Mpc"],
+  ["kpc_per_arcsec_proper", "Proper scale", "kpc/arcsec"],
+  ["lookback_time_Gyr", "Lookback time", "Gyr"],
+  ["age_Gyr", "Age at z", "Gyr"],
+] as const;
+
+/**
+ * "Numbers to quote": the key-number sheet at the top of a scenario page, models side by side. Every target as it
+ * was placed (its redshift when solved, then its angular or physical size, magnitude or flux as given), then the
+ * headline quantities at each table redshift, then the age today. Read from the document, never recomputed.
+ */
+function keyNumbers(doc: StoredTablesDocument, columns: ExportTable["columns"]): ExportTable {
+  const models = doc.models;
+  const rows: ExportRow[] = [];
+  const row = (label: string, unit: string, value: (m: StoredModelTables) => number | null | undefined) =>
+    rows.push({ label, unit, cells: models.map((m) => num(value(m))) });
+  models[0].targets.forEach((t, ti) => {
+    const at = (m: StoredModelTables) => m.targets[ti] as unknown as Record<string, number | null | undefined>;
+    if (t.placed_by !== "z") row(`${t.name}: redshift`, "", (m) => at(m).z);
+    else rows.push({ label: `${t.name}: redshift`, unit: "", cells: models.map(() => exact(t.z)) }); // as given
+    if (t.angular_size_arcsec !== null) row(`${t.name}: angular size`, "arcsec", (m) => at(m).angular_size_arcsec);
+    if ((t as Record<string, unknown>).proper_size_kpc != null)
+      row(`${t.name}: proper size`, "kpc", (m) => at(m).proper_size_kpc);
+    if (t.apparent_magnitude !== null) row(`${t.name}: apparent magnitude`, "mag", (m) => at(m).apparent_magnitude);
+    if (t.bolometric_flux_erg_s_cm2 !== null)
+      row(`${t.name}: bolometric flux`, "erg/s/cm^2", (m) => at(m).bolometric_flux_erg_s_cm2);
+  });
+  models[0].redshifts.forEach((r, ri) => {
+    for (const [key, label, unit] of SHEET_ROWS)
+      row(
+        `z = ${exact(r.z).text}: ${label}`,
+        unit,
+        (m) => (m.redshifts[ri] as unknown as Record<string, number | null>)[key],
+      );
+  });
+  row("Age today", "Gyr", (m) => m.summary.age_Gyr);
+  return {
+    id: "key-numbers",
+    title: "Numbers to quote",
+    anchor: "key-numbers",
+    spans: null,
+    stub: "Quantity",
+    columns,
+    rows,
+  };
+}
+
 /** Every table of a scenario page in page order: models, at a glance, each redshift table, early universe, targets, surveys. */
 export function exportTables(doc: StoredTablesDocument): ExportTable[] {
   // Only the quantities this document's format holds: a quantity added by a later format is left out, never blank.
@@ -62,7 +112,7 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
     unit,
     cells: models.map(f),
   });
-  const tables: ExportTable[] = [];
+  const tables: ExportTable[] = [keyNumbers(doc, columns)];
   tables.push({
     id: "models",
     title: "Models side by side",

@@ -1,3 +1,5 @@
+import { exportTables } from "../exports/exportTables.js";
+import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { fateText } from "../contract/quantityCatalog.js";
 import { formatExact, formatNumber, formatPercent, unitText } from "../contract/formatNumber.js";
 import { renderMarkdown } from "./renderMarkdown.js";
@@ -6,6 +8,8 @@ import { chartPayload, indexChartPayload, jsonForScriptElement } from "./chartPa
 
 /** The Nunjucks filters of the site: formatting only. Filters marked html return markup (marked safe by the config). */
 export const TEXT_FILTERS = {
+  /** The key-number sheet of a tables document (the same table its exports and copy buttons carry). */
+  keyNumbers: (doc: StoredTablesDocument) => exportTables(doc).find((t) => t.id === "key-numbers"),
   /** A model's fate in words, in the vocabulary of any format. */
   fate: (fate: string) => fateText(fate),
   /**

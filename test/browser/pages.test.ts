@@ -179,6 +179,39 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
       const copied = await page.evaluate(() => navigator.clipboard.readText());
       expect(copied).toBe(readFileSync(join(site, "lantern-deep-field/exports", file), "utf8"));
     }
+    // The key-number sheet, first section of the page, also copies as plain text: the numbers the page shows and
+    // a line naming their source.
+    const sheetFirst = await page.evaluate(() => document.querySelector("main section")?.id);
+    expect(sheetFirst).toBe("key-numbers");
+    for (const [format, file] of [
+      ["md", "key-numbers.md"],
+      ["tex", "key-numbers.tex"],
+    ]) {
+      await page.click(`p.exports[data-export="key-numbers"] button[data-copy-format="${format}"]`);
+      await page.waitForSelector(
+        `p.exports[data-export="key-numbers"] button[data-copy-format="${format}"][data-copied="true"]`,
+      );
+      expect(await page.evaluate(() => navigator.clipboard.readText())).toBe(
+        readFileSync(join(site, "lantern-deep-field/exports", file), "utf8"),
+      );
+    }
+    await page.click('p.exports[data-export="key-numbers"] button[data-copy-format="txt"]');
+    await page.waitForSelector(
+      'p.exports[data-export="key-numbers"] button[data-copy-format="txt"][data-copied="true"]',
+    );
+    const plain = await page.evaluate(() => navigator.clipboard.readText());
+    const shown = await page.evaluate(() =>
+      [...document.querySelectorAll("table.key-numbers tbody tr")].slice(0, 12).map((tr) => ({
+        label: tr.querySelector("th")!.textContent!.trim(),
+        cells: [...tr.querySelectorAll("td")].map((td) => td.textContent!.trim()),
+      })),
+    );
+    for (const r of shown) {
+      const line = plain.split("\n").find((l) => l.startsWith(r.label));
+      expect(line, r.label).toBeDefined();
+      for (const c of r.cells) expect(line).toContain(c);
+    }
+    expect(plain).toMatch(/\nSource: cosmoledger .* scenario lantern-deep-field .*(version \d+|unfrozen draft)/);
     await page.click('p.exports[data-export="assumptions"] button[data-copy-format="md"]');
     await page.waitForSelector(
       'p.exports[data-export="assumptions"] button[data-copy-format="md"][data-copied="true"]',
