@@ -42,7 +42,7 @@
       ["md", id === "assumptions" ? "Copy text" : "Copy Markdown"],
       ["tex", "Copy LaTeX"],
     ];
-    if (data.tables[id] && data.tables[id].txt) formats.push(["txt", "Copy plain text"]);
+    if (data.tables[id]?.txt) formats.push(["txt", "Copy plain text"]);
     formats.forEach((pair) => {
       var button = document.createElement("button");
       button.type = "button";
