@@ -14,6 +14,7 @@
   var style = JSON.parse(document.getElementById("chart-style").textContent);
   var COLOURS = style.colours;
   var DASHES = style.dashes;
+  var MARKERS = style.markers;
   Chart.defaults.animation = false;
   Chart.defaults.font.family = "system-ui, 'DejaVu Sans', sans-serif";
   Chart.defaults.color = style.ink;
@@ -64,6 +65,16 @@
     var seriesInput = figure.querySelector("[data-series]");
     var logInput = figure.querySelector("[data-log]");
     var ratioInput = figure.querySelector("[data-ratio]");
+    var logYInput = figure.querySelector("[data-logy]");
+    // The y axis starts logarithmic where the quantity spans more than a decade over the plotted range (decided at
+    // build time, as for the exported images); the switch overrides it. A ratio is always drawn linear.
+    function defaultLogY() {
+      logYInput.checked = !!byKey[seriesInput.value].logY;
+    }
+    defaultLogY();
+    function logY() {
+      return logYInput.checked && !ratioInput.checked;
+    }
     function build() {
       var key = seriesInput.value;
       var ratio = ratioInput.checked;
@@ -75,10 +86,13 @@
         for (let j = 0; j < data.z.length; j++) {
           const x = data.z[j];
           if (log && !(x > 0)) continue;
+          if (data.xRange && (x < data.xRange[0] || x > data.xRange[1])) continue;
           let y = ys[j];
           if (ratio) y = y === null || !base[j] ? null : y / base[j];
+          if (logY() && !(y > 0)) y = null;
           points.push({ x: x, y: y });
         }
+        var every = Math.max(1, Math.round(points.length / 9));
         return {
           label: m.label,
           data: points,
@@ -86,7 +100,10 @@
           backgroundColor: COLOURS[i % COLOURS.length],
           borderDash: DASHES[i % DASHES.length],
           borderWidth: 2,
-          pointRadius: 0,
+          // Each model's own marker every few points (offset per model so that markers do not sit on each other).
+          pointStyle: MARKERS[i % MARKERS.length],
+          pointRadius: (c) => ((c.dataIndex + i) % every === 0 ? 3.5 : 0),
+          pointBorderWidth: 1.2,
           spanGaps: false,
           fill: false,
         };
@@ -98,8 +115,31 @@
         ? `${s.label} / baseline (${data.baseline})`
         : s.label + (s.unitText ? ` [${s.unitText}]` : "");
     }
+    // The model's marker drawn on the middle of its legend line, so that the legend shows both (as the curves do).
+    var legendMarkers = {
+      id: "legend-markers",
+      afterDraw: (c) => {
+        var boxes = (c.legend && c.legend.legendHitBoxes) || [];
+        boxes.forEach((box, i) => {
+          var ctx = c.ctx;
+          ctx.save();
+          ctx.setLineDash([]);
+          ctx.strokeStyle = COLOURS[i % COLOURS.length];
+          ctx.fillStyle = COLOURS[i % COLOURS.length];
+          ctx.lineWidth = 1;
+          Chart.helpers.drawPoint(
+            ctx,
+            { pointStyle: MARKERS[i % MARKERS.length], radius: 3.5, borderWidth: 1.2, rotation: 0 },
+            box.left + 18,
+            box.top + box.height / 2,
+          );
+          ctx.restore();
+        });
+      },
+    };
     var chart = new Chart(canvas, {
       type: "line",
+      plugins: [legendMarkers],
       data: { datasets: build() },
       options: {
         parsing: false,
@@ -110,6 +150,9 @@
         scales: {
           x: {
             type: logInput.checked ? "logarithmic" : "linear",
+            // The scenario's own redshift range when it left the grid to its default (chartStyle.ts decides).
+            min: data.xRange ? data.xRange[0] : undefined,
+            max: data.xRange ? data.xRange[1] : undefined,
             title: { display: true, text: "redshift z" },
             ticks: {
               maxRotation: 0,
@@ -122,7 +165,7 @@
               },
             },
           },
-          y: { type: "linear", title: { display: true, text: yTitle() } },
+          y: { type: logY() ? "logarithmic" : "linear", title: { display: true, text: yTitle() } },
         },
         // Swatches are short lines with each model's dash pattern (as in the exported images), readable in greyscale.
         plugins: {
@@ -150,11 +193,16 @@
     function update() {
       chart.data.datasets = build();
       chart.options.scales.x.type = logInput.checked ? "logarithmic" : "linear";
+      chart.options.scales.y.type = logY() ? "logarithmic" : "linear";
       chart.options.scales.y.title.text = yTitle();
       chart.update();
     }
-    [seriesInput, logInput, ratioInput].forEach((input) => {
+    [logInput, ratioInput, logYInput].forEach((input) => {
       if (input) input.addEventListener("change", update);
+    });
+    seriesInput.addEventListener("change", () => {
+      defaultLogY();
+      update();
     });
     window.cosmoledgerCharts[figure.getAttribute("data-chart")] = chart;
   });

@@ -2,19 +2,21 @@ import { createRequire } from "node:module";
 import { readFileSync } from "node:fs";
 import { createCanvas, GlobalFonts, SvgExportFlag, type SKRSContext2D } from "@napi-rs/canvas";
 import { Chart, registerables, type ChartConfiguration, type Plugin } from "chart.js";
+import * as helpers from "chart.js/helpers";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { catalogFor, hasEarlyUniverse } from "../contract/quantityCatalog.js";
 import { formatNumber } from "../contract/formatNumber.js";
 import { escapeHtml, unitText } from "./exportFormats.js";
 import { provenanceLine, type ExportProvenance } from "./exportProvenance.js";
-import { withPngText } from "./pngText.js";
-import { CHART_STYLE } from "./chartStyle.js";
+import { withPngResolution, withPngText } from "./pngText.js";
+import { CHART_STYLE, MARKERS_PER_CURVE, plottedRedshiftRange, spansMoreThanADecade } from "./chartStyle.js";
 
 Chart.register(...registerables);
 
 /** The pages' palette and line patterns (chartStyle.ts), so an exported chart looks like the page's. */
 const COLOURS: string[] = [...CHART_STYLE.colours];
 const DASHES = CHART_STYLE.dashes.map((d) => [...d]);
+const MARKERS: string[] = [...CHART_STYLE.markers];
 const FONT = "cosmoledger DejaVu Sans";
 const INK = CHART_STYLE.ink;
 
@@ -37,39 +39,87 @@ function registerFont(): void {
 export interface ChartSpec {
   id: string;
   key: string;
+  /** The values themselves, or each model divided by the baseline (the page's "ratio to baseline" view). */
+  variant: "values" | "ratio";
   title: string;
   yLabel: string;
   alt: string;
   log: boolean;
+  /** Logarithmic y axis: the quantity spans more than a decade over the plotted range (never for a ratio). */
+  logY: boolean;
+  /** The plotted redshift range when the scenario left its grid to the default; null for the whole grid. */
+  xRange: [number, number] | null;
   datasets: { label: string; points: { x: number; y: number | null }[] }[];
 }
 
-/** Every exportable chart of a page: one per chart and series, as the page offers them (log redshift axis, the page's default). */
+/** A redshift as a reader gives it: at most six significant figures, no padding (20, not 20.0000). */
+const zText = (z: number) => String(Number(z.toPrecision(6)));
+
+/**
+ * Every exportable chart of a page, as the page offers them: one per chart and series, and the same as a ratio to
+ * the baseline; log redshift axis (the page's default), the redshift range the page plots, and a log y axis where
+ * the quantity spans more than a decade (chartStyle.ts decides both, for the page and the images alike).
+ */
 export function chartSpecs(doc: StoredTablesDocument): ChartSpec[] {
   const early = hasEarlyUniverse(doc);
   const z = doc.models[0].grid.z as number[];
+  const range = plottedRedshiftRange(doc);
   const specs: ChartSpec[] = [];
   const { CHARTS, CHART_SERIES } = catalogFor(doc); // only the series this document's format holds
+  const baseline = doc.models.find((m) => m.id === doc.scenario.baseline) ?? doc.models[0];
   for (const c of CHARTS) {
     if (c.id === "bao" && !early) continue;
     for (const key of c.keys) {
       const s = CHART_SERIES.find((x) => x.key === key)!;
-      const yLabel = s.unit ? `${s.label} [${unitText(s.unit)}]` : s.label;
-      const keep = z.map((x) => x > 0);
-      const datasets = doc.models.map((m) => ({
-        label: m.label,
-        points: z.flatMap((x, i) =>
-          keep[i] ? [{ x, y: (m.grid as unknown as Record<string, (number | null)[]>)[key][i] }] : [],
-        ),
-      }));
-      const zs = z.filter((x) => x > 0);
-      const last = datasets.map((d) => d.points.at(-1)?.y).filter((y): y is number => typeof y === "number");
-      const range = last.length
-        ? `At z = ${formatNumber(zs.at(-1)!)} the values run from ${formatNumber(Math.min(...last))} to ${formatNumber(Math.max(...last))}${s.unit ? ` ${unitText(s.unit)}` : ""}.`
-        : "";
-      const alt =
-        `Line chart of ${yLabel} against redshift z from ${formatNumber(zs[0])} to ${formatNumber(zs.at(-1)!)} (logarithmic axis) for ${doc.models.length} model${doc.models.length === 1 ? "" : "s"}: ${doc.models.map((m) => m.label).join(", ")}. ${range}`.trim();
-      specs.push({ id: c.id, key, title: `${c.title}: ${s.label}`, yLabel, alt, log: true, datasets });
+      const column = (m: (typeof doc.models)[number]) => (m.grid as unknown as Record<string, (number | null)[]>)[key];
+      const keep = z.map((x) => x > 0 && (!range || (x >= range[0] && x <= range[1])));
+      const zs = z.filter((_, i) => keep[i]);
+      const title = c.keys.length > 1 || c.title !== s.label ? `${c.title}: ${s.label}` : s.label;
+      for (const variant of ["values", "ratio"] as const) {
+        const base = column(baseline);
+        const datasets = doc.models.map((m) => ({
+          label: m.label,
+          points: z.flatMap((x, i) => {
+            if (!keep[i]) return [];
+            const y = column(m)[i];
+            if (variant === "values") return [{ x, y }];
+            return [{ x, y: y === null || !base[i] ? null : y / (base[i] as number) }];
+          }),
+        }));
+        const unit = variant === "ratio" ? "" : s.unit;
+        const yLabel =
+          variant === "ratio"
+            ? `${s.label} / baseline (${baseline.label})`
+            : s.unit
+              ? `${s.label} [${unitText(s.unit)}]`
+              : s.label;
+        const last = datasets.map((d) => d.points.at(-1)?.y).filter((y): y is number => typeof y === "number");
+        const at = zs.length ? zText(zs.at(-1)!) : "";
+        const rangeText = last.length
+          ? `At z = ${at} the values run from ${formatNumber(Math.min(...last))} to ${formatNumber(Math.max(...last))}${unit ? ` ${unitText(unit)}` : ""}.`
+          : "";
+        const logY =
+          variant === "values" &&
+          spansMoreThanADecade(
+            z,
+            doc.models.map((m) => column(m)),
+            range,
+          );
+        const alt =
+          `Line chart of ${yLabel} against redshift z from ${zs.length ? zText(zs[0]) : ""} to ${at} (logarithmic axis${logY ? "; logarithmic y axis" : ""}) for ${doc.models.length} model${doc.models.length === 1 ? "" : "s"}: ${doc.models.map((m) => m.label).join(", ")}. ${rangeText}`.trim();
+        specs.push({
+          id: c.id,
+          key,
+          variant,
+          title: variant === "ratio" ? `${title}, ratio to the baseline` : title,
+          yLabel,
+          alt,
+          log: true,
+          logY,
+          xRange: range,
+          datasets,
+        });
+      }
     }
   }
   return specs;
@@ -87,6 +137,34 @@ const logTick = (value: number | string) => {
   const v = Number(value);
   const m = v / 10 ** Math.floor(Math.log10(v) + 1e-9);
   return [1, 2, 5].some((k) => Math.abs(m - k) < 1e-6) ? formatNumber(v, 3).replace(/\.0+$|(\.\d*?)0+$/, "$1") : "";
+};
+
+/**
+ * Each legend swatch is a short line in the model's colour and dash pattern; this draws the model's marker on its
+ * middle, so that the legend shows both, as the curves do (eight models stay apart in greyscale).
+ */
+const legendMarkers: Plugin<"line"> = {
+  id: "legend-markers",
+  afterDraw: (chart) => {
+    // legendHitBoxes is Chart.js's own record of where it drew each legend item (not in its type declarations).
+    type Box = { left: number; top: number; height: number };
+    const boxes = (chart.legend as unknown as { legendHitBoxes?: Box[] } | undefined)?.legendHitBoxes ?? [];
+    const ctx = chart.ctx;
+    boxes.forEach((box, i) => {
+      ctx.save();
+      ctx.setLineDash([]);
+      ctx.strokeStyle = COLOURS[i % COLOURS.length];
+      ctx.fillStyle = COLOURS[i % COLOURS.length];
+      ctx.lineWidth = 1;
+      helpers.drawPoint(
+        ctx,
+        { pointStyle: MARKERS[i % MARKERS.length] as never, radius: 3, borderWidth: 1, rotation: 0 },
+        box.left + 15,
+        box.top + box.height / 2,
+      );
+      ctx.restore();
+    });
+  },
 };
 
 function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfiguration<"line"> {
@@ -122,7 +200,12 @@ function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfi
         backgroundColor: COLOURS[i % COLOURS.length],
         borderDash: DASHES[i % DASHES.length],
         borderWidth: 1.6,
-        pointRadius: 0,
+        // Each model's own marker every few points, offset per model, as on the page.
+        pointStyle: MARKERS[i % MARKERS.length],
+        pointRadius: d.points.map((_, j) =>
+          (j + i) % Math.max(1, Math.round(d.points.length / MARKERS_PER_CURVE)) === 0 ? 3 : 0,
+        ),
+        pointBorderWidth: 1,
         spanGaps: false,
         fill: false,
       })),
@@ -137,6 +220,8 @@ function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfi
       scales: {
         x: {
           type: spec.log ? "logarithmic" : "linear",
+          min: spec.xRange?.[0],
+          max: spec.xRange?.[1],
           title: { display: true, text: "redshift z", color: INK, font: { family: FONT, size: 11 } },
           ticks: {
             color: INK,
@@ -147,7 +232,7 @@ function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfi
           },
         },
         y: {
-          type: "linear",
+          type: spec.logY ? "logarithmic" : "linear",
           title: { display: true, text: spec.yLabel, color: INK, font: { family: FONT, size: 11 } },
           ticks: { color: INK, font: { family: FONT, size: 9 } },
         },
@@ -179,7 +264,7 @@ function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfi
         },
       },
     },
-    plugins: [background],
+    plugins: [background, legendMarkers],
   } as ChartConfiguration<"line">;
 }
 
@@ -204,7 +289,8 @@ export async function chartPng(spec: ChartSpec, p: ExportProvenance): Promise<Bu
   registerFont();
   const canvas = createCanvas(CHART_WIDTH, CHART_HEIGHT);
   const encoding = drawThen(canvas.getContext("2d"), spec, p, PNG_SCALE, () => canvas.encode("png"));
-  return withPngText(await encoding, {
+  // 1800 x 1020 px printed at 6 x 3.4 inches: the file says so (pHYs), as its caption claims.
+  return withPngText(withPngResolution(await encoding, (CHART_WIDTH * PNG_SCALE) / 6), {
     Title: spec.title,
     Description: spec.alt,
     Source: provenanceLine(p),

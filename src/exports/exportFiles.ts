@@ -80,7 +80,7 @@ export function exportFiles(
         alt: spec.alt,
         files: {},
       };
-      const stem = `chart-${spec.id}-${spec.key}`;
+      const stem = `chart-${spec.id}-${spec.key}${spec.variant === "ratio" ? "-ratio" : ""}`;
       if (wantCharts.includes("png")) {
         entry.files.png = `${stem}.png`;
         files.push({ name: entry.files.png, content: () => render.png(spec, p) });

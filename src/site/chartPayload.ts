@@ -2,6 +2,7 @@ import serialize from "serialize-javascript";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { catalogFor } from "../contract/quantityCatalog.js";
 import { unitText } from "../contract/formatNumber.js";
+import { plottedRedshiftRange, spansMoreThanADecade } from "../exports/chartStyle.js";
 
 /** Plot points are drawn, not read: six significant figures are more than a screen resolves. */
 const round = (x: number | null) => (x === null ? null : Number(x.toPrecision(6)));
@@ -10,10 +11,22 @@ const round = (x: number | null) => (x === null ? null : Number(x.toPrecision(6)
 export function chartPayload(doc: StoredTablesDocument) {
   const z = doc.models[0].grid.z.map(round);
   const { CHART_SERIES } = catalogFor(doc); // only the series this document's format holds
+  const grid = (m: (typeof doc.models)[number], key: string) =>
+    (m.grid as unknown as Record<string, (number | null)[]>)[key];
+  const xRange = plottedRedshiftRange(doc);
   return {
     baseline: doc.scenario.baseline,
     z,
-    series: CHART_SERIES.map((s) => ({ ...s, unitText: unitText(s.unit) })),
+    xRange,
+    series: CHART_SERIES.map((s) => ({
+      ...s,
+      unitText: unitText(s.unit),
+      logY: spansMoreThanADecade(
+        doc.models[0].grid.z,
+        doc.models.map((m) => grid(m, s.key)),
+        xRange,
+      ),
+    })),
     models: doc.models.map((m) => ({
       id: m.id,
       label: m.label,

@@ -41,6 +41,10 @@ describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chrom
     const dir = tempDir();
     mkdirSync(join(dir, "scenarios"));
     writeFileSync(join(dir, "scenarios/six.yaml"), SIX_MODELS);
+    writeFileSync(
+      join(dir, "scenarios/deep.yaml"),
+      "title: Deep survey\nid: deep\nredshifts: [4, 6, 8, 12]\nmodels:\n  - { id: a, H0: 70, Omega_m: 0.3 }\n  - { id: b, H0: 67, Omega_m: 0.32 }\n",
+    );
     for (const f of ["lantern-deep-field.yaml", "harbor-lights-census.yaml"])
       writeFileSync(join(dir, "scenarios", f), readFileSync(join(ROOT, "scenarios", f)));
     // A frozen version (for the version, history and diff pages), then a change so that a diff exists.
@@ -131,6 +135,39 @@ describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chrom
     expect(await page.title()).toBe("A & B: six models · cosmoledger");
     await page.goto(`file://${join(site, "six-models/history/index.html")}`);
     expect(await page.title()).toBe("History of A & B: six models · cosmoledger");
+    await page.close();
+  });
+
+  it("charts: log y where a quantity spans more than a decade, the redshift range of the scenario, markers per model", async () => {
+    const page = await context.newPage();
+    await page.goto(`file://${join(site, "lantern-deep-field/index.html")}`);
+    const lantern = await page.evaluate(() => {
+      const charts = (window as unknown as { cosmoledgerCharts: Record<string, any> }).cosmoledgerCharts;
+      const d = charts.distances;
+      return {
+        yType: d.options.scales.y.type,
+        markers: d.data.datasets.map((x: { pointStyle: string }) => x.pointStyle),
+        logYChecked: (document.querySelector('figure[data-chart="distances"] [data-logy]') as HTMLInputElement).checked,
+      };
+    });
+    // D_C over the grid from z = 0.01 to 10 spans more than two decades (common practice: log axis).
+    expect(lantern.yType).toBe("logarithmic");
+    expect(lantern.logYChecked).toBe(true);
+    expect(new Set(lantern.markers).size).toBe(lantern.markers.length); // one marker per model
+    // The ratio view is linear, and the switch turns the log y axis off.
+    await page.check('figure[data-chart="distances"] [data-ratio]');
+    expect(await page.evaluate(() => (window as any).cosmoledgerCharts.distances.options.scales.y.type)).toBe("linear");
+    await page.uncheck('figure[data-chart="distances"] [data-ratio]');
+    await page.uncheck('figure[data-chart="distances"] [data-logy]');
+    expect(await page.evaluate(() => (window as any).cosmoledgerCharts.distances.options.scales.y.type)).toBe("linear");
+    // A survey at z = 4 to 12 (grid left to its default) is drawn from z = 4 to 12, not from 0.01.
+    await page.goto(`file://${join(site, "deep/index.html")}`);
+    const deep = await page.evaluate(() => {
+      const d = (window as any).cosmoledgerCharts.distances;
+      return { min: d.scales.x.min, max: d.scales.x.max };
+    });
+    expect(deep.min).toBeGreaterThanOrEqual(4);
+    expect(deep.max).toBeLessThanOrEqual(12);
     await page.close();
   });
 

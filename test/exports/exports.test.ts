@@ -229,8 +229,14 @@ describe("exports of the demo site", () => {
 
   it("PNGs decode (pngjs) at print size with drawn pixels, and carry provenance and alt text in iTXt chunks", () => {
     const pngs = readdirSync(exportsDir()).filter((f) => f.endsWith(".png"));
-    expect(pngs.length).toBe(12); // 4 distances, H/(1+z), age and lookback, scale, volume, 3 BAO ratios
-    for (const f of pngs.slice(0, 3)) {
+    // 4 distances, H/(1+z), age and lookback, scale, volume, 3 BAO ratios: each as values and as a ratio to baseline.
+    expect(pngs.length).toBe(24);
+    expect(pngs.filter((f) => f.endsWith("-ratio.png"))).toHaveLength(12);
+    for (const f of [
+      ...pngs.slice(0, 3),
+      "chart-scale-kpc_per_arcsec_proper.png",
+      "chart-distances-luminosity_distance_Mpc-ratio.png",
+    ]) {
       const bytes = readFileSync(join(exportsDir(), f));
       const png = PNG.sync.read(bytes);
       expect([png.width, png.height]).toEqual([1800, 1020]);
@@ -240,10 +246,13 @@ describe("exports of the demo site", () => {
       expect(drawn, f).toBeGreaterThan(20_000);
       // Walk the chunks as the PNG specification lays them out: length, type, data, CRC.
       const text: Record<string, string> = {};
+      let pixelsPerMetre: number[] = [];
       for (let at = 8; at < bytes.length; ) {
         const length = bytes.readUInt32BE(at);
         const type = bytes.toString("latin1", at + 4, at + 8);
         const data = bytes.subarray(at + 8, at + 8 + length);
+        // pHYs: pixels per unit on x and y, unit 1 = metre (PNG specification 11.3.5.3).
+        if (type === "pHYs") pixelsPerMetre = [data.readUInt32BE(0), data.readUInt32BE(4), data[8]];
         if (type === "iTXt") {
           const nul = data.indexOf(0);
           const rest = data.subarray(nul + 3);
@@ -255,7 +264,19 @@ describe("exports of the demo site", () => {
       }
       expect(text.Source).toMatch(/^cosmoledger .*lantern-deep-field.*version 2/);
       expect(text.Description).toMatch(/^Line chart of .* for 5 models/);
-      expect(text.Title).toMatch(/: /);
+      // 300 dpi = 300 / 0.0254 m = 11811 pixels per metre, as "1800 x 1020 px: 6 x 3.4 inches at 300 dpi" claims.
+      expect(pixelsPerMetre, f).toEqual([11811, 11811, 1]);
+      // A title says each thing once ("Proper scale", not "Proper scale: Proper scale").
+      const parts = text.Title.split(/: |, /);
+      expect(new Set(parts).size, text.Title).toBe(parts.length);
+      // Redshifts are written as a reader gives them (no padded zeros such as 20.0000).
+      const zs = [
+        ...(/redshift z from (\S+) to (\S+) /.exec(text.Description)?.slice(1) ?? []),
+        ...(/At z = (\S+) /.exec(text.Description)?.slice(1) ?? []),
+      ];
+      expect(zs.length, text.Description).toBe(3);
+      for (const z of zs) expect(z, text.Description).not.toMatch(/\.\d*0$|\.$/);
+      if (f.includes("-ratio")) expect(text.Title).toMatch(/ratio to the baseline$/);
     }
   });
 
