@@ -119,7 +119,7 @@
     var legendMarkers = {
       id: "legend-markers",
       afterDraw: (c) => {
-        var boxes = (c.legend && c.legend.legendHitBoxes) || [];
+        var boxes = c.legend?.legendHitBoxes || [];
         boxes.forEach((box, i) => {
           var ctx = c.ctx;
           ctx.save();
