@@ -4,7 +4,7 @@ import { HTML_FILTERS, TEXT_FILTERS } from "./dist/site/siteFilters.js";
 import { defaultArchive, readLedger } from "./dist/cli/readLedger.js";
 import { getSiteLedger } from "./dist/site/siteLedger.js";
 import * as catalog from "./dist/contract/quantityCatalog.js";
-import { CLOSURE_TEX, FRIEDMANN_TEX } from "./dist/site/renderMath.js";
+import { CLOSURE_TEX, FERMI_DIRAC_TEX, FRIEDMANN_TEX, NEUTRINO_TEX } from "./dist/site/renderMath.js";
 import { formatIssue } from "./dist/scenario/scenarioIssue.js";
 import { ENGINE_VERSION } from "./dist/engine/engineVersion.js";
 import { SITE_MARKER } from "./dist/cli/siteMarker.js";
@@ -36,7 +36,12 @@ export default function (eleventyConfig) {
   );
   eleventyConfig.addGlobalData("catalog", { ...catalog });
   eleventyConfig.addGlobalData("chartStyle", CHART_STYLE);
-  eleventyConfig.addGlobalData("tex", { friedmann: FRIEDMANN_TEX, closure: CLOSURE_TEX });
+  eleventyConfig.addGlobalData("tex", {
+    friedmann: FRIEDMANN_TEX,
+    closure: CLOSURE_TEX,
+    neutrinos: NEUTRINO_TEX,
+    fermiDirac: FERMI_DIRAC_TEX,
+  });
   eleventyConfig.addGlobalData("tool", { name: "cosmoledger", engine: ENGINE_VERSION });
   eleventyConfig.addWatchTarget(scenariosDir);
   eleventyConfig.addWatchTarget(archiveDir);
@@ -54,6 +59,13 @@ export default function (eleventyConfig) {
 
   eleventyConfig.addPassthroughCopy({ "content/assets": "assets" });
   eleventyConfig.addPassthroughCopy({ "node_modules/chart.js/dist/chart.umd.min.js": "assets/chart.umd.min.js" });
+
+  // Under `cosmoledger build` (which reports the build itself), Eleventy's timing notes ("[11ty] Benchmark ...") are
+  // silenced: a slow machine must not add lines to a command's output.
+  if (process.env.COSMOLEDGER_SITE_OUT) {
+    eleventyConfig.benchmarkManager?.setVerboseOutput(false);
+    for (const group of Object.values(eleventyConfig.benchmarkManager?.getAll() ?? {})) group.setIsVerbose(false);
+  }
 
   return {
     // cosmoledger build renders into a temporary folder that it then swaps in (COSMOLEDGER_SITE_OUT).

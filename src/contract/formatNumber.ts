@@ -29,13 +29,36 @@ export interface NumberParts {
 export function numberParts(x: number | null | undefined, digits = DISPLAY_DIGITS): NumberParts | null {
   if (x === null || x === undefined || !Number.isFinite(x)) return null;
   if (x === 0) return { negative: false, mantissa: "0", exponent: null };
-  const ax = Math.abs(x);
+  // Decide the notation on the rounded value: 999999.7 rounds to 1.00000e6 and prints as 1.00000 x 10^6.
+  const ax = Number(Math.abs(x).toPrecision(digits));
   if (ax >= 1e-3 && ax < 1e6) {
     const s = ax.toPrecision(digits);
     return { negative: x < 0, mantissa: s.includes("e") ? Number(s).toString() : s, exponent: null };
   }
   const [mantissa, exponent] = ax.toExponential(digits - 1).split("e");
   return { negative: x < 0, mantissa, exponent: Number(exponent) };
+}
+
+/**
+ * Whether a column of numbers prints in scientific notation as a whole: when any of its values would, so that one
+ * column never mixes 0.00103223 with 8.59504 x 10^-4.
+ */
+export function columnIsScientific(values: readonly (number | null | undefined)[], digits = DISPLAY_DIGITS): boolean {
+  return values.some((x) => numberParts(x, digits)?.exponent != null);
+}
+
+/** numberParts, in scientific notation when `scientific` (the column's style), else as numberParts chooses. */
+export function numberPartsIn(
+  x: number | null | undefined,
+  scientific: boolean,
+  digits = DISPLAY_DIGITS,
+): NumberParts | null {
+  const p = numberParts(x, digits);
+  if (p === null || !scientific || p.exponent !== null || x === 0) return p;
+  const [mantissa, exponent] = Math.abs(x as number)
+    .toExponential(digits - 1)
+    .split("e");
+  return { negative: (x as number) < 0, mantissa, exponent: Number(exponent) };
 }
 
 /** The parts of an input exactly as given (shortest round-trip form). */

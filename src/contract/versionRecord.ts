@@ -90,6 +90,14 @@ export const tablesFormatOf = (doc: StoredTablesDocument) => formatNumber(doc.fo
  */
 export function holdsSameInputs(record: StoredVersionRecord, doc: TablesDocument): boolean {
   if (record.source.text !== doc.scenario.source_text) return false;
+  return resolvesAlike(record, doc);
+}
+
+/**
+ * Same resolved inputs and engine as a version, whatever the source text: a draft that differs from it only in
+ * comments, spacing or key order computes the same numbers.
+ */
+export function resolvesAlike(record: StoredVersionRecord, doc: TablesDocument): boolean {
   const n = tablesFormatOf(record.tables);
   return record.tables.scenario.inputs_sha256 === inputsSha256UnderFormat(n, doc.engine.version, doc.inputs);
 }

@@ -131,6 +131,15 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
     return { plain: `${join(g.pieces).plain}${where}`, tex: `${join(g.pieces).tex}${texWhere}` };
   });
   const early = hasEarlyUniverse(doc);
+  // The neutrino treatment, named where any model has a massive species (README, "Massive neutrinos").
+  const massive = doc.models.some((m) => m.parameters.m_nu_eV.length > 0);
+  const neutrinos = massive
+    ? {
+        plain:
+          "Each massive neutrino species carries N_eff/3 of the relativistic neutrino density at T_nu = (4/11)^(1/3) T_cmb and follows the exact Fermi-Dirac energy integral; the remaining N_eff share is massless radiation, and Omega_m includes the massive neutrinos today.",
+        tex: String.raw`Each massive neutrino species carries $N_\mathrm{eff}/3$ of the relativistic neutrino density at $T_\nu = (4/11)^{1/3}\,T_\mathrm{CMB}$ and follows the exact Fermi--Dirac energy integral; the remaining share of $N_\mathrm{eff}$ is massless radiation, and $\Omega_m$ includes the massive neutrinos today.`,
+      }
+    : null;
   const version =
     p.version === null
       ? `an unfrozen draft (inputs SHA-256 ${p.inputs_sha256})`
@@ -139,6 +148,7 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
     `Background quantities were computed for ${doc.models.length} FLRW model${doc.models.length === 1 ? "" : "s"} of the scenario "${oneLine(doc.scenario.title)}": ${models.map((m) => m.plain).join("; ")}.`,
     defaults.length ? `Defaults applied: ${defaults.map((d) => d.plain).join("; ")}.` : "No defaults were applied.",
     `Curvature follows from the closure relation; integrals were evaluated by adaptive Gauss-Kronrod quadrature to a relative tolerance of ${doc.engine.tolerance}.`,
+    neutrinos?.plain ?? "",
     early
       ? "Recombination and drag redshifts come from the fitting formulas of Hu & Sugiyama (1996) and Eisenstein & Hu (1998), and r_drag from the calibrated formula of Aubourg et al. (2015)."
       : "",
@@ -151,6 +161,7 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
     `Background quantities were computed for ${doc.models.length} FLRW model${doc.models.length === 1 ? "" : "s"} of the scenario \`\`${escapeLatex(doc.scenario.title)}'': ${models.map((m) => m.tex).join("; ")}.`,
     defaults.length ? `Defaults applied: ${defaults.map((d) => d.tex).join("; ")}.` : "No defaults were applied.",
     `Curvature follows from the closure relation; integrals were evaluated by adaptive Gauss--Kronrod quadrature to a relative tolerance of $${texNumber(doc.engine.tolerance)}$.`,
+    neutrinos?.tex ?? "",
     early
       ? "Recombination and drag redshifts come from the fitting formulas of Hu \\& Sugiyama (1996) and Eisenstein \\& Hu (1998), and $r_\\mathrm{drag}$ from the calibrated formula of Aubourg et al.\\ (2015)."
       : "",

@@ -1,6 +1,13 @@
 import { quantityValue, type StoredModelTables, type StoredTablesDocument } from "../contract/tablesDocument.js";
 import { catalogFor, fateText } from "../contract/quantityCatalog.js";
-import { exactParts, numberParts, partsText, type NumberParts } from "../contract/formatNumber.js";
+import {
+  columnIsScientific,
+  exactParts,
+  numberParts,
+  numberPartsIn,
+  partsText,
+  type NumberParts,
+} from "../contract/formatNumber.js";
 
 /** One cell: the raw value (full precision, for CSV and JSON) and what the page prints (number parts or text). */
 export interface ExportCell {
@@ -36,6 +43,10 @@ const num = (x: number | null | undefined): ExportCell => {
   const parts = numberParts(x);
   return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
 };
+const inStyle = (x: number | null | undefined, scientific: boolean): ExportCell => {
+  const parts = numberPartsIn(x, scientific);
+  return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
+};
 const exact = (x: number | null | undefined): ExportCell => {
   const parts = exactParts(x);
   return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
@@ -61,6 +72,18 @@ const SHEET_ROWS = [
  * was placed (its redshift when solved, then its angular or physical size, magnitude or flux as given), then the
  * headline quantities at each table redshift, then the age today. Read from the document, never recomputed.
  */
+/** The key-number sheet alone (the page renders it; its exports come with the other tables). */
+export function keyNumbersTable(doc: StoredTablesDocument): ExportTable {
+  return keyNumbers(doc, modelColumns(doc));
+}
+
+function modelColumns(doc: StoredTablesDocument): ExportTable["columns"] {
+  return doc.models.map((m) => {
+    const tex = "label_tex" in m ? m.label_tex : null; // format 3 on
+    return tex ? { label: m.label, unit: "", tex } : { label: m.label, unit: "" };
+  });
+}
+
 function keyNumbers(doc: StoredTablesDocument, columns: ExportTable["columns"]): ExportTable {
   const models = doc.models;
   const rows: ExportRow[] = [];
@@ -103,10 +126,7 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
   const { EARLY_QUANTITIES, PARAMETERS, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES, hasEarlyUniverse } =
     catalogFor(doc);
   const models = doc.models;
-  const columns = models.map((m) => {
-    const tex = "label_tex" in m ? m.label_tex : null; // format 3 on
-    return tex ? { label: m.label, unit: "", tex } : { label: m.label, unit: "" };
-  });
+  const columns = modelColumns(doc);
   const perModel = (label: string, unit: string, f: (m: StoredModelTables) => ExportCell): ExportRow => ({
     label,
     unit,
@@ -150,6 +170,18 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
       ),
     ],
   });
+  // One column, one style: a model's column of a quantity is scientific when any of its rows needs it.
+  const zValue = (m: StoredModelTables, i: number, key: string) =>
+    quantityValue(m.redshifts[i], key as never) as number | null;
+  const zStyle = new Map<string, boolean[]>();
+  const zScientific = (key: string) => {
+    let styles = zStyle.get(key);
+    if (!styles) {
+      styles = models.map((m) => columnIsScientific(m.redshifts.map((_, i) => zValue(m, i, key))));
+      zStyle.set(key, styles);
+    }
+    return styles;
+  };
   for (const g of REDSHIFT_GROUPS) {
     if (g.id === "bao" && !hasEarlyUniverse) continue;
     // The whole group in one table (a column block per quantity), then each quantity's table as the page shows it.
@@ -163,9 +195,7 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
       rows: models[0].redshifts.map((r, i) => ({
         label: exact(r.z).text,
         unit: "",
-        cells: g.quantities.flatMap((q) =>
-          models.map((m) => num(quantityValue(m.redshifts[i], q.key) as number | null)),
-        ),
+        cells: g.quantities.flatMap((q) => models.map((m, mi) => inStyle(zValue(m, i, q.key), zScientific(q.key)[mi]))),
       })),
     });
     for (const q of g.quantities) {
@@ -179,7 +209,7 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
         rows: models[0].redshifts.map((r, i) => ({
           label: exact(r.z).text,
           unit: "",
-          cells: models.map((m) => num(quantityValue(m.redshifts[i], q.key) as number | null)),
+          cells: models.map((m, mi) => inStyle(zValue(m, i, q.key), zScientific(q.key)[mi])),
         })),
       });
     }
@@ -224,6 +254,14 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
   });
   if (models[0].surveys.length > 0) {
     const perDeg2 = "volume_per_deg2_Mpc3" in models[0].surveys[0];
+    // One column, one style (as on the page): a model's column is scientific when any of its shells needs it.
+    const columnOf = (key: string) =>
+      models.map((m) => columnIsScientific(m.surveys.map((s) => (s as Record<string, unknown>)[key] as number | null)));
+    const styles = {
+      volume: columnOf("volume_Gpc3"),
+      perDeg2: columnOf("volume_per_deg2_Mpc3"),
+      count: columnOf("expected_count"),
+    };
     tables.push({
       id: "surveys",
       title: "Survey shells",
@@ -247,10 +285,12 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
           exact(s.area_deg2),
           exact(s.z_min),
           exact(s.z_max),
-          ...models.flatMap((m) => [
-            num(m.surveys[si].volume_Gpc3),
-            ...(perDeg2 ? [num(quantityValue(m.surveys[si], "volume_per_deg2_Mpc3") as number | null)] : []),
-            num(m.surveys[si].expected_count),
+          ...models.flatMap((m, mi) => [
+            inStyle(m.surveys[si].volume_Gpc3, styles.volume[mi]),
+            ...(perDeg2
+              ? [inStyle(quantityValue(m.surveys[si], "volume_per_deg2_Mpc3") as number | null, styles.perDeg2[mi])]
+              : []),
+            inStyle(m.surveys[si].expected_count, styles.count[mi]),
           ]),
         ],
       })),

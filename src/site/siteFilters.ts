@@ -1,15 +1,34 @@
-import { exportTables } from "../exports/exportTables.js";
+import { keyNumbersTable } from "../exports/exportTables.js";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { fateText } from "../contract/quantityCatalog.js";
-import { formatExact, formatNumber, formatPercent, unitText } from "../contract/formatNumber.js";
+import {
+  columnIsScientific,
+  formatExact,
+  formatNumber,
+  formatPercent,
+  numberPartsIn,
+  partsText,
+  unitText,
+} from "../contract/formatNumber.js";
 import { renderMarkdown } from "./renderMarkdown.js";
 import { renderMath } from "./renderMath.js";
 import { chartPayload, indexChartPayload, jsonForScriptElement } from "./chartPayload.js";
 
 /** The Nunjucks filters of the site: formatting only. Filters marked html return markup (marked safe by the config). */
 export const TEXT_FILTERS = {
+  /** Whether any model of a document has a massive neutrino (the page then shows the neutrino terms). */
+  hasMassiveNeutrinos: (doc: StoredTablesDocument) => doc.models.some((m) => m.parameters.m_nu_eV.length > 0),
+  /** A number in its column's style (scientific when any value of the column is): see columnIsScientific. */
+  numIn: (x: number | null | undefined, scientific: boolean) =>
+    x === undefined ? "not computed" : partsText(numberPartsIn(x, scientific)),
+  /** For each model, whether its column of a per-redshift quantity prints in scientific notation. */
+  redshiftColumnStyles: (models: { redshifts: Record<string, unknown>[] }[], key: string) =>
+    models.map((m) => columnIsScientific(m.redshifts.map((r) => r[key] as number | null))),
+  /** For each model, whether its column of a survey quantity prints in scientific notation. */
+  surveyColumnStyles: (models: { surveys: Record<string, number | null>[] }[], key: string) =>
+    models.map((m) => columnIsScientific(m.surveys.map((s) => s[key]))),
   /** The key-number sheet of a tables document (the same table its exports and copy buttons carry). */
-  keyNumbers: (doc: StoredTablesDocument) => exportTables(doc).find((t) => t.id === "key-numbers"),
+  keyNumbers: (doc: StoredTablesDocument) => keyNumbersTable(doc),
   /** A model's fate in words, in the vocabulary of any format. */
   fate: (fate: string) => fateText(fate),
   /**

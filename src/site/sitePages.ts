@@ -1,5 +1,6 @@
 import {
   holdsSameInputs,
+  resolvesAlike,
   VERSION_FORMAT,
   type StoredVersionRecord,
   type VersionRecord,
@@ -62,6 +63,8 @@ export interface ScenarioPage {
   downloads: string[];
   /** For a draft: the page comparing the latest version with the draft. */
   draftDiffPath: string | null;
+  /** For a draft: whether it resolves to the latest version's inputs (it differs only in comments or layout). */
+  draftSameNumbers?: boolean;
   /** The page's exports (files under <path>exports/) and the text behind its copy buttons; null when exports are off. */
   exports: ExportIndex | null;
 }
@@ -255,6 +258,7 @@ export function sitePages(
       versionCount: versions.length,
       downloads: [],
       draftDiffPath,
+      draftSameNumbers: isDraft && latest && file ? resolvesAlike(latest, file) : false,
       exports: null,
     };
     attachExports(livePage);

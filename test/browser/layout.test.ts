@@ -52,6 +52,11 @@ describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chrom
     expect(freeze("first").code).toBe(0);
     writeFileSync(join(dir, "scenarios/six.yaml"), SIX_MODELS.replace("H0: 66,", "H0: 66.5,"));
     expect(freeze("second").code).toBe(0);
+    // Then a comment-only edit: the file differs from version 2, its numbers do not.
+    writeFileSync(
+      join(dir, "scenarios/six.yaml"),
+      `# a note added after freezing\n${SIX_MODELS.replace("H0: 66,", "H0: 66.5,")}`,
+    );
     site = join(dir, "site");
     const r = runCli(["build", "--scenarios", "scenarios", "--out", site, "--quiet", "--skip-images"], dir);
     if (r.code !== 0) throw new Error(r.stderr);
@@ -168,6 +173,22 @@ describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chrom
     });
     expect(deep.min).toBeGreaterThanOrEqual(4);
     expect(deep.max).toBeLessThanOrEqual(12);
+    await page.close();
+  });
+
+  it("a draft that differs only in comments says so; a page with massive neutrinos shows their terms", async () => {
+    const page = await context.newPage();
+    await page.goto(`file://${join(site, "six-models/index.html")}`);
+    const banner = await page.textContent(".banner-draft");
+    expect(banner).toMatch(/only in comments or layout: its inputs and every number are those of version 2/);
+    expect(banner).not.toMatch(/Numbers here may change/);
+    await page.goto(`file://${join(site, "lantern-deep-field/index.html")}`);
+    const assumptions = (await page.textContent("#assumptions")) ?? "";
+    expect(assumptions).toMatch(/each of the Nν massive species carries Neff\/3 of the relativistic neutrino density/);
+    expect(await page.locator("#assumptions .math").count()).toBe(4); // Friedmann, closure, neutrino terms, F(y)
+    expect(await page.textContent(".assumptions-sentence")).toMatch(/Each massive neutrino species carries N_eff\/3/);
+    await page.goto(`file://${join(site, "six-models/index.html")}`);
+    expect(await page.locator("#assumptions .math").count()).toBe(2); // no massive neutrinos: no neutrino terms
     await page.close();
   });
 

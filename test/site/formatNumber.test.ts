@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { formatExact, formatNumber, formatPercent } from "../../src/contract/formatNumber.js";
+import {
+  columnIsScientific,
+  formatExact,
+  formatNumber,
+  formatPercent,
+  numberPartsIn,
+  partsText,
+} from "../../src/contract/formatNumber.js";
 
 // Rounding to significant figures as defined by ECMAScript Number.prototype.toPrecision (ECMA-262).
 describe("number formatting on the pages", () => {
@@ -12,6 +19,19 @@ describe("number formatting on the pages", () => {
   it("scientific notation with a superscript exponent outside that range", () => {
     expect(formatNumber(2.876276e10)).toBe("2.87628 \u00d7 10\u00b9\u2070");
     expect(formatNumber(8.9924e-5)).toBe("8.99240 \u00d7 10\u207b\u2075");
+  });
+  it("the notation follows the rounded value: 999999.7 is 1.00000 x 10^6, not 1000000", () => {
+    expect(formatNumber(999999.7)).toBe("1.00000 \u00d7 10\u2076");
+    expect(formatNumber(0.00099999996)).toBe("0.00100000");
+  });
+  it("one column, one style: a column with any value in scientific notation prints all of them so", () => {
+    const column = [0.00103223, 8.59504e-4];
+    expect(columnIsScientific(column)).toBe(true);
+    expect(column.map((x) => partsText(numberPartsIn(x, true)))).toEqual([
+      "1.03223 \u00d7 10\u207b\u00b3",
+      "8.59504 \u00d7 10\u207b\u2074",
+    ]);
+    expect(columnIsScientific([1.5, 2000, null])).toBe(false);
   });
   it("null and non-finite values print as an em dash", () => {
     expect(formatNumber(null)).toBe("\u2014");
