@@ -101,6 +101,15 @@ describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chrom
       }));
       expect(scrollWidth, p).toBeLessThanOrEqual(clientWidth);
     }
+    // The history reads as one card per version: every cell inside the screen, none hidden in a scrolled box.
+    await page.goto(`file://${join(site, "six-models/history/index.html")}`);
+    const cells = await page.evaluate(() =>
+      [...document.querySelectorAll("table.versions td, table.versions th")].map(
+        (c) => c.getBoundingClientRect().right,
+      ),
+    );
+    expect(cells.length).toBeGreaterThan(0);
+    for (const right of cells) expect(right).toBeLessThanOrEqual(390);
     await page.goto(`file://${join(site, "six-models/index.html")}`);
     // The six-model tables are wider than the phone: each scrolls in its .table-wrap.
     const scrolls = await page.evaluate(() =>
