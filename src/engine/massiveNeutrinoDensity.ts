@@ -1,5 +1,5 @@
 import type { BackgroundModel } from "./backgroundModel.js";
-import { energyRatioSlope, lnEnergyRatio } from "./fermiDiracEnergy.js";
+import { lnEnergyRatio, lnPressureRatio } from "./fermiDiracEnergy.js";
 
 /**
  * rho_nu(a) / rho_crit,0 summed over massive species: Omega_rel a^-4 R(y0 a), R = F(y)/F(0) the Fermi-Dirac energy
@@ -16,8 +16,8 @@ export function massiveNeutrinoDensity(model: BackgroundModel, a: number): numbe
 
 /**
  * The massive neutrinos split into their radiation-like part 3p and matter-like part rho - 3p (relative to
- * rho_crit,0), and the acceleration source rho + 3p. From rho ~ a^-4 R(y): 3p/rho = 1 - G, G = d ln R / d ln y,
- * so rho + 3p = rho (2 - G).
+ * rho_crit,0), and the acceleration source rho + 3p: rho = Omega_rel a^-4 F(y)/F(0) and 3p = Omega_rel a^-4 P(y)/F(0)
+ * (Fermi-Dirac energy and pressure integrals; equivalently 3p/rho = 1 - d ln F / d ln y).
  */
 export function massiveNeutrinoParts(model: BackgroundModel, a: number): { rho: number; threeP: number } {
   let rho = 0;
@@ -27,7 +27,8 @@ export function massiveNeutrinoParts(model: BackgroundModel, a: number): { rho: 
     const lnY = n.lnY0 + lnA;
     const r = n.Omega_rel * Math.exp(lnEnergyRatio(lnY) - 4 * lnA);
     rho += r;
-    threeP += r * (1 - energyRatioSlope(lnY));
+    // 3p from its own integral (P/F), not from the slope of the energy table: full relative accuracy when p << rho.
+    threeP += n.Omega_rel * Math.exp(lnPressureRatio(lnY) - 4 * lnA);
   }
   return { rho, threeP };
 }

@@ -65,6 +65,8 @@ export interface ScenarioPage {
   draftDiffPath: string | null;
   /** For a draft: whether it resolves to the latest version's inputs (it differs only in comments or layout). */
   draftSameNumbers?: boolean;
+  /** For a draft: the file is the latest version's own text; only the engine that computes it is newer. */
+  draftEngineOnly?: boolean;
   /** The page's exports (files under <path>exports/) and the text behind its copy buttons; null when exports are off. */
   exports: ExportIndex | null;
 }
@@ -259,6 +261,10 @@ export function sitePages(
       downloads: [],
       draftDiffPath,
       draftSameNumbers: isDraft && latest && file ? resolvesAlike(latest, file) : false,
+      draftEngineOnly:
+        isDraft && latest && file
+          ? latest.source.text === file.scenario.source_text && latest.tables.engine.version !== file.engine.version
+          : false,
       exports: null,
     };
     attachExports(livePage);

@@ -10,7 +10,7 @@ import { compileProject, ROOT, runCli, tempDir } from "../helpers/buildDemoSite.
 import { tablesDocumentProblem, versionRecordProblem } from "../../src/contract/validateContract.js";
 import { versionHash, type StoredVersionRecord } from "../../src/contract/versionRecord.js";
 import { compareWithRecomputed } from "../../src/archive/versionDrift.js";
-import { explainingChange, type DeclaredChange } from "../../src/engine/index.js";
+import { DECLARED_CHANGES, ENGINE_VERSION, explainingChange, type DeclaredChange } from "../../src/engine/index.js";
 import { loadScenario } from "../../src/scenario/loadScenario.js";
 import { buildTablesDocument } from "../../src/tables/buildTablesDocument.js";
 import { inputsSha256, inputsSha256Format1 } from "../../src/contract/inputsHash.js";
@@ -51,8 +51,8 @@ describe("format 1, as released, stays readable", { timeout: 180_000 }, () => {
   it("format-1 inputs hashes are kept under their own rule; format 2 hashes canonical JSON, independent of key order", () => {
     const r = record("ember-relay", 2);
     const doc = buildTablesDocument(loadScenario(r.source.text, r.source.path));
-    // Same engine, same inputs: the format-1 rule reproduces the stored hash exactly.
-    expect(inputsSha256Format1(doc.engine.version, doc.inputs)).toBe(r.tables.scenario.inputs_sha256);
+    // Same inputs, hashed with the engine version the record holds: the format-1 rule reproduces the stored hash.
+    expect(inputsSha256Format1(r.tables.engine.version, doc.inputs)).toBe(r.tables.scenario.inputs_sha256);
     expect(doc.scenario.inputs_sha256).toBe(inputsSha256(doc.engine.version, doc.inputs));
     // Reversing the key order of every object changes the format-1 hash but not the format-2 one.
     const reversed = (v: unknown): unknown =>
@@ -67,7 +67,7 @@ describe("format 1, as released, stays readable", { timeout: 180_000 }, () => {
           : v;
     const shuffled = reversed(doc.inputs) as typeof doc.inputs;
     expect(inputsSha256(doc.engine.version, shuffled)).toBe(doc.scenario.inputs_sha256);
-    expect(inputsSha256Format1(doc.engine.version, shuffled)).not.toBe(r.tables.scenario.inputs_sha256);
+    expect(inputsSha256Format1(r.tables.engine.version, shuffled)).not.toBe(r.tables.scenario.inputs_sha256);
   });
 
   it("verify --strict, the site, the diff pages and export read the fixture; freeze continues its chains in the new format", () => {
@@ -78,24 +78,29 @@ describe("format 1, as released, stays readable", { timeout: 180_000 }, () => {
       /2 scenarios, 5 versions \(5 of cosmoledger\.tables\/1\); every hash and chain link checks out/,
     );
 
-    // Same text, same engine: a no-op, judged by the format-1 rule of the latest version.
+    // Same text under a newer engine (1.1.0 changed the neutrino pressure, a declared change): the numbers moved, so
+    // freezing makes a new version of the current format; freezing once more is then a no-op.
     const same = runCli(["freeze", "scenarios/ember-relay.yaml", "-m", "again"], dir);
     expect(same.code, same.stderr).toBe(0);
-    expect(same.stdout).toMatch(/unchanged: ember-relay version 2 already holds these inputs/);
-    // An edit continues the chain with a record of the current format.
-    const yaml = join(dir, "scenarios/ember-relay.yaml");
-    writeFileSync(yaml, readFileSync(yaml, "utf8").replace("H0: 67.7", "H0: 67.8"));
-    const f = runCli(["freeze", "scenarios/ember-relay.yaml", "-m", "after the format change"], dir);
-    expect(f.code, f.stderr).toBe(0);
+    expect(same.stdout).toMatch(/froze ember-relay version 3/);
     const v3 = JSON.parse(readFileSync(join(dir, "scenarios/archive/ember-relay/v3.json"), "utf8"));
     expect([v3.format, v3.tables.format, v3.previous_sha256]).toEqual([
       "cosmoledger.version/2",
       "cosmoledger.tables/3",
       record("ember-relay", 2).sha256,
     ]);
+    const noop = runCli(["freeze", "scenarios/ember-relay.yaml", "-m", "again"], dir);
+    expect(noop.stdout).toMatch(/unchanged: ember-relay version 3 already holds these inputs/);
+    // An edit continues the chain.
+    const yaml = join(dir, "scenarios/ember-relay.yaml");
+    writeFileSync(yaml, readFileSync(yaml, "utf8").replace("H0: 67.7", "H0: 67.8"));
+    const f = runCli(["freeze", "scenarios/ember-relay.yaml", "-m", "after the format change"], dir);
+    expect(f.code, f.stderr).toBe(0);
+    const v4 = JSON.parse(readFileSync(join(dir, "scenarios/archive/ember-relay/v4.json"), "utf8"));
+    expect(v4.previous_sha256).toBe(v3.sha256);
     const again = runCli(["verify", "--archive", "scenarios/archive", "--strict"], dir);
     expect(again.code, again.stderr).toBe(0);
-    expect(again.stdout).toMatch(/6 versions \(5 of cosmoledger\.tables\/1, 1 of cosmoledger\.tables\/3\)/);
+    expect(again.stdout).toMatch(/7 versions \(5 of cosmoledger\.tables\/1, 2 of cosmoledger\.tables\/3\)/);
 
     const b = runCli(["build", "--scenarios", "scenarios", "--out", "site", "--skip-images"], dir);
     expect(b.code, b.stderr).toBe(0);
@@ -103,9 +108,11 @@ describe("format 1, as released, stays readable", { timeout: 180_000 }, () => {
       "ember-relay/v1",
       "ember-relay/v2",
       "ember-relay/v3",
+      "ember-relay/v4",
       "cinder-vault/v3",
       "ember-relay/diff/v1-v2",
       "ember-relay/diff/v2-v3",
+      "ember-relay/diff/v3-v4",
       "cinder-vault/diff/v2-v3",
     ]) {
       expect(existsSync(join(dir, "site", p, "index.html")), p).toBe(true);
@@ -185,13 +192,20 @@ describe("drift the engine means", () => {
   };
 
   it("without a declared change the drift is unexplained; with one it is explained and named", () => {
-    const bare = compareWithRecomputed(old, now, [], "1.0.0");
-    expect(bare.drift.map((d) => [d.model, d.quantity, d.explainedBy])).toEqual([
-      ["nu-heavy", "summary.age_Gyr", null],
+    // The engine's own declared changes (the neutrino pressure integral of engine 1.1.0) explain their drift; the
+    // injected age change is the only drift they leave unexplained.
+    const bare = compareWithRecomputed(old, now, DECLARED_CHANGES, ENGINE_VERSION);
+    const unexplained = bare.drift.filter((d) => d.explainedBy === null);
+    expect(unexplained.map((d) => [d.model, d.quantity])).toEqual([["nu-heavy", "summary.age_Gyr"]]);
+    expect(unexplained[0].relative).toBeCloseTo(1e-6, 9);
+    expect(
+      bare.drift.filter((d) => d.explainedBy).every((d) => d.explainedBy!.id === "neutrino-pressure-integral"),
+    ).toBe(true);
+    const declared = compareWithRecomputed(old, now, [change, ...DECLARED_CHANGES], ENGINE_VERSION);
+    expect(declared.drift.filter((d) => d.quantity === "summary.age_Gyr").map((d) => d.explainedBy?.id)).toEqual([
+      "test-neutrino-age",
     ]);
-    expect(bare.drift[0].relative).toBeCloseTo(1e-6, 9);
-    const declared = compareWithRecomputed(old, now, [change], "1.0.0");
-    expect(declared.drift.map((d) => d.explainedBy?.id)).toEqual(["test-neutrino-age"]);
+    expect(declared.drift.every((d) => d.explainedBy !== null)).toBe(true);
     expect(bare.added.length).toBeGreaterThan(0);
     expect(bare.added.filter((k) => !FORMAT_3_ADDITIONS.includes(k))).toEqual([]);
   });
@@ -211,9 +225,9 @@ describe("drift the engine means", () => {
       delete (m.summary as Record<string, unknown>).k_eq_1_Mpc;
       for (const row of m.redshifts) delete (row as unknown as Record<string, unknown>).E;
     }
-    const c = compareWithRecomputed(trimmed, now, [], "1.0.0");
+    const c = compareWithRecomputed(trimmed, now, DECLARED_CHANGES, ENGINE_VERSION);
     expect(c.added.filter((k) => !FORMAT_3_ADDITIONS.includes(k))).toEqual(["redshifts[].E", "summary.k_eq_1_Mpc"]);
-    expect(c.drift).toEqual([]);
+    expect(c.drift.filter((d) => d.explainedBy === null)).toEqual([]);
   });
 });
 
