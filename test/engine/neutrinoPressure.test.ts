@@ -8,17 +8,16 @@ import { lnEnergyRatio, lnPressureRatio } from "../../src/engine/index.js";
 import { relErr } from "../helpers/modelOf.js";
 
 type Row = { y: string; P_over_F0: string; threeP_over_rho: string };
-const fixture: { rows: Row[] } = JSON.parse(readFileSync(join(import.meta.dirname, "../fixtures/mpmath/neutrinoPressure.json"), "utf8"));
+const fixture: { rows: Row[] } = JSON.parse(
+  readFileSync(join(import.meta.dirname, "../fixtures/mpmath/neutrinoPressure.json"), "utf8"),
+);
 
 describe("Fermi-Dirac pressure of a massive species", () => {
-  it.each(fixture.rows.map((r) => [r.y, r] as [string, Row]))(
-    "y = %s: P/F(0) and 3p/rho within 1.5e-10",
-    (_, r) => {
-      const lnY = Math.log(Number(r.y));
-      expect(relErr(Math.exp(lnPressureRatio(lnY)), Number(r.P_over_F0))).toBeLessThan(1e-10);
-      expect(relErr(Math.exp(lnPressureRatio(lnY) - lnEnergyRatio(lnY)), Number(r.threeP_over_rho))).toBeLessThan(
-        1.5e-10,
-      );
-    },
-  );
+  it.each(fixture.rows.map((r) => [r.y, r] as [string, Row]))("y = %s: P/F(0) and 3p/rho within 1.5e-10", (_, r) => {
+    const lnY = Math.log(Number(r.y));
+    expect(relErr(Math.exp(lnPressureRatio(lnY)), Number(r.P_over_F0))).toBeLessThan(1e-10);
+    expect(relErr(Math.exp(lnPressureRatio(lnY) - lnEnergyRatio(lnY)), Number(r.threeP_over_rho))).toBeLessThan(
+      1.5e-10,
+    );
+  });
 });
