@@ -103,4 +103,5 @@ export function formatExact(x: number | null | undefined): string {
 }
 
 /** Units as pages and exports write them: the key's ^2 and ^3 as superscripts (Gpc^3 -> Gpc³). */
-export const unitText = (u: string) => u.replace(/\^3/g, "\u00b3").replace(/\^2/g, "\u00b2");
+export const unitText = (u: string) =>
+  u.replace(/\^(-?)([123])/g, (_, minus: string, d: string) => `${minus ? "\u207b" : ""}${SUPERSCRIPT[d]}`);

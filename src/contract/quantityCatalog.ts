@@ -1,4 +1,5 @@
 import type { ModelParameters, RowKey, SummaryKey, TargetKey } from "./tablesDocument.js";
+import { littleHUnit, wantsLittleHUnits } from "./littleHUnitNames.js";
 
 /**
  * How each quantity of the tables document is named, grouped and united on pages, exports and diffs (display only;
@@ -271,30 +272,39 @@ export function catalogFor(doc: {
   const groups = REDSHIFT_GROUPS.map((g) => ({ ...g, quantities: keep(g.quantities, row) })).filter(
     (g) => g.quantities.length > 0,
   );
+  // A scenario that asks for h units shows every length, volume and wavenumber in them (the values are converted
+  // by the page, tables/littleHUnits.ts); the labels say so here.
+  const h = wantsLittleHUnits(doc);
+  const u = <Q extends QuantityInfo>(list: Q[]): Q[] =>
+    h ? list.map((q) => ({ ...q, unit: littleHUnit(q.unit) })) : list;
   return {
-    REDSHIFT_GROUPS: groups,
+    REDSHIFT_GROUPS: groups.map((g) => ({ ...g, quantities: u(g.quantities) })),
     // The big-rip rows appear only where a model has one (most scenarios have none; older formats cannot).
-    SUMMARY_QUANTITIES: keep(
-      SUMMARY_QUANTITIES.filter(
-        (q) =>
-          !RIP_KEYS.includes(q.key) || doc.models.some((x) => (x.summary as Record<string, unknown>)[q.key] != null),
+    SUMMARY_QUANTITIES: u(
+      keep(
+        SUMMARY_QUANTITIES.filter(
+          (q) =>
+            !RIP_KEYS.includes(q.key) || doc.models.some((x) => (x.summary as Record<string, unknown>)[q.key] != null),
+        ),
+        (k) => k in m.summary,
       ),
-      (k) => k in m.summary,
     ),
     PARAMETERS: keep(PARAMETERS, (k) => k in m.parameters),
-    EARLY_QUANTITIES: keep(EARLY_QUANTITIES, (k) => k in m.summary),
+    EARLY_QUANTITIES: u(keep(EARLY_QUANTITIES, (k) => k in m.summary)),
     // The size-from-angle rows appear only where a target was given an angular size.
     TARGET_QUANTITIES: m.targets.length
-      ? keep(
-          TARGET_QUANTITIES.filter(
-            (q) =>
-              !ANGLE_KEYS.includes(q.key) ||
-              doc.models.some((x) => x.targets.some((t) => (t as Record<string, unknown>).size_arcsec != null)),
+      ? u(
+          keep(
+            TARGET_QUANTITIES.filter(
+              (q) =>
+                !ANGLE_KEYS.includes(q.key) ||
+                doc.models.some((x) => x.targets.some((t) => (t as Record<string, unknown>).size_arcsec != null)),
+            ),
+            (k) => k in m.targets[0],
           ),
-          (k) => k in m.targets[0],
         )
-      : TARGET_QUANTITIES,
-    CHART_SERIES: keep(CHART_SERIES, row),
+      : u(TARGET_QUANTITIES),
+    CHART_SERIES: u(keep(CHART_SERIES, row)),
     CHARTS: CHARTS.map((c) => ({ ...c, keys: c.keys.filter(row) })).filter((c) => c.keys.length > 0),
     notComputed,
     hasEarlyUniverse: hasEarlyUniverse(doc),

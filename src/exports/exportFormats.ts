@@ -135,7 +135,7 @@ export function latexNumber(p: NumberParts | null): string {
   if (p.exponent === null) return p.negative ? `$-${p.mantissa}$` : p.mantissa;
   return `$${p.negative ? "-" : ""}${p.mantissa}\\times10^{${p.exponent}}$`;
 }
-const latexUnit = (u: string) => escapeLatex(u).replace(/\\textasciicircum\{\}(\d)/g, "\\textsuperscript{$1}");
+const latexUnit = (u: string) => escapeLatex(u).replace(/\\textasciicircum\{\}(-?\d)/g, "\\textsuperscript{$1}");
 const latexLabel = (label: string, unit: string) =>
   unit ? `${escapeLatex(label)} [${latexUnit(unit)}]` : escapeLatex(label);
 

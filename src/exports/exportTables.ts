@@ -1,5 +1,6 @@
 import { quantityValue, type StoredModelTables, type StoredTablesDocument } from "../contract/tablesDocument.js";
 import { catalogFor, fateText } from "../contract/quantityCatalog.js";
+import { littleHUnit, wantsLittleHUnits } from "../contract/littleHUnitNames.js";
 import {
   columnIsScientific,
   exactParts,
@@ -87,8 +88,9 @@ function modelColumns(doc: StoredTablesDocument): ExportTable["columns"] {
 function keyNumbers(doc: StoredTablesDocument, columns: ExportTable["columns"]): ExportTable {
   const models = doc.models;
   const rows: ExportRow[] = [];
+  const h = wantsLittleHUnits(doc);
   const row = (label: string, unit: string, value: (m: StoredModelTables) => number | null | undefined) =>
-    rows.push({ label, unit, cells: models.map((m) => num(value(m))) });
+    rows.push({ label, unit: h ? littleHUnit(unit) : unit, cells: models.map((m) => num(value(m))) });
   models[0].targets.forEach((t, ti) => {
     const at = (m: StoredModelTables) => m.targets[ti] as unknown as Record<string, number | null | undefined>;
     if (t.placed_by !== "z") row(`${t.name}: redshift`, "", (m) => at(m).z);
@@ -254,6 +256,7 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
   });
   if (models[0].surveys.length > 0) {
     const perDeg2 = "volume_per_deg2_Mpc3" in models[0].surveys[0];
+    const hUnit = (unit: string) => (wantsLittleHUnits(doc) ? littleHUnit(unit) : unit);
     // One column, one style (as on the page): a model's column is scientific when any of its shells needs it.
     const columnOf = (key: string) =>
       models.map((m) => columnIsScientific(m.surveys.map((s) => (s as Record<string, unknown>)[key] as number | null)));
@@ -273,8 +276,8 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
         { label: "z min", unit: "" },
         { label: "z max", unit: "" },
         ...models.flatMap((m) => [
-          { label: `${m.label}: volume`, unit: "Gpc^3" },
-          ...(perDeg2 ? [{ label: `${m.label}: volume per deg^2`, unit: "Mpc^3" }] : []),
+          { label: `${m.label}: volume`, unit: hUnit("Gpc^3") },
+          ...(perDeg2 ? [{ label: `${m.label}: volume per deg^2`, unit: hUnit("Mpc^3") }] : []),
           { label: `${m.label}: expected count`, unit: "" },
         ]),
       ],

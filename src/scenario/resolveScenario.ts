@@ -401,6 +401,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     targets,
     surveys,
     defaults_applied: defaultsApplied,
+    ...(raw.h_units === true ? { h_units: true as const } : {}),
     plausibility,
     // The recorded name is the file's own name: documents and versions never depend on where a command ran,
     // and never hold a path of the builder's machine.

@@ -82,6 +82,8 @@ export interface ResolvedScenario {
   surveys: ResolvedSurvey[];
   /** Scenario-level keys that took their defaults. */
   defaults_applied: string[];
+  /** Lengths in h^-1 Mpc on pages and exports; present only when set (so that other inputs hash as before). */
+  h_units?: true;
   /** Valid values that are probably not what was meant (H0 = 0.7), located; warnings, errors under --strict. Not an input. */
   plausibility: ScenarioIssue[];
   /** The file as given on the command line (for messages), its own name (recorded in documents), and its text. */

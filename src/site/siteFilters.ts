@@ -1,3 +1,4 @@
+import { littleHUnit, wantsLittleHUnits } from "../contract/littleHUnitNames.js";
 import { keyNumbersTable } from "../exports/exportTables.js";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { fateText } from "../contract/quantityCatalog.js";
@@ -16,6 +17,10 @@ import { chartPayload, indexChartPayload, jsonForScriptElement } from "./chartPa
 
 /** The Nunjucks filters of the site: formatting only. Filters marked html return markup (marked safe by the config). */
 export const TEXT_FILTERS = {
+  /** Whether the page shows h units (the scenario's h_units). */
+  hUnits: (doc: object) => wantsLittleHUnits(doc),
+  /** A unit as the page shows it: in h units when the scenario asks for them. */
+  hUnit: (unit: string, doc: object) => (wantsLittleHUnits(doc) ? littleHUnit(unit) : unit),
   /** Whether any model of a document has a massive neutrino (the page then shows the neutrino terms). */
   hasMassiveNeutrinos: (doc: StoredTablesDocument) => doc.models.some((m) => m.parameters.m_nu_eV.length > 0),
   /** A number in its column's style (scientific when any value of the column is): see columnIsScientific. */

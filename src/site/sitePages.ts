@@ -10,6 +10,7 @@ import type { ScenarioArchive } from "../archive/readArchive.js";
 import type { StoredTablesDocument, TablesDocument } from "../contract/tablesDocument.js";
 import { catalogFor, type DocumentCatalog } from "../contract/quantityCatalog.js";
 import { tablesCsv } from "../tables/tablesCsv.js";
+import { inLittleHUnits, wantsLittleHUnits } from "../tables/littleHUnits.js";
 import type { ExportContent, ExportIndex } from "../exports/exportFiles.js";
 import { formatPercent } from "../contract/formatNumber.js";
 import { jsonForScriptElement } from "./chartPayload.js";
@@ -164,6 +165,9 @@ function summarise(d: VersionDiff): string {
   return parts.join("; ");
 }
 
+/** The document as its page shows it: in h units when the scenario asks for them (downloads keep the contract's Mpc). */
+const shown = <D extends StoredTablesDocument>(doc: D): D => (wantsLittleHUnits(doc) ? inLittleHUnits(doc) : doc);
+
 function downloadsOf(
   path: string,
   doc: StoredTablesDocument,
@@ -227,7 +231,7 @@ export function sitePages(
         path: `${id}/v${r.version}/`,
         root: "../../",
         status: "frozen",
-        doc: r.tables,
+        doc: shown(r.tables),
         source: r.source.text,
         catalog: catalogFor(r.tables),
         format: r.tables.format,
@@ -251,7 +255,7 @@ export function sitePages(
       path: `${id}/`,
       root: "../",
       status,
-      doc,
+      doc: shown(doc),
       source: file ? file.scenario.source_text : latest!.source.text,
       catalog: catalogFor(doc),
       format: doc.format,

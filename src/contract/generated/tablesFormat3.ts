@@ -246,6 +246,10 @@ export interface ResolvedInputs {
      */
     label_tex?: string;
   }[];
+  /**
+   * Present only when the scenario asks for h units (display only; the document stays in Mpc).
+   */
+  h_units?: true;
 }
 export interface Row {
   z: Num;
