@@ -1,7 +1,7 @@
 import { photonDensityParameter } from "./photonDensityParameter.js";
 import { masslessNeutrinoDensityParameter } from "./masslessNeutrinoDensityParameter.js";
 import { CONSTANTS } from "./constants.js";
-import { lnEnergyRatio } from "./fermiDiracEnergy.js";
+import { FD_ENERGY_MASSLESS, FD_NUMBER, lnEnergyRatio } from "./fermiDiracEnergy.js";
 
 /** |Omega_k| at or below this is treated as exactly flat (Omega_k set to 0). */
 export const FLATNESS_THRESHOLD = 1e-12;
@@ -76,6 +76,23 @@ export interface BackgroundModel {
   readonly geometry: Geometry;
 }
 
+/** sum m / (Omega_nu h^2) in the non-relativistic limit that the trade quotes (Mangano et al. 2005), in eV. */
+export const NU_MASS_PER_OMEGA_H2_EV = 93.14;
+
+/**
+ * kappa = 93.14 eV / D, where D = sum m / (Omega_nu h^2) of one species at T_nu = (4/11)^(1/3) 2.7255 K carrying the
+ * full relativistic density of one species: D = F(0) k T_nu / ((7/8) (4/11)^(4/3) Omega_gamma h^2 (3 zeta(3)/2)),
+ * about 94.06 eV from the CODATA constants (so kappa is about 0.99018).
+ */
+export const NR_CONVENTION_KAPPA = (() => {
+  const T_cmb = 2.7255;
+  const Omega_gamma_h2 = photonDensityParameter(T_cmb, 100);
+  const kT_nu_eV = (CONSTANTS.boltzmann_constant.value * Math.cbrt(4 / 11) * T_cmb) / CONSTANTS.electron_volt.value;
+  const perSpeciesH2 = (7 / 8) * (4 / 11) ** (4 / 3) * Omega_gamma_h2;
+  const D = 1 / ((perSpeciesH2 * (FD_NUMBER / FD_ENERGY_MASSLESS)) / kT_nu_eV);
+  return NU_MASS_PER_OMEGA_H2_EV / D;
+})();
+
 /** Resolves a model: radiation from T_cmb and N_eff, then curvature or dark energy from closure (Friedmann equation at z = 0). */
 export function makeBackgroundModel(input: BackgroundModelInput): BackgroundModel {
   const { H0_km_s_Mpc, Omega_m, w0, wa, radiation } = input;
@@ -84,16 +101,21 @@ export function makeBackgroundModel(input: BackgroundModelInput): BackgroundMode
   if (masses.length > 3) throw new RangeError("at most three neutrino species can be massive");
   if (masses.length > 0 && !radiation)
     throw new RangeError("massive neutrinos need thermal radiation (their temperature follows T_cmb)");
-  // Convention: each massive species carries N_eff/3 of the early relativistic neutrino density, at temperature
-  // T_nu = (4/11)^(1/3) T_cmb (instantaneous decoupling), and turns non-relativistic following the exact
-  // Fermi-Dirac energy integral. The massless species share the rest.
+  // Convention (README, "Massive neutrinos"): each massive species carries N_eff/3 of the early relativistic
+  // neutrino density and turns non-relativistic following the exact Fermi-Dirac integrals, at an effective
+  // temperature T_eff = T_nu (N_eff/3) kappa, T_nu = (4/11)^(1/3) T_cmb. Relativistic: rho ~ Omega_rel a^-4, so the
+  // N_eff/3 share is kept; non-relativistic: rho ~ Omega_rel (3 zeta(3)/2) / F(0) m / (k T_eff), so kappa sets
+  // Omega_nu h^2 = sum m / 93.14 eV at T_cmb = 2.7255 K (Mangano et al. 2005; Lesgourgues & Pastor 2006).
+  // The massless species share the rest.
   const perSpecies = radiation ? masslessNeutrinoDensityParameter(radiation.N_eff / 3, Omega_gamma) : 0;
   const Omega_nu = radiation ? perSpecies * (3 - masses.length) : 0;
   const T_nu_K = radiation ? Math.cbrt(4 / 11) * radiation.T_cmb_K : null;
+  const lnTeffOverTnu = radiation ? Math.log((radiation.N_eff / 3) * NR_CONVENTION_KAPPA) : 0;
   const massiveNeutrinos: MassiveNeutrino[] = masses.map((m) => ({
     m_eV: m,
     Omega_rel: perSpecies,
-    lnY0: Math.log((m * CONSTANTS.electron_volt.value) / (CONSTANTS.boltzmann_constant.value * T_nu_K!)),
+    lnY0:
+      Math.log((m * CONSTANTS.electron_volt.value) / (CONSTANTS.boltzmann_constant.value * T_nu_K!)) - lnTeffOverTnu,
   }));
   const Omega_nu_massive = massiveNeutrinos.reduce((sum, n) => sum + n.Omega_rel * Math.exp(lnEnergyRatio(n.lnY0)), 0);
   const Omega_cb = Omega_m - Omega_nu_massive;

@@ -50,6 +50,14 @@ export const DECLARED_CHANGES: readonly DeclaredChange[] = [
     applies: (p) => p.m_nu_eV.some((m) => m > 0),
     why: "The pressure of massive neutrinos (3p/rho) now comes from its own Fermi-Dirac integral, P(y) = int x^4/sqrt(x^2+y^2)/(e^x+1) dx (Kolb & Turner 1990, ch. 3), instead of the slope of the tabulated energy; it was off by up to 4e-7 relative where p << rho, and is now within 1e-10 (mpmath fixture test/fixtures/mpmath/neutrinoPressure.json). The energy density is unchanged.",
   },
+  {
+    id: "neutrino-93.14-ev",
+    engine_version: "1.2.0",
+    quantities: ["parameters.*", "summary.*", "redshifts[].*", "grid.*", "targets[].*", "surveys[].*"],
+    models: "models with a massive neutrino",
+    applies: (p) => p.m_nu_eV.some((m) => m > 0),
+    why: "Massive neutrinos now follow the convention of the trade in the non-relativistic limit, Omega_nu h^2 = sum m / 93.14 eV (Mangano et al. 2005; Lesgourgues & Pastor 2006), instead of sum m / 92.70 eV; the relativistic limit stays N_eff/3 of the neutrino density per species. Omega_cb (Omega_m less the neutrinos) and every quantity of such models move by up to about 0.5 % of the neutrino share.",
+  },
 ];
 
 /** Compares two dotted version numbers ("1.10.0" > "1.9.2"); negative, zero or positive. */

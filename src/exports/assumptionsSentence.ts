@@ -136,8 +136,8 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
   const neutrinos = massive
     ? {
         plain:
-          "Each massive neutrino species carries N_eff/3 of the relativistic neutrino density at T_nu = (4/11)^(1/3) T_cmb and follows the exact Fermi-Dirac energy integral; the remaining N_eff share is massless radiation, and Omega_m includes the massive neutrinos today.",
-        tex: String.raw`Each massive neutrino species carries $N_\mathrm{eff}/3$ of the relativistic neutrino density at $T_\nu = (4/11)^{1/3}\,T_\mathrm{CMB}$ and follows the exact Fermi--Dirac energy integral; the remaining share of $N_\mathrm{eff}$ is massless radiation, and $\Omega_m$ includes the massive neutrinos today.`,
+          "Each massive neutrino species carries N_eff/3 of the relativistic neutrino density and follows the exact Fermi-Dirac integrals at an effective temperature chosen so that Omega_nu h^2 = sum m / 93.14 eV when non-relativistic (Mangano et al. 2005); the remaining N_eff share is massless radiation, and Omega_m includes the massive neutrinos today.",
+        tex: String.raw`Each massive neutrino species carries $N_\mathrm{eff}/3$ of the relativistic neutrino density and follows the exact Fermi--Dirac integrals at an effective temperature chosen so that $\Omega_\nu h^2 = \sum m_\nu / 93.14\,\mathrm{eV}$ when non-relativistic (Mangano et al.\ 2005); the remaining share of $N_\mathrm{eff}$ is massless radiation, and $\Omega_m$ includes the massive neutrinos today.`,
       }
     : null;
   const version =

@@ -16,4 +16,4 @@ export const CLOSURE_TEX = String.raw`\Omega_k = 1 - \Omega_m - \Omega_r - \Omeg
  * y = m_i / (k T_nu,0) / (1 + z); the massless share of radiation is what is left of N_eff.
  */
 export const NEUTRINO_TEX = String.raw`\frac{H^2(z)}{H_0^2} = \Omega_\gamma (1+z)^4 \left[1 + \tfrac{7}{8}\left(\tfrac{4}{11}\right)^{4/3} N_{\rm eff}\,\tfrac{3 - N_\nu}{3}\right] + \sum_{i=1}^{N_\nu} \tfrac{N_{\rm eff}}{3}\,\tfrac{7}{8}\left(\tfrac{4}{11}\right)^{4/3} \Omega_\gamma (1+z)^4\,\frac{F(y_i)}{F(0)} + \Omega_{cb} (1+z)^3 + \Omega_k (1+z)^2 + \Omega_{de}\,(\ldots)`;
-export const FERMI_DIRAC_TEX = String.raw`F(y) = \int_0^\infty \frac{x^2 \sqrt{x^2 + y^2}}{e^x + 1}\,dx, \qquad y_i = \frac{m_i c^2}{k_B T_{\nu,0}}\,\frac{1}{1+z}, \qquad T_{\nu,0} = \left(\tfrac{4}{11}\right)^{1/3} T_{\rm CMB}`;
+export const FERMI_DIRAC_TEX = String.raw`F(y) = \int_0^\infty \frac{x^2 \sqrt{x^2 + y^2}}{e^x + 1}\,dx, \qquad y_i = \frac{m_i c^2}{k_B T_{\rm eff}}\,\frac{1}{1+z}, \qquad T_{\rm eff} = \left(\tfrac{4}{11}\right)^{1/3} T_{\rm CMB}\,\tfrac{N_{\rm eff}}{3}\,\kappa, \quad \kappa:\ \Omega_\nu h^2 = \tfrac{\sum m_\nu}{93.14\,{\rm eV}}`;

@@ -192,22 +192,34 @@ describe("drift the engine means", () => {
   };
 
   it("without a declared change the drift is unexplained; with one it is explained and named", () => {
-    // The engine's own declared changes (the neutrino pressure integral of engine 1.1.0) explain their drift; the
-    // injected age change is the only drift they leave unexplained.
-    const bare = compareWithRecomputed(old, now, DECLARED_CHANGES, ENGINE_VERSION);
-    const unexplained = bare.drift.filter((d) => d.explainedBy === null);
-    expect(unexplained.map((d) => [d.model, d.quantity])).toEqual([["nu-heavy", "summary.age_Gyr"]]);
-    expect(unexplained[0].relative).toBeCloseTo(1e-6, 9);
-    expect(
-      bare.drift.filter((d) => d.explainedBy).every((d) => d.explainedBy!.id === "neutrino-pressure-integral"),
-    ).toBe(true);
-    const declared = compareWithRecomputed(old, now, [change, ...DECLARED_CHANGES], ENGINE_VERSION);
-    expect(declared.drift.filter((d) => d.quantity === "summary.age_Gyr").map((d) => d.explainedBy?.id)).toEqual([
-      "test-neutrino-age",
-    ]);
-    expect(declared.drift.every((d) => d.explainedBy !== null)).toBe(true);
+    // A scenario without massive neutrinos, which the engine's own declared changes (1.1.0, 1.2.0) leave alone.
+    const c = record("cinder-vault", 1);
+    const cNow = buildTablesDocument(loadScenario(c.source.text, c.source.path));
+    const cOld = structuredClone(c.tables);
+    cOld.engine.version = "0.9.0";
+    const target = cOld.models[1];
+    target.summary.age_Gyr = (target.summary.age_Gyr as number) * (1 + 1e-6);
+    const testChange: DeclaredChange = {
+      id: "test-age",
+      engine_version: "1.0.0",
+      quantities: ["summary.age_*"],
+      models: "every model",
+      applies: () => true,
+      why: "a test of the mechanism",
+    };
+    const bare = compareWithRecomputed(cOld, cNow, DECLARED_CHANGES, ENGINE_VERSION);
+    expect(bare.drift.map((d) => [d.model, d.quantity, d.explainedBy])).toEqual([[target.id, "summary.age_Gyr", null]]);
+    expect(bare.drift[0].relative).toBeCloseTo(1e-6, 9);
+    const declared = compareWithRecomputed(cOld, cNow, [testChange, ...DECLARED_CHANGES], ENGINE_VERSION);
+    expect(declared.drift.map((d) => d.explainedBy?.id)).toEqual(["test-age"]);
     expect(bare.added.length).toBeGreaterThan(0);
     expect(bare.added.filter((k) => !FORMAT_3_ADDITIONS.includes(k))).toEqual([]);
+    // In a neutrino scenario frozen by engine 1.0.0, the engine's own changes explain every drift they cause.
+    const real = compareWithRecomputed(r.tables, now, DECLARED_CHANGES, ENGINE_VERSION);
+    expect(real.drift.length).toBeGreaterThan(0);
+    expect(new Set(real.drift.map((d) => d.explainedBy?.id))).toEqual(
+      new Set(["neutrino-pressure-integral", "neutrino-93.14-ev"]),
+    );
   });
 
   it("a change explains only its quantities, its models, and versions frozen before it by an engine that has it", () => {
