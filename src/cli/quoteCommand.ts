@@ -108,11 +108,8 @@ export async function quoteCommand(argv: string[]): Promise<number> {
     }
     if (extras.absolute_magnitude !== undefined && extras.luminosity_erg_s !== undefined)
       throw new QuoteArgumentError("--abs-mag and --luminosity-erg-s", "give one of them, not both");
-    const quantities = resolveQuantities(
-      (o.quantities ?? []).flatMap((q) => q.split(",").map((s) => s.trim())).filter((s) => s !== "").length > 0
-        ? (o.quantities ?? []).flatMap((q) => q.split(",").map((s) => s.trim())).filter((s) => s !== "")
-        : DEFAULT_QUOTE_QUANTITIES,
-    );
+    const named = (o.quantities ?? []).flatMap((q) => q.split(",").map((s) => s.trim())).filter((s) => s !== "");
+    const quantities = resolveQuantities(named.length > 0 ? named : DEFAULT_QUOTE_QUANTITIES);
     if (placements.length === 0 && quantities.some((q) => !q.summary))
       throw new QuoteArgumentError(
         "placements",

@@ -1,4 +1,8 @@
 /** Help for `cosmoledger quote`, kept apart so that --help loads nothing else. */
+
+/** What `quote` prints when no --quantities are given. */
+export const DEFAULT_QUOTE_QUANTITIES = ["z", "D_C", "D_A", "D_L", "mu", "scale", "lookback", "age", "H"];
+
 export const QUOTE_HELP = `Usage: cosmoledger quote (--model "KEY=VALUE ..."... | FILE [--models ID,...])
                         (--z LIST | --lookback-Gyr LIST | --age-Gyr LIST | --distance-Mpc LIST)...
                         [--size-kpc X] [--abs-mag M] [--luminosity-erg-s L]
@@ -18,7 +22,7 @@ Examples:
 Quantities (short names; the tables document's keys work too):
   z D_C D_M D_A D_L mu scale scale_comoving lookback age light_travel V_C dV H E Omega_m_z hubble_radius horizon
   size mag flux (need --size-kpc, --abs-mag or --luminosity-erg-s), and today's age0 q0 R_curv horizon0.
-  Default: z,D_C,D_A,D_L,mu,scale,lookback,age,H.
+  Default: ${DEFAULT_QUOTE_QUANTITIES.join(",")}.
 
 Options:
   --model TEXT      a model as KEY=VALUE pairs (repeatable); values are read as in a scenario file

@@ -72,8 +72,7 @@ export const QUOTE_QUANTITIES: QuoteQuantity[] = [
   { short: "horizon0", label: "Comoving particle horizon today", unit: "Mpc", summary: "particle_horizon_Mpc" },
 ];
 
-/** What `quote` prints when no --quantities are given. */
-export const DEFAULT_QUOTE_QUANTITIES = ["z", "D_C", "D_A", "D_L", "mu", "scale", "lookback", "age", "H"];
+export { DEFAULT_QUOTE_QUANTITIES } from "./quoteHelp.js";
 
 /** Thrown for a quantity name that is neither a short name nor a contract key. */
 export class UnknownQuantityError extends Error {}

@@ -1,14 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { spawnSync } from "node:child_process";
 import { createServer, type Server } from "node:http";
 import { mkdirSync, readFileSync, existsSync, writeFileSync, statSync } from "node:fs";
 import { extname, join, resolve } from "node:path";
 import type { BrowserContext, Page } from "playwright-core";
 import { HOSTILE_SCENARIO, ROOT, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
+import { chromiumPath, launchChromium } from "../helpers/chromium.js";
 
 // Browser tests: playwright-core driving Debian's chromium (apt-get install -y chromium). Without it they are
 // skipped, and say so; .ci/run sets COSMOLEDGER_REQUIRE_BROWSER=1, which turns a missing browser into a failure.
-const chromiumPath = spawnSync("sh", ["-c", "command -v chromium"], { encoding: "utf8" }).stdout.trim();
 const required = process.env.COSMOLEDGER_REQUIRE_BROWSER === "1";
 if (!chromiumPath) {
   const message = "browser tests SKIPPED: chromium not found (install it with: apt-get install -y chromium)";
@@ -69,21 +68,7 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     await new Promise<void>((ok) => server.listen(0, "127.0.0.1", ok));
     const address = server.address();
     base = `http://127.0.0.1:${typeof address === "object" && address ? address.port : 0}`;
-    const { chromium } = await import("playwright-core");
-    context = await chromium.launchPersistentContext(tempDir("cosmoledger-chromium-"), {
-      executablePath: chromiumPath,
-      headless: true,
-      viewport: { width: 1280, height: 900 },
-      args: [
-        "--headless",
-        "--no-sandbox",
-        "--disable-gpu",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-        "--no-first-run",
-      ],
-    });
+    context = await launchChromium({ viewport: { width: 1280, height: 900 } });
     mkdirSync(SHOTS, { recursive: true });
   }, 180_000);
 

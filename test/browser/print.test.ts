@@ -7,9 +7,9 @@ import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import type { BrowserContext } from "playwright-core";
 import { ROOT, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
+import { chromiumPath, launchChromium } from "../helpers/chromium.js";
 
 const which = (cmd: string) => spawnSync("sh", ["-c", `command -v ${cmd}`], { encoding: "utf8" }).stdout.trim();
-const chromiumPath = which("chromium");
 const pdftotext = which("pdftotext");
 const required = process.env.COSMOLEDGER_REQUIRE_BROWSER === "1";
 if (required && (!chromiumPath || !pdftotext))
@@ -42,12 +42,7 @@ describe.skipIf(!chromiumPath || !pdftotext)("printing to A4 and Letter", { time
     site = join(dir, "site");
     const r = runCli(["build", "--scenarios", "scenarios", "--out", site, "--quiet", "--skip-images"], dir);
     if (r.code !== 0) throw new Error(r.stderr);
-    const { chromium } = await import("playwright-core");
-    context = await chromium.launchPersistentContext(tempDir("cosmoledger-chromium-"), {
-      executablePath: chromiumPath,
-      headless: true,
-      args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--no-first-run"],
-    });
+    context = await launchChromium();
   }, 300_000);
 
   afterAll(async () => {
