@@ -9,7 +9,7 @@ import { execFileSync, spawnSync } from "node:child_process";
 import { chmodSync, mkdirSync, readFileSync, readdirSync, rmSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { createHash } from "node:crypto";
-import { BIN, compileProject, tempDir } from "../helpers/buildDemoSite.js";
+import { BIN, ROOT, compileProject, tempDir } from "../helpers/buildDemoSite.js";
 
 const isRoot = process.getuid?.() === 0;
 const required = process.env.COSMOLEDGER_REQUIRE_ROOT_TESTS === "1";
@@ -19,10 +19,44 @@ const SMALL = "title: T\nid: plan\nmodels:\n  - { id: a, H0: 70, Omega_m: 0.3 }\
 // About 2 MB of tables: far more than the 256 KiB disk holds.
 const LARGE = `title: T\nid: plan\nredshifts: [${Array.from({ length: 400 }, (_, i) => ((i + 1) / 40).toString()).join(", ")}]\nmodels:\n${Array.from({ length: 6 }, (_, i) => `  - { id: m${i}, H0: ${66 + i}, Omega_m: 0.3 }`).join("\n")}\n`;
 
+const NOBODY = ["--reuid=65534", "--regid=65534", "--clear-groups"];
+
+/**
+ * The command line as user nobody can run it. A checkout inside a private folder (mktemp -d makes mode 700) is out
+ * of nobody's reach, so the installed project is then mirrored, by hard links (no copy of the data), into a folder
+ * anyone may read.
+ */
+let nobodyBin: string | null = null;
+function binForNobody(): string {
+  if (nobodyBin) return nobodyBin;
+  const reachable = spawnSync("setpriv", [
+    ...NOBODY,
+    process.execPath,
+    "-e",
+    `require("fs").accessSync(${JSON.stringify(BIN)})`,
+  ]);
+  if (reachable.status === 0) {
+    nobodyBin = BIN;
+    return nobodyBin;
+  }
+  const mirror = tempDir("cosmoledger-nobody-");
+  chmodSync(mirror, 0o755);
+  for (const f of ["bin", "dist", "node_modules", "content", "package.json", ".eleventy.js"]) {
+    try {
+      execFileSync("cp", ["-al", join(ROOT, f), join(mirror, f)]);
+    } catch {
+      execFileSync("cp", ["-a", join(ROOT, f), join(mirror, f)]); // another file system: a real copy
+    }
+  }
+  nobodyBin = join(mirror, "bin/cosmoledger.js");
+  return nobodyBin;
+}
+
 function cli(args: string[], cwd: string, asNobody = false) {
   const command = asNobody ? "setpriv" : process.execPath;
-  const prefix = asNobody ? ["--reuid=65534", "--regid=65534", "--clear-groups", process.execPath] : [];
-  const r = spawnSync(command, [...prefix, BIN, ...args], { cwd, encoding: "utf8", timeout: 120_000 });
+  const prefix = asNobody ? [...NOBODY, process.execPath] : [];
+  const bin = asNobody ? binForNobody() : BIN;
+  const r = spawnSync(command, [...prefix, bin, ...args], { cwd, encoding: "utf8", timeout: 120_000 });
   return { code: r.status, stderr: r.stderr, signal: r.signal };
 }
 function refusedBySystem(r: ReturnType<typeof cli>, path: RegExp, reason: RegExp) {
