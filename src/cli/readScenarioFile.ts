@@ -1,3 +1,4 @@
+import { dirname, join } from "node:path";
 import { readRegularFile } from "../common/readRegularFile.js";
 import { decodeScenarioText } from "../scenario/decodeScenarioText.js";
 import { displayPath } from "../common/displayPath.js";
@@ -14,11 +15,26 @@ export function loadScenarioFile(
   if ("why" in read)
     return { scenario: null, issues: [{ file: shown, line: 1, column: 1, path: "", message: `the path ${read.why}` }] };
   try {
-    return { scenario: loadScenario(decodeScenarioText(read.bytes, shown), shown), issues: [] };
+    return {
+      scenario: loadScenario(decodeScenarioText(read.bytes, shown), shown, { readAttachment: attachmentReader(file) }),
+      issues: [],
+    };
   } catch (e) {
     if (!(e instanceof ScenarioInputError)) throw e;
     return { scenario: null, issues: e.issues };
   }
+}
+
+/**
+ * Reads files a scenario names (samples files), relative to the scenario's folder: regular files only, UTF-8.
+ * A file that cannot be read throws an Error whose message says why (the resolver locates it at the key).
+ */
+export function attachmentReader(scenarioFile: string): (relative: string) => string {
+  return (relative) => {
+    const read = readRegularFile(join(dirname(scenarioFile), relative));
+    if ("why" in read) throw new Error(`the path ${read.why}`);
+    return read.bytes.toString("utf8");
+  };
 }
 
 /** Reads several scenario files: the scenarios, and every issue of every file, including ids used twice. */

@@ -12,9 +12,16 @@ function identity(engineVersion: string, inputs: ResolvedInputsRecord) {
     baseline: inputs.baseline,
     redshifts: inputs.redshifts,
     grid: inputs.grid,
-    models: inputs.models.map((m) => ({ id: m.id, extends: m.extends, inputs: m.inputs })),
+    // A spread (and the draws behind it) enters only when present, so inputs without one hash as in format 3.
+    models: inputs.models.map((m) => ({
+      id: m.id,
+      extends: m.extends,
+      inputs: m.inputs,
+      ...("spread" in m && m.spread ? { spread: m.spread } : {}),
+    })),
     targets: inputs.targets,
     surveys: inputs.surveys,
+    ...("draws" in inputs && inputs.draws ? { draws: inputs.draws } : {}),
   };
 }
 

@@ -6,13 +6,18 @@
 import type { TablesDocumentFormat1 } from "./generated/tablesFormat1.js";
 import type { TablesDocumentFormat2 } from "./generated/tablesFormat2.js";
 import type { TablesDocumentFormat3 } from "./generated/tablesFormat3.js";
+import type { TablesDocumentFormat4 } from "./generated/tablesFormat4.js";
 
-export type { TablesDocumentFormat1, TablesDocumentFormat2, TablesDocumentFormat3 };
+export type { TablesDocumentFormat1, TablesDocumentFormat2, TablesDocumentFormat3, TablesDocumentFormat4 };
 
 /** The format this release writes. */
-export type TablesDocument = TablesDocumentFormat3;
+export type TablesDocument = TablesDocumentFormat4;
 /** Every format this release reads (pages, exports, diffs and verify take any of them). */
-export type StoredTablesDocument = TablesDocumentFormat1 | TablesDocumentFormat2 | TablesDocumentFormat3;
+export type StoredTablesDocument =
+  | TablesDocumentFormat1
+  | TablesDocumentFormat2
+  | TablesDocumentFormat3
+  | TablesDocumentFormat4;
 
 export type Num = number | null;
 export type ModelTables = TablesDocument["models"][number];
@@ -26,6 +31,9 @@ export type TargetRow = ModelTables["targets"][number];
 export type SurveyRow = ModelTables["surveys"][number];
 export type ModelDifferences = TablesDocument["differences"][string];
 export type Difference = ModelDifferences["summary"][string];
+/** Percentiles of one quantity over a spread's draws, and their Monte Carlo errors. */
+export type Band = NonNullable<NonNullable<ModelTables["spread"]>["summary"][string]>;
+export type ModelSpread = NonNullable<ModelTables["spread"]>;
 export type ConstantEntry = TablesDocument["engine"]["constants"][string];
 /** The resolved inputs as the document (format 2 on) and every version record store them. */
 export type ResolvedInputsRecord = TablesDocument["inputs"];

@@ -51,7 +51,7 @@ export type StoredVersionRecord = VersionRecordFormat1 | VersionRecordFormat2;
 
 /** JSON-clean resolved inputs (drops the engine's model objects and the source, which is stored on its own). */
 export function frozenInputs(scenario: ResolvedScenario): FrozenInputs {
-  const { models, source: _source, plausibility: _warnings, ...rest } = scenario;
+  const { models, source: _source, plausibility: _warnings, samples: _samples, ...rest } = scenario;
   return JSON.parse(JSON.stringify({ ...rest, models: models.map(({ background: _b, ...m }) => m) }));
 }
 

@@ -1,6 +1,12 @@
 import { oneLine } from "../common/userText.js";
 import { hasEarlyUniverse } from "../contract/quantityCatalog.js";
-import type { StoredModelTables, StoredTablesDocument } from "../contract/tablesDocument.js";
+import type {
+  ModelSpread as ModelSpreadOf,
+  StoredModelTables,
+  StoredTablesDocument,
+} from "../contract/tablesDocument.js";
+
+type PublishedReference = NonNullable<Extract<StoredModelTables, { published?: unknown }>["published"]>[number];
 import { escapeLatex } from "./exportFormats.js";
 import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
 
@@ -73,6 +79,24 @@ function inputs(m: StoredModelTables, provenance: "set" | "default" | "inherited
   return out;
 }
 
+/** A published set as a parent, with its citation (and the values recalled from memory named). */
+function publishedCitation(p: PublishedReference): Piece {
+  const who = p.authors.split(/[,:]/)[0];
+  const memo = Object.entries(p.transcription)
+    .filter(([, how]) => how === "recalled from memory")
+    .map(([k]) => k);
+  const note = memo.length ? `; ${memo.join(", ")} recalled from memory, not read from the table` : "";
+  const plain = `the published set "${oneLine(p.title)}" (${who} ${p.year}, ${p.journal}, arXiv:${p.arxiv}, ${p.table}${note})`;
+  return { plain, tex: escapeLatex(plain) };
+}
+
+/** A model's spread in words, with its draws. */
+function spreadPiece(s: ModelSpreadOf): Piece {
+  const rejected = s.rejected > 0 ? `, ${s.rejected} rejected` : "";
+  const plain = `; spread: ${oneLine(s.description)} (${s.accepted} of ${s.draws} draws used${rejected})`;
+  return { plain, tex: escapeLatex(plain) };
+}
+
 /** Model labels are quoted, since they may hold commas. */
 const quoted = (label: string): Piece => ({ plain: `"${oneLine(label)}"`, tex: `\`\`${escapeLatex(label)}''` });
 const join = (xs: Piece[], sep = ", "): Piece => ({
@@ -89,14 +113,21 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
   const labelOf = (id: string) => doc.models.find((m) => m.id === id)?.label ?? id;
   const models = doc.models.map((m) => {
     const set = inputs(m, "set");
-    const base = m.extends
-      ? { plain: `as ${quoted(labelOf(m.extends)).plain} but `, tex: `as ${quoted(labelOf(m.extends)).tex} but ` }
+    const parents = m.extends === null ? [] : Array.isArray(m.extends) ? m.extends : [m.extends];
+    const published = ("published" in m ? m.published : undefined) ?? [];
+    const parentPieces = parents.map((ref): Piece => {
+      const set = published.find((p) => `published/${p.id}` === ref);
+      return set ? publishedCitation(set) : quoted(labelOf(ref));
+    });
+    const base = parentPieces.length
+      ? { plain: `as ${join(parentPieces, " then ").plain} but `, tex: `as ${join(parentPieces, " then ").tex} but ` }
       : { plain: "", tex: "" };
     const body = set.length ? join(set) : { plain: "no parameter of its own", tex: "no parameter of its own" };
     const baseline = m.id === doc.scenario.baseline ? " (baseline)" : "";
+    const spread = "spread" in m && m.spread ? spreadPiece(m.spread) : { plain: "", tex: "" };
     return {
-      plain: `${quoted(m.label).plain}${baseline}: ${base.plain}${body.plain}`,
-      tex: `${quoted(m.label).tex}${baseline}: ${base.tex}${body.tex}`,
+      plain: `${quoted(m.label).plain}${baseline}: ${base.plain}${body.plain}${spread.plain}`,
+      tex: `${quoted(m.label).tex}${baseline}: ${base.tex}${body.tex}${spread.tex}`,
     };
   });
   // Defaults: each default once, with the models it applies to; defaults shared by the same models go together.

@@ -3,13 +3,18 @@ import { schemaProblems, validateScenarioSchema } from "./validateScenarioSchema
 import { resolveScenario } from "./resolveScenario.js";
 import { ScenarioInputError, formatPath, type ScenarioIssue } from "./scenarioIssue.js";
 import type { ResolvedScenario } from "./resolvedScenario.js";
+import type { AttachmentReader } from "./resolveSpread.js";
 
 /** Scenario text -> resolved scenario: parse, schema check, resolve. No I/O; `file` is used in messages and for the default id. */
-export function loadScenario(text: string, file: string): ResolvedScenario {
+export function loadScenario(
+  text: string,
+  file: string,
+  options: { readAttachment?: AttachmentReader } = {},
+): ResolvedScenario {
   const parsed = parseScenarioYaml(text, file);
   const { issues, paths } = schemaProblems(parsed);
-  if (issues.length > 0) throw new ScenarioInputError([...issues, ...checksOfTheRest(parsed, text, paths)]);
-  return resolveScenario(parsed, text);
+  if (issues.length > 0) throw new ScenarioInputError([...issues, ...checksOfTheRest(parsed, text, paths, options)]);
+  return resolveScenario(parsed, text, options);
 }
 
 /**
@@ -17,7 +22,12 @@ export function loadScenario(text: string, file: string): ResolvedScenario {
  * curvature, baryons, a missing big bang) still run on the rest of the file. The consequences of a key left out
  * ("H0 is required" after H0: seventy) are not repeated; a file too broken to resolve adds nothing.
  */
-function checksOfTheRest(parsed: ParsedYaml, text: string, refused: (string | number)[][]): ScenarioIssue[] {
+function checksOfTheRest(
+  parsed: ParsedYaml,
+  text: string,
+  refused: (string | number)[][],
+  options: { readAttachment?: AttachmentReader },
+): ScenarioIssue[] {
   const value = structuredClone(parsed.value) as Record<string, unknown>;
   const dropped = new Set<string>();
   for (const path of refused) {
@@ -33,7 +43,7 @@ function checksOfTheRest(parsed: ParsedYaml, text: string, refused: (string | nu
     } else return [];
   }
   try {
-    resolveScenario({ ...parsed, value }, text);
+    resolveScenario({ ...parsed, value }, text, options);
     return [];
   } catch (e) {
     if (!(e instanceof ScenarioInputError)) return [];

@@ -1,22 +1,26 @@
 import { labelTexProblem } from "./labelTex.js";
 import { plausibilityWarnings } from "./plausibility.js";
-import {
-  DEFAULT_N_EFF,
-  DEFAULT_T_CMB_K,
-  NoBigBangError,
-  assertBigBang,
-  makeBackgroundModel,
-  maximumScaleFactor,
-  type CurvatureSpec,
-} from "../engine/index.js";
+import { DEFAULT_N_EFF, DEFAULT_T_CMB_K, NoBigBangError } from "../engine/index.js";
+import { backgroundOf } from "./modelBackground.js";
 import type { ParsedYaml } from "./parseScenarioYaml.js";
 import { ScenarioInputError, formatPath, type ScenarioIssue } from "./scenarioIssue.js";
+import {
+  PUBLISHED_PREFIX,
+  PUBLISHED_SETS,
+  publishedSet,
+  type PublishedSet,
+  type PublishedSigma,
+} from "./publishedSets.js";
+import { resolveSpread, type AttachmentReader, type SpreadSource } from "./resolveSpread.js";
 import type {
   CurvatureKey,
   Provenance,
   ResolvedModel,
   ResolvedModelInputs,
   ResolvedScenario,
+  ResolvedSpread,
+  PublishedReference,
+  SamplesTable,
   ResolvedSurvey,
   ResolvedTarget,
 } from "./resolvedScenario.js";
@@ -30,6 +34,10 @@ export const DEFAULT_WA = 0;
 export const MAX_TABLE_EVALUATIONS = 20_000;
 /** At most this many model-redshift evaluations on the chart grid: each is ~0.35 kB of JSON. */
 export const MAX_GRID_EVALUATIONS = 100_000;
+/** At most this many model-redshift evaluations over every draw of every spread (~2 s of work per million). */
+export const MAX_DRAW_EVALUATIONS = 4_000_000;
+export const DEFAULT_DRAW_COUNT = 1000;
+export const DEFAULT_DRAW_SEED = 1;
 
 const CURVATURE_KEYS: CurvatureKey[] = ["flat", "Omega_k", "Omega_de", "Omega_Lambda"];
 const BARYON_KEYS = ["Omega_b", "omega_b"] as const;
@@ -46,6 +54,73 @@ function inputsBaryonProvenance(p: Record<string, Provenance>): Provenance {
   return p.Omega_b ?? p.omega_b ?? "default";
 }
 
+/** The model keys that carry values through inheritance. */
+const MODEL_VALUE_KEYS = [
+  "H0",
+  "Omega_m",
+  "w0",
+  "wa",
+  "radiation",
+  "T_cmb",
+  "N_eff",
+  "m_nu_eV",
+  ...BARYON_KEYS,
+  ...CURVATURE_KEYS,
+] as const;
+
+type Flat = {
+  values: Record<string, unknown>;
+  provenance: Record<string, Provenance>;
+  spread: SpreadSource | null;
+  published: PublishedSet[];
+};
+
+/** A model's parents in the order they apply: none, one, or a list. */
+function parentsOf(m: Raw): string[] {
+  if (m.extends === undefined) return [];
+  return (Array.isArray(m.extends) ? m.extends : [m.extends]).filter(
+    (x: unknown): x is string => typeof x === "string",
+  );
+}
+
+/** A published set as a parent: its parameters and assumptions, and its marginal uncertainties as a spread. */
+function publishedFlat(set: PublishedSet): Flat {
+  const values: Record<string, unknown> = {};
+  const provenance: Record<string, Provenance> = {};
+  for (const [k, v] of Object.entries(set.assumptions)) {
+    values[k] = Array.isArray(v) ? [...v] : v;
+    provenance[k] = "inherited";
+  }
+  const sigmas: Record<string, PublishedSigma> = {};
+  for (const [k, v] of Object.entries(set.parameters)) {
+    values[k] = v.value;
+    provenance[k] = "inherited";
+    if (v.sigma !== null) sigmas[k] = v.sigma;
+  }
+  return { values, provenance, spread: { published: sigmas, origin: "published" }, published: [set] };
+}
+
+/** Two published marginal spreads merge key by key (the later set's uncertainty wins); any other spread replaces. */
+function mergeSpreads(before: SpreadSource | null, after: SpreadSource): SpreadSource {
+  if (before && "published" in before && "published" in after)
+    return { published: { ...before.published, ...after.published }, origin: "published" };
+  return after;
+}
+
+function publishedReference(set: PublishedSet): PublishedReference {
+  return {
+    id: set.id,
+    title: set.title,
+    authors: set.citation.authors,
+    year: set.citation.year,
+    journal: set.citation.journal,
+    arxiv: set.citation.arxiv,
+    table: set.citation.table,
+    assumptions: set.assumptions_text,
+    transcription: Object.fromEntries(Object.entries(set.parameters).map(([k, v]) => [k, v.checked])),
+  };
+}
+
 /** Default scenario id from a file name: its base name without .yaml/.yml, if that is a valid slug. */
 export function idFromFileName(path: string): string | null {
   const base = path.split(/[\\/]/).pop() ?? "";
@@ -57,7 +132,11 @@ export function idFromFileName(path: string): string | null {
  * Applies inheritance (extends), defaults and every cross-field rule to a schema-valid scenario, and builds each
  * model's background (rejecting models with no big bang). Throws ScenarioInputError with located issues.
  */
-export function resolveScenario(parsed: ParsedYaml, sourceText: string): ResolvedScenario {
+export function resolveScenario(
+  parsed: ParsedYaml,
+  sourceText: string,
+  options: { readAttachment?: AttachmentReader } = {},
+): ResolvedScenario {
   const raw = parsed.value as Raw;
   const issues: ScenarioIssue[] = [];
   const fail = (path: (string | number)[], message: string, which: "key" | "value" = "value") =>
@@ -104,15 +183,51 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
         "key",
       );
     }
-    if (m.extends !== undefined && !index.has(m.extends as string)) {
-      fail(["models", i, "extends"], `extends unknown model ${m.extends}; known ids: ${[...index.keys()].join(", ")}`);
-    }
+    parentsOf(m).forEach((ref, j) => {
+      const at = Array.isArray(m.extends) ? ["models", i, "extends", j] : ["models", i, "extends"];
+      if (ref.startsWith(PUBLISHED_PREFIX)) {
+        if (!publishedSet(ref))
+          fail(
+            at,
+            `extends unknown published set ${ref}; published sets: ${PUBLISHED_SETS.map((p) => PUBLISHED_PREFIX + p.id).join(", ")}`,
+          );
+      } else if (!index.has(ref)) {
+        fail(at, `extends unknown model ${ref}; known ids: ${[...index.keys()].join(", ")}`);
+      }
+    });
   });
   // No stop here: every model without a problem so far is still resolved, so that one run reports every problem.
 
-  // Flatten inheritance: own keys override; a curvature key replaces the parent's curvature group.
-  type Flat = { values: Record<string, unknown>; provenance: Record<string, Provenance> };
+  // Flatten inheritance: parents apply left to right, own keys override; a curvature (baryon) key replaces the
+  // curvature (baryon) group of what came before. A spread is inherited unless the model gives its own.
   const flattened = new Map<string, Flat>();
+  const overlay = (
+    values: Record<string, unknown>,
+    provenance: Record<string, Provenance>,
+    top: Raw,
+    how: Provenance,
+  ) => {
+    if (CURVATURE_KEYS.some((k) => top[k] !== undefined))
+      for (const k of CURVATURE_KEYS) {
+        delete values[k];
+        delete provenance[k];
+      }
+    if (BARYON_KEYS.some((k) => top[k] !== undefined))
+      for (const k of BARYON_KEYS) {
+        delete values[k];
+        delete provenance[k];
+      }
+    if (top.radiation === "none") {
+      delete values.T_cmb;
+      delete values.N_eff;
+    }
+    for (const k of MODEL_VALUE_KEYS) {
+      if (top[k] !== undefined) {
+        values[k] = top[k];
+        provenance[k] = how;
+      }
+    }
+  };
   const flatten = (i: number, chain: string[]): Flat | null => {
     const m = rawModels[i];
     const done = flattened.get(m.id);
@@ -121,48 +236,31 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       fail(["models", i, "extends"], `cyclic extends: ${[...chain, m.id].join(" -> ")}`);
       return null;
     }
-    let values: Record<string, unknown> = {};
+    const values: Record<string, unknown> = {};
     const provenance: Record<string, Provenance> = {};
-    if (m.extends !== undefined) {
-      const parentIndex = index.get(m.extends as string);
-      if (parentIndex === undefined) return null; // an unknown parent, reported above
-      const parent = flatten(parentIndex, [...chain, m.id]);
+    let spread: SpreadSource | null = null;
+    const published: PublishedSet[] = [];
+    for (const ref of parentsOf(m)) {
+      let parent: Flat | null;
+      const set = publishedSet(ref);
+      if (set) parent = publishedFlat(set);
+      else {
+        const parentIndex = index.get(ref);
+        if (parentIndex === undefined) return null; // an unknown parent, reported above
+        parent = flatten(parentIndex, [...chain, m.id]);
+      }
       if (!parent) return null;
-      values = { ...parent.values };
-      for (const k of Object.keys(parent.values)) provenance[k] = "inherited";
-      if (CURVATURE_KEYS.some((k) => m[k] !== undefined))
-        for (const k of CURVATURE_KEYS) {
-          delete values[k];
-          delete provenance[k];
-        }
-      if (BARYON_KEYS.some((k) => m[k] !== undefined))
-        for (const k of BARYON_KEYS) {
-          delete values[k];
-          delete provenance[k];
-        }
-      if (m.radiation === "none") {
-        delete values.T_cmb;
-        delete values.N_eff;
-      }
+      overlay(values, provenance, parent.values, "inherited");
+      for (const p of parent.published) if (!published.includes(p)) published.push(p);
+      if (parent.spread)
+        spread = mergeSpreads(
+          spread,
+          "published" in parent.spread ? parent.spread : { ...parent.spread, origin: "inherited" },
+        );
     }
-    for (const k of [
-      "H0",
-      "Omega_m",
-      "w0",
-      "wa",
-      "radiation",
-      "T_cmb",
-      "N_eff",
-      "m_nu_eV",
-      ...BARYON_KEYS,
-      ...CURVATURE_KEYS,
-    ]) {
-      if (m[k] !== undefined) {
-        values[k] = m[k];
-        provenance[k] = "set";
-      }
-    }
-    const result = { values, provenance };
+    overlay(values, provenance, m, "set");
+    if (m.spread !== undefined) spread = m.spread === "none" ? null : { raw: m.spread, origin: "set", model: i };
+    const result = { values, provenance, spread, published };
     flattened.set(m.id, result);
     return result;
   };
@@ -174,6 +272,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
   );
 
   const models: ResolvedModel[] = [];
+  const samples: Record<string, SamplesTable> = {};
   const plausibility: ScenarioIssue[] = [];
   rawModels.forEach((m, i) => {
     const flat = brokenModels.has(i) ? undefined : flattened.get(m.id);
@@ -238,39 +337,9 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
         path: formatPath([...here, w.key]),
         message: w.message,
       });
-    const curvature: CurvatureSpec =
-      curvatureKey === "flat"
-        ? { kind: "flat" }
-        : curvatureKey === "Omega_k"
-          ? { kind: "Omega_k", Omega_k: inputs.curvature_value! }
-          : { kind: "Omega_de", Omega_de: inputs.curvature_value! };
-    let background: ReturnType<typeof makeBackgroundModel>;
+    let background: ReturnType<typeof backgroundOf>;
     try {
-      background = makeBackgroundModel({
-        H0_km_s_Mpc: inputs.H0,
-        Omega_m: inputs.Omega_m,
-        curvature,
-        w0: inputs.w0,
-        wa: inputs.wa,
-        radiation: radiation === "none" ? null : { T_cmb_K: inputs.T_cmb!, N_eff: inputs.N_eff! },
-        baryons:
-          inputs.baryon_key === "Omega_b"
-            ? { Omega_b: inputs.baryon_value! }
-            : inputs.baryon_key === "omega_b"
-              ? { omega_b: inputs.baryon_value! }
-              : null,
-        m_nu_eV: inputs.m_nu_eV,
-      });
-    } catch (e) {
-      if (e instanceof RangeError) {
-        fail(here, `model ${m.id}: ${e.message}`);
-        return;
-      }
-      throw e;
-    }
-    try {
-      assertBigBang(background);
-      maximumScaleFactor(background); // a turnaround the engine cannot follow is an input problem, not a crash
+      background = backgroundOf(inputs);
     } catch (e) {
       if (e instanceof NoBigBangError || e instanceof RangeError) {
         fail(here, `model ${m.id}: ${e.message}`);
@@ -293,13 +362,28 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       check("w0", background.w0);
       check("wa", background.wa);
     }
+    let spread: ResolvedSpread | undefined;
+    if (flat.spread) {
+      const resolved = resolveSpread(flat.spread, inputs, {
+        fail,
+        failInFile: (issue) => issues.push({ path: `models[${i}].spread.samples`, ...issue }),
+        here,
+        scenarioFile: parsed.file,
+        readAttachment: options.readAttachment,
+      });
+      if (!resolved) return;
+      spread = resolved.spread;
+      if (resolved.samples) samples[m.id] = resolved.samples;
+    }
     models.push({
       id: m.id,
       label: (m.label as string | undefined) ?? m.id,
       ...(m.label_tex !== undefined ? { label_tex: m.label_tex as string } : {}),
-      extends: (m.extends as string | undefined) ?? null,
+      extends: Array.isArray(m.extends) ? [...(m.extends as string[])] : ((m.extends as string | undefined) ?? null),
       notes: (m.notes as string | undefined) ?? null,
       inputs,
+      ...(flat.published.length > 0 ? { published: flat.published.map(publishedReference) } : {}),
+      ...(spread ? { spread } : {}),
       provenance,
       background,
       warnings,
@@ -329,6 +413,18 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     points: (g.points as number | undefined) ?? DEFAULT_GRID_POINTS,
     spacing: (g.spacing as "log" | "linear" | undefined) ?? "log",
   };
+
+  // Draws: only when some model has a spread, so that scenarios without one keep their inputs (and hashes).
+  let draws: { count: number; seed: number } | undefined;
+  const d = (raw.draws ?? {}) as Raw;
+  if (models.some((m) => m.spread)) {
+    if (d.count === undefined) defaultsApplied.push("draws.count");
+    if (d.seed === undefined) defaultsApplied.push("draws.seed");
+    draws = {
+      count: (d.count as number | undefined) ?? DEFAULT_DRAW_COUNT,
+      seed: (d.seed as number | undefined) ?? DEFAULT_DRAW_SEED,
+    };
+  }
 
   // Targets and surveys
   const placementKeys = ["z", "lookback_Gyr", "age_Gyr", "comoving_distance_Mpc"] as const;
@@ -384,6 +480,18 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
       `this scenario asks for ${gridWork} chart-grid evaluations (models x grid points); at most ${MAX_GRID_EVALUATIONS} are allowed (fewer models or grid points)`,
     );
   }
+  if (draws) {
+    const perDraw = redshifts.length + grid.points;
+    const drawWork = models.reduce(
+      (n, m) => n + (m.spread ? (m.spread.form === "samples" ? m.spread.rows : draws!.count) * perDraw : 0),
+      0,
+    );
+    if (drawWork > MAX_DRAW_EVALUATIONS)
+      fail(
+        raw.draws?.count !== undefined ? ["draws", "count"] : ["models"],
+        `the spreads ask for ${drawWork} draw evaluations (draws x (redshifts + grid points), summed over models with a spread); at most ${MAX_DRAW_EVALUATIONS} are allowed (fewer draws, rows or grid points)`,
+      );
+  }
   // Warnings go with the errors: they may explain one (H0 = 0.7 makes omega_b = 0.0224 an impossible Omega_b).
   if (issues.length > 0)
     throw new ScenarioInputError([...issues, ...plausibility.map((w) => ({ ...w, severity: "warning" as const }))]);
@@ -401,6 +509,7 @@ export function resolveScenario(parsed: ParsedYaml, sourceText: string): Resolve
     targets,
     surveys,
     defaults_applied: defaultsApplied,
+    ...(draws ? { draws, samples } : {}),
     ...(raw.h_units === true ? { h_units: true as const } : {}),
     plausibility,
     // The recorded name is the file's own name: documents and versions never depend on where a command ran,

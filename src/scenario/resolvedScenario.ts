@@ -23,14 +23,79 @@ export interface ResolvedModelInputs {
   m_nu_eV: number[];
 }
 
+/** Parameters a spread may vary: the scalar model keys (m_nu_eV, a list, is held fixed). */
+export const SPREAD_KEYS = [
+  "H0",
+  "Omega_m",
+  "Omega_k",
+  "Omega_de",
+  "Omega_Lambda",
+  "w0",
+  "wa",
+  "Omega_b",
+  "omega_b",
+  "N_eff",
+  "T_cmb",
+] as const;
+export type SpreadKey = (typeof SPREAD_KEYS)[number];
+
+/** One varied parameter of a normal spread: the model's value and its 68 % half-widths (equal unless published so). */
+export interface NormalSpreadParameter {
+  key: SpreadKey;
+  center: number;
+  plus: number;
+  minus: number;
+}
+
+/**
+ * A model's parameter spread, every default explicit. `normal`: independent (correlation null) or correlated
+ * normal deviates, split at the centre when a published uncertainty is asymmetric. `samples`: the rows of a CSV
+ * file (its SHA-256 identifies it; the rows themselves travel beside the model, see ResolvedScenario.samples).
+ */
+export type ResolvedSpread =
+  | {
+      form: "normal";
+      parameters: NormalSpreadParameter[];
+      correlation: number[][] | null;
+      /** Where the uncertainties came from: this model, a parent model, or a published set (marginals only). */
+      from: "set" | "inherited" | "published";
+    }
+  | {
+      form: "samples";
+      path: string;
+      sha256: string;
+      rows: number;
+      columns: SpreadKey[];
+      weighted: boolean;
+    };
+
+/** A published set a model extends, with its citation, as pages and archives cite it. */
+export interface PublishedReference {
+  id: string;
+  title: string;
+  authors: string;
+  year: number;
+  journal: string;
+  arxiv: string;
+  table: string;
+  assumptions: string;
+  /** How the values were transcribed: "paper text" or "recalled from memory", per parameter. */
+  transcription: Record<string, "paper text" | "recalled from memory">;
+}
+
 export interface ResolvedModel {
   id: string;
   label: string;
   /** The label in LaTeX, only when the scenario gives one (absent, so that inputs without it hash as before). */
   label_tex?: string;
-  extends: string | null;
+  /** The parent (a model id or published/<id>), or the list of parents applied left to right. */
+  extends: string | string[] | null;
   notes: string | null;
   inputs: ResolvedModelInputs;
+  /** Published sets behind this model's values, present only when it extends one (so other inputs hash as before). */
+  published?: PublishedReference[];
+  /** The spread of its parameters, present only when it has one. */
+  spread?: ResolvedSpread;
   /** Where each input came from: set in this model, inherited through extends, or a default. */
   provenance: Record<keyof ResolvedModelInputs, Provenance>;
   background: BackgroundModel;
@@ -61,6 +126,15 @@ export interface ResolvedSurvey {
   density_per_Mpc3: number | null;
 }
 
+/** A samples file's rows: one column of values per parameter key, and the weights (null when unweighted). */
+export interface SamplesTable {
+  path: string;
+  text: string;
+  columns: SpreadKey[];
+  values: Float64Array[];
+  weights: Float64Array | null;
+}
+
 export interface ResolvedGrid {
   z_max: number;
   points: number;
@@ -82,6 +156,10 @@ export interface ResolvedScenario {
   surveys: ResolvedSurvey[];
   /** Scenario-level keys that took their defaults. */
   defaults_applied: string[];
+  /** How spreads are sampled; present only when some model has a spread (so that other inputs hash as before). */
+  draws?: { count: number; seed: number };
+  /** The rows of every samples file by model id (not part of the stored inputs: the file's text is kept instead). */
+  samples?: Record<string, SamplesTable>;
   /** Lengths in h^-1 Mpc on pages and exports; present only when set (so that other inputs hash as before). */
   h_units?: true;
   /** Valid values that are probably not what was meant (H0 = 0.7), located; warnings, errors under --strict. Not an input. */

@@ -109,7 +109,10 @@ function message(
       return {
         path: segments,
         at: "value",
-        text: `must be ${article((e.params as { type: string }).type)} (got ${got})${yaml11}`,
+        text: `must be ${String((e.params as { type: string | string[] }).type)
+          .split(",")
+          .map(article)
+          .join(" or ")} (got ${got})${yaml11}`,
       };
     }
     case "const": {

@@ -11,6 +11,7 @@ import {
   partsText,
   unitText,
 } from "../contract/formatNumber.js";
+import { intervalOf } from "../contract/formatInterval.js";
 import { renderMarkdown } from "./renderMarkdown.js";
 import { renderMath } from "./renderMath.js";
 import { chartPayload, indexChartPayload, jsonForScriptElement } from "./chartPayload.js";
@@ -58,6 +59,30 @@ export const TEXT_FILTERS = {
     /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(iso) ? `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC` : iso,
   /** A version message, or a placeholder when it was frozen without one. */
   message: (m: string) => (m?.trim() ? m : "(no message)"),
+  /**
+   * A model's 68 % interval of one quantity ("13.797 +0.023 −0.023"), or "" when the model has no spread or the
+   * quantity no band: `where` is "summary", "redshifts", "targets" or "surveys", `i` the row (null for summary).
+   */
+  band: (m: { spread?: Record<string, unknown> }, where: string, i: number | null, key: string) => {
+    const section = m.spread?.[where] as Record<string, unknown> | Record<string, unknown>[] | undefined;
+    const holder = (i === null ? section : (section as Record<string, unknown>[] | undefined)?.[i]) as
+      | Record<string, Parameters<typeof intervalOf>[0]>
+      | undefined;
+    return intervalOf(holder?.[key])?.text ?? "";
+  },
+  /** Whether any model extends a published set (the models table then cites it). */
+  hasPublished: (doc: StoredTablesDocument) =>
+    doc.models.some((m) => "published" in m && (m.published?.length ?? 0) > 0),
+  /** Whether any model's spread is independent normal over several parameters (marginals without correlations). */
+  hasMarginalSpread: (doc: StoredTablesDocument) =>
+    doc.models.some((m) => "spread" in m && m.spread?.form === "normal" && m.spread.parameters.length > 1),
+  /** A model's parents as a list (extends is one id, a list of ids, or null). */
+  parents: (e: string | string[] | null | undefined) => (e == null ? [] : Array.isArray(e) ? e : [e]),
+  /** The parameters of a published set whose values were recalled from memory rather than read from the paper. */
+  recalled: (t: Record<string, string> | undefined) =>
+    Object.entries(t ?? {})
+      .filter(([, how]) => how === "recalled from memory")
+      .map(([k]) => k),
   /** Source text split into lines, for a numbered listing. */
   lines: (text: string) => text.replace(/\n$/, "").split("\n"),
 };

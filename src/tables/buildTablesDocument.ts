@@ -29,6 +29,8 @@ import { targetRows } from "./targetRows.js";
 import { surveyRows } from "./surveyRows.js";
 import { differencesFromBaseline } from "./differences.js";
 import { cautions } from "./cautions.js";
+import { spreadBands, spreadDraws } from "./spreadBands.js";
+import { GENERATOR_NAME, SPREAD_PERCENTILES } from "../statistics/index.js";
 import type { ModelTables, Num, RedshiftGrid, RedshiftRow, TablesDocument } from "../contract/tablesDocument.js";
 import { TABLES_FORMAT } from "../contract/formats.js";
 import { inputsSha256 } from "../contract/inputsHash.js";
@@ -189,6 +191,19 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
       }
       throw e;
     }
+    if (m.published) tables.published = m.published;
+    if (m.spread && s.draws) {
+      const draws = spreadDraws(m.spread, m.id, s.draws.count, s.draws.seed, s.samples?.[m.id]);
+      tables.spread = spreadBands(m, tables, draws, (drawn) => modelTables(drawn, s, grid));
+      if (tables.spread.rejected > 0)
+        tables.warnings.push(
+          `${tables.spread.rejected} of ${tables.spread.draws} draws rejected (${Object.entries(
+            tables.spread.rejected_because,
+          )
+            .map(([why, count]) => `${count} ${why}`)
+            .join(", ")}); the bands describe the ${tables.spread.accepted} accepted draws`,
+        );
+    }
     // A number beyond double precision (an extreme but valid input) is stored as null, with a note; never Infinity.
     const overflowed = nullNonFinite(tables);
     if (overflowed > 0)
@@ -239,6 +254,16 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
       s.models.some((m) => m.background.Omega_b !== null),
       s.models.some((m) => m.background.massiveNeutrinos.length > 0),
     ),
+    ...(s.draws
+      ? {
+          draws: {
+            count: s.draws.count,
+            seed: s.draws.seed,
+            generator: `${GENERATOR_NAME}; normal deviates by the inverse CDF (Wichura 1988, AS 241)`,
+            percentiles: [...SPREAD_PERCENTILES],
+          },
+        }
+      : {}),
     models,
     differences,
   };

@@ -1,0 +1,41 @@
+import type { Band } from "./tablesDocument.js";
+
+/** Index of each reported percentile in a band's `q` (the document's draws.percentiles: 2.5, 16, 50, 84, 97.5). */
+export const P16 = 1;
+export const P50 = 2;
+export const P84 = 3;
+
+/** A median with its central 68 % interval, printed to the digits the interval supports. */
+export interface IntervalText {
+  median: number;
+  plus: number;
+  minus: number;
+  /** "13.797 +0.023 −0.023" (or "(1.23 +0.04 −0.05) × 10^9"). */
+  text: string;
+  /** LaTeX, for a math environment: "13.797^{+0.023}_{-0.023}". */
+  tex: string;
+}
+
+/**
+ * The median of a band and its 68 % interval (16th to 84th percentile) as +upper -lower. Digits: two significant
+ * figures of the smaller half-width, the median rounded to the same decimal place (the rounding rule of the Review
+ * of Particle Physics in its simplest form; common practice). Null when the band is null or has no width.
+ */
+export function intervalOf(band: Band | null | undefined): IntervalText | null {
+  if (!band) return null;
+  const median = band.q[P50];
+  const plus = band.q[P84] - median;
+  const minus = median - band.q[P16];
+  const smaller = Math.min(plus, minus) > 0 ? Math.min(plus, minus) : Math.max(plus, minus);
+  if (!(smaller > 0) || !Number.isFinite(median)) return null;
+  const scale = Math.abs(median);
+  const exponent = scale >= 1e6 || (scale > 0 && scale < 1e-3) ? Math.floor(Math.log10(scale)) : 0;
+  const f = 10 ** exponent;
+  const decimals = Math.max(0, 1 - Math.floor(Math.log10(smaller / f)));
+  const fix = (x: number) => (x / f).toFixed(Math.min(decimals, 20));
+  const core = `${fix(median)} +${fix(plus)} \u2212${fix(minus)}`;
+  const texCore = `${fix(median)}^{+${fix(plus)}}_{-${fix(minus)}}`;
+  return exponent === 0
+    ? { median, plus, minus, text: core, tex: texCore }
+    : { median, plus, minus, text: `(${core}) \u00d7 10^${exponent}`, tex: `${texCore}\\times 10^{${exponent}}` };
+}
