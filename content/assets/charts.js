@@ -80,7 +80,39 @@
       var ratio = ratioInput.checked;
       var log = logInput.checked;
       var base = baseline.values[key];
-      return data.models.map((m, i) => {
+      // A model with a spread gets a shaded 68 % band: its 16th-percentile curve (no line), then its 84th-percentile
+      // curve filled down to it. Bands come after the model curves, so dataset i is still model i (legend, markers).
+      var bands = [];
+      data.models.forEach((m, i) => {
+        var band = m.bands && m.bands[key];
+        if (!band) return;
+        var lo = [];
+        var hi = [];
+        for (let j = 0; j < data.z.length; j++) {
+          const x = data.z[j];
+          if (log && !(x > 0)) continue;
+          if (data.xRange && (x < data.xRange[0] || x > data.xRange[1])) continue;
+          let a = band.lo[j];
+          let b = band.hi[j];
+          if (ratio) {
+            a = a === null || !base[j] ? null : a / base[j];
+            b = b === null || !base[j] ? null : b / base[j];
+          }
+          if (logY() && !(a > 0 && b > 0)) a = b = null;
+          lo.push({ x: x, y: a });
+          hi.push({ x: x, y: b });
+        }
+        var colour = COLOURS[i % COLOURS.length];
+        var common = { isBand: true, borderWidth: 0, pointRadius: 0, spanGaps: false, borderColor: "transparent" };
+        bands.push(Object.assign({ label: `${m.label}: 16th percentile`, data: lo, fill: false }, common));
+        bands.push(
+          Object.assign(
+            { label: `${m.label}: 84th percentile`, data: hi, backgroundColor: `${colour}33`, fill: "-1" },
+            common,
+          ),
+        );
+      });
+      var curves = data.models.map((m, i) => {
         var ys = m.values[key];
         var points = [];
         for (let j = 0; j < data.z.length; j++) {
@@ -108,6 +140,7 @@
           fill: false,
         };
       });
+      return curves.concat(bands);
     }
     function yTitle() {
       var s = byKey[seriesInput.value];
@@ -169,22 +202,25 @@
         },
         // Swatches are short lines with each model's dash pattern (as in the exported images), readable in greyscale.
         plugins: {
+          tooltip: { filter: (item) => !item.dataset.isBand },
           legend: {
             position: "bottom",
             labels: {
               usePointStyle: true,
               pointStyleWidth: 36,
               generateLabels: (c) =>
-                c.data.datasets.map((d, i) => ({
-                  text: d.label,
-                  datasetIndex: i,
-                  pointStyle: "line",
-                  fillStyle: COLOURS[i % COLOURS.length],
-                  strokeStyle: COLOURS[i % COLOURS.length],
-                  lineWidth: 2,
-                  lineDash: DASHES[i % DASHES.length],
-                  hidden: !c.isDatasetVisible(i),
-                })),
+                c.data.datasets
+                  .filter((d) => !d.isBand)
+                  .map((d, i) => ({
+                    text: d.label,
+                    datasetIndex: i,
+                    pointStyle: "line",
+                    fillStyle: COLOURS[i % COLOURS.length],
+                    strokeStyle: COLOURS[i % COLOURS.length],
+                    lineWidth: 2,
+                    lineDash: DASHES[i % DASHES.length],
+                    hidden: !c.isDatasetVisible(i),
+                  })),
             },
           },
         },

@@ -38,6 +38,12 @@ const header = (t: ExportTable) => [
 const heading = (t: ExportTable) =>
   t.spans?.length === 1 && t.spans[0].unit ? `${t.title} [${unitText(t.spans[0].unit)}]` : t.title;
 
+/** Columns that hold a 68 % interval in some row (their CSV gets median and interval columns after the rest). */
+const intervalColumns = (t: ExportTable) =>
+  t.columns.map((_, i) => i).filter((i) => t.rows.some((r) => r.cells[i]?.interval !== undefined));
+/** A cell as text with its interval: "13.7958 (68 %: 13.797 +0.023 −0.023)". */
+const withInterval = (c: ExportCell, text: string) => (c.interval ? `${text} (68 %: ${c.interval.text})` : text);
+
 /**
  * RFC 4180 CSV (csv-stringify) at full precision, empty cell = null; provenance in leading "#" comment lines.
  * Any field holding "#" is quoted, so that readers that treat "#" as a comment anywhere on a line keep it.
@@ -51,9 +57,22 @@ export function tableCsv(t: ExportTable, p: ExportProvenance): string {
   // Numbers stay numbers; text (labels, names, notes) is neutralised against formula injection.
   const value = (c: ExportCell) =>
     c.value === null ? "" : c.kind === "number" ? String(c.value) : csvText(String(c.value));
+  // A model with a spread adds, per column, the median and the 16th and 84th percentiles of its draws.
+  const banded = intervalColumns(t);
+  const head = header(t);
+  const extra = banded.flatMap((i) => [
+    `${head[i + 1]}: median of draws`,
+    `${head[i + 1]}: 16th percentile`,
+    `${head[i + 1]}: 84th percentile`,
+  ]);
+  const bands = (r: ExportTable["rows"][number]) =>
+    banded.flatMap((i) => {
+      const iv = r.cells[i]?.interval;
+      return iv ? [String(iv.median), String(iv.median - iv.minus), String(iv.median + iv.plus)] : ["", "", ""];
+    });
   const rows = [
-    header(t).map(csvText),
-    ...t.rows.map((r) => [csvText(labelWithUnit(r.label, r.unit)), ...r.cells.map(value)]),
+    [...head, ...extra].map(csvText),
+    ...t.rows.map((r) => [csvText(labelWithUnit(r.label, r.unit)), ...r.cells.map(value), ...bands(r)]),
   ];
   const body = stringify(rows, { record_delimiter: "\r\n", quoted_match: CSV_QUOTED });
   return `${comments.join("\r\n")}\r\n${body}`;
@@ -76,6 +95,20 @@ export function tableJson(t: ExportTable, p: ExportProvenance): string {
           unit: r.unit,
           values: r.cells.map((c) => c.value),
           text: r.cells.map((c) => c.text),
+          ...(r.cells.some((c) => c.interval)
+            ? {
+                intervals_68: r.cells.map((c) =>
+                  c.interval
+                    ? {
+                        median: c.interval.median,
+                        p16: c.interval.median - c.interval.minus,
+                        p84: c.interval.median + c.interval.plus,
+                        text: c.interval.text,
+                      }
+                    : null,
+                ),
+              }
+            : {}),
         })),
       },
     },
@@ -97,7 +130,7 @@ export function tableMarkdown(t: ExportTable, p: ExportProvenance): string {
     "",
     row(header(t)),
     align,
-    ...t.rows.map((r) => row([labelWithUnit(r.label, r.unit), ...r.cells.map((c) => c.text)])),
+    ...t.rows.map((r) => row([labelWithUnit(r.label, r.unit), ...r.cells.map((c) => withInterval(c, c.text))])),
     "",
     `Source: ${escapeMarkdown(provenanceLine(p))}`,
     "",
@@ -113,7 +146,7 @@ export function tablePlainText(t: ExportTable, p: ExportProvenance): string {
   const head = header(t).map(oneLine);
   const body = t.rows.map((r) => [
     oneLine(labelWithUnit(r.label, r.unit)),
-    ...r.cells.map((c) => oneLine(c.text || "—")),
+    ...r.cells.map((c) => oneLine(withInterval(c, c.text || "—"))),
   ]);
   const widths = head.map((h, i) => Math.max([...h].length, ...body.map((r) => [...r[i]].length)));
   const line = (cells: string[]) =>
@@ -142,7 +175,10 @@ const latexLabel = (label: string, unit: string) =>
 /** A tabular with booktabs rules (\usepackage{booktabs}); units in the header; provenance in % comments above it. */
 export function tableLatex(t: ExportTable, p: ExportProvenance): string {
   const n = t.columns.length;
-  const cell = (c: ExportCell) => (c.kind === "number" ? latexNumber(c.parts) : escapeLatex(c.text));
+  // A spread adds the median and its 68 % interval as X^{+a}_{-b} after the value.
+  const cell = (c: ExportCell) =>
+    (c.kind === "number" ? latexNumber(c.parts) : escapeLatex(c.text)) +
+    (c.interval ? ` ($${c.interval.tex.replace(/\u2212/g, "-")}$)` : "");
   const lines = [
     // A comment ends only at a line break, and oneLine leaves none (TeX skips the rest of a comment line unread).
     `% ${oneLine(heading(t))}`,
@@ -197,7 +233,7 @@ export function tableHtml(t: ExportTable, p: ExportProvenance): string {
   );
   for (const r of t.rows) {
     out.push(
-      `<tr><th scope="row" style="${th};border-bottom:0">${escapeHtml(labelWithUnit(r.label, r.unit))}</th>${r.cells.map((c) => `<td style="${c.kind === "number" ? td : "padding:2px 8px"}">${escapeHtml(c.text)}</td>`).join("")}</tr>`,
+      `<tr><th scope="row" style="${th};border-bottom:0">${escapeHtml(labelWithUnit(r.label, r.unit))}</th>${r.cells.map((c) => `<td style="${c.kind === "number" ? td : "padding:2px 8px"}">${escapeHtml(c.text)}${c.interval ? `<br><small>68 %: ${escapeHtml(c.interval.text)}</small>` : ""}</td>`).join("")}</tr>`,
     );
   }
   out.push(

@@ -1,6 +1,7 @@
 import { quantityValue, type StoredModelTables, type StoredTablesDocument } from "../contract/tablesDocument.js";
 import { catalogFor, fateText } from "../contract/quantityCatalog.js";
 import { littleHUnit, wantsLittleHUnits } from "../contract/littleHUnitNames.js";
+import { intervalOf, type IntervalText } from "../contract/formatInterval.js";
 import {
   columnIsScientific,
   exactParts,
@@ -16,6 +17,8 @@ export interface ExportCell {
   value: number | string | null;
   parts: NumberParts | null;
   text: string;
+  /** For a model with a spread: the median of its draws and the central 68 % interval (absent otherwise). */
+  interval?: IntervalText;
 }
 export interface ExportRow {
   label: string;
@@ -59,6 +62,22 @@ const text = (s: string | null | undefined): ExportCell => ({
   text: s ?? "",
 });
 
+type BandSection = "summary" | "redshifts" | "targets" | "surveys";
+/** A cell with the model's 68 % interval of the same quantity, when the model has a spread and the quantity a band. */
+const banded = (
+  cell: ExportCell,
+  m: StoredModelTables,
+  where: BandSection,
+  row: number | null,
+  key: string,
+): ExportCell => {
+  if (!("spread" in m) || !m.spread) return cell;
+  const section = m.spread[where] as unknown;
+  const holder = (row === null ? section : (section as unknown[])[row]) as Record<string, never> | undefined;
+  const interval = intervalOf(holder?.[key]);
+  return interval ? { ...cell, interval } : cell;
+};
+
 /** The per-redshift quantities a proposal quotes, in the order the key-number sheet lists them. */
 const SHEET_ROWS = [
   ["luminosity_distance_Mpc", "D_L", "Mpc"],
@@ -89,18 +108,36 @@ function keyNumbers(doc: StoredTablesDocument, columns: ExportTable["columns"]):
   const models = doc.models;
   const rows: ExportRow[] = [];
   const h = wantsLittleHUnits(doc);
-  const row = (label: string, unit: string, value: (m: StoredModelTables) => number | null | undefined) =>
-    rows.push({ label, unit: h ? littleHUnit(unit) : unit, cells: models.map((m) => num(value(m))) });
+  // Each number with its 68 % interval when the model has a spread (where: the band's section, row and key).
+  const row = (
+    label: string,
+    unit: string,
+    value: (m: StoredModelTables) => number | null | undefined,
+    where: [BandSection, number | null, string],
+  ) =>
+    rows.push({
+      label,
+      unit: h ? littleHUnit(unit) : unit,
+      cells: models.map((m) => banded(num(value(m)), m, ...where)),
+    });
   models[0].targets.forEach((t, ti) => {
     const at = (m: StoredModelTables) => m.targets[ti] as unknown as Record<string, number | null | undefined>;
-    if (t.placed_by !== "z") row(`${t.name}: redshift`, "", (m) => at(m).z);
+    const key = (k: string): [BandSection, number, string] => ["targets", ti, k];
+    if (t.placed_by !== "z") row(`${t.name}: redshift`, "", (m) => at(m).z, key("z"));
     else rows.push({ label: `${t.name}: redshift`, unit: "", cells: models.map(() => exact(t.z)) }); // as given
-    if (t.angular_size_arcsec !== null) row(`${t.name}: angular size`, "arcsec", (m) => at(m).angular_size_arcsec);
+    if (t.angular_size_arcsec !== null)
+      row(`${t.name}: angular size`, "arcsec", (m) => at(m).angular_size_arcsec, key("angular_size_arcsec"));
     if ((t as Record<string, unknown>).proper_size_kpc != null)
-      row(`${t.name}: proper size`, "kpc", (m) => at(m).proper_size_kpc);
-    if (t.apparent_magnitude !== null) row(`${t.name}: apparent magnitude`, "mag", (m) => at(m).apparent_magnitude);
+      row(`${t.name}: proper size`, "kpc", (m) => at(m).proper_size_kpc, key("proper_size_kpc"));
+    if (t.apparent_magnitude !== null)
+      row(`${t.name}: apparent magnitude`, "mag", (m) => at(m).apparent_magnitude, key("apparent_magnitude"));
     if (t.bolometric_flux_erg_s_cm2 !== null)
-      row(`${t.name}: bolometric flux`, "erg/s/cm^2", (m) => at(m).bolometric_flux_erg_s_cm2);
+      row(
+        `${t.name}: bolometric flux`,
+        "erg/s/cm^2",
+        (m) => at(m).bolometric_flux_erg_s_cm2,
+        key("bolometric_flux_erg_s_cm2"),
+      );
   });
   models[0].redshifts.forEach((r, ri) => {
     for (const [key, label, unit] of SHEET_ROWS)
@@ -108,9 +145,10 @@ function keyNumbers(doc: StoredTablesDocument, columns: ExportTable["columns"]):
         `z = ${exact(r.z).text}: ${label}`,
         unit,
         (m) => (m.redshifts[ri] as unknown as Record<string, number | null>)[key],
+        ["redshifts", ri, key],
       );
   });
-  row("Age today", "Gyr", (m) => m.summary.age_Gyr);
+  row("Age today", "Gyr", (m) => m.summary.age_Gyr, ["summary", null, "age_Gyr"]);
   return {
     id: "key-numbers",
     title: "Numbers to quote",
@@ -168,7 +206,9 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
       perModel("Geometry", "", (m) => text(m.summary.geometry as string)),
       perModel("Fate", "", (m) => text(fateText(m.summary.fate))),
       ...SUMMARY_QUANTITIES.map((q) =>
-        perModel(q.label, q.unit, (m) => num(quantityValue(m.summary, q.key) as number | null)),
+        perModel(q.label, q.unit, (m) =>
+          banded(num(quantityValue(m.summary, q.key) as number | null), m, "summary", null, q.key),
+        ),
       ),
     ],
   });
@@ -197,7 +237,9 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
       rows: models[0].redshifts.map((r, i) => ({
         label: exact(r.z).text,
         unit: "",
-        cells: g.quantities.flatMap((q) => models.map((m, mi) => inStyle(zValue(m, i, q.key), zScientific(q.key)[mi]))),
+        cells: g.quantities.flatMap((q) =>
+          models.map((m, mi) => banded(inStyle(zValue(m, i, q.key), zScientific(q.key)[mi]), m, "redshifts", i, q.key)),
+        ),
       })),
     });
     for (const q of g.quantities) {
@@ -211,7 +253,9 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
         rows: models[0].redshifts.map((r, i) => ({
           label: exact(r.z).text,
           unit: "",
-          cells: models.map((m, mi) => inStyle(zValue(m, i, q.key), zScientific(q.key)[mi])),
+          cells: models.map((m, mi) =>
+            banded(inStyle(zValue(m, i, q.key), zScientific(q.key)[mi]), m, "redshifts", i, q.key),
+          ),
         })),
       });
     }
@@ -228,7 +272,12 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
         ...EARLY_QUANTITIES.map((q) => ({
           label: q.label,
           unit: q.unit,
-          cells: [text(q.method), ...models.map((m) => num(quantityValue(m.summary, q.key) as number | null))],
+          cells: [
+            text(q.method),
+            ...models.map((m) =>
+              banded(num(quantityValue(m.summary, q.key) as number | null), m, "summary", null, q.key),
+            ),
+          ],
         })),
         {
           label: "Note",
@@ -248,7 +297,9 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
       columns,
       rows: [
         ...TARGET_QUANTITIES.map((q) =>
-          perModel(q.label, q.unit, (m) => num(quantityValue(m.targets[ti], q.key) as number | null)),
+          perModel(q.label, q.unit, (m) =>
+            banded(num(quantityValue(m.targets[ti], q.key) as number | null), m, "targets", ti, q.key),
+          ),
         ),
         perModel("Note", "", (m) => text(m.targets[ti].note)),
       ],
@@ -289,11 +340,11 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
           exact(s.z_min),
           exact(s.z_max),
           ...models.flatMap((m, mi) => [
-            inStyle(m.surveys[si].volume_Gpc3, styles.volume[mi]),
+            banded(inStyle(m.surveys[si].volume_Gpc3, styles.volume[mi]), m, "surveys", si, "volume_Gpc3"),
             ...(perDeg2
               ? [inStyle(quantityValue(m.surveys[si], "volume_per_deg2_Mpc3") as number | null, styles.perDeg2[mi])]
               : []),
-            inStyle(m.surveys[si].expected_count, styles.count[mi]),
+            banded(inStyle(m.surveys[si].expected_count, styles.count[mi]), m, "surveys", si, "expected_count"),
           ]),
         ],
       })),

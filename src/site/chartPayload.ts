@@ -2,6 +2,7 @@ import serialize from "serialize-javascript";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { catalogFor } from "../contract/quantityCatalog.js";
 import { unitText } from "../contract/formatNumber.js";
+import { P16, P84 } from "../contract/formatInterval.js";
 import { plottedRedshiftRange, spansMoreThanADecade } from "../exports/chartStyle.js";
 
 /** Plot points are drawn, not read: six significant figures are more than a screen resolves. */
@@ -27,13 +28,26 @@ export function chartPayload(doc: StoredTablesDocument) {
         xRange,
       ),
     })),
-    models: doc.models.map((m) => ({
-      id: m.id,
-      label: m.label,
-      values: Object.fromEntries(
-        CHART_SERIES.map((s) => [s.key, (m.grid as unknown as Record<string, (number | null)[]>)[s.key].map(round)]),
-      ),
-    })),
+    models: doc.models.map((m) => {
+      // A model with a spread brings its 68 % band (16th and 84th percentiles of its draws) for each series.
+      const grid = "spread" in m && m.spread ? m.spread.grid : null;
+      const bands = grid
+        ? Object.fromEntries(
+            CHART_SERIES.flatMap((s) => {
+              const g = grid[s.key];
+              return g ? [[s.key, { lo: g.q[P16].map(round), hi: g.q[P84].map(round) }]] : [];
+            }),
+          )
+        : null;
+      return {
+        id: m.id,
+        label: m.label,
+        values: Object.fromEntries(
+          CHART_SERIES.map((s) => [s.key, (m.grid as unknown as Record<string, (number | null)[]>)[s.key].map(round)]),
+        ),
+        ...(bands ? { bands } : {}),
+      };
+    }),
   };
 }
 

@@ -58,5 +58,47 @@ export function tablesCsv(doc: StoredTablesDocument): Record<string, string> {
       surveys.map((s) => keys.map((k) => (s as Record<string, unknown>)[k])),
     );
   }
+  const spreads = doc.models.filter((m) => "spread" in m && m.spread);
+  if (spreads.length > 0 && "draws" in doc && doc.draws) {
+    const pct = doc.draws.percentiles.map((p) => `p${String(p).replace(".", "_")}`);
+    const header = ["model", "table", "row", "quantity", "value", ...pct, ...pct.map((p) => `mc_error_${p}`)];
+    const line = (id: string, where: string, row: unknown, key: string, value: unknown, band: unknown) => {
+      const b = band as { q: number[]; mc_error: number[] } | null | undefined;
+      return [id, where, row, key, value, ...(b ? [...b.q, ...b.mc_error] : pct.flatMap(() => [null, null]))];
+    };
+    const body: unknown[][] = [];
+    const gridBody: unknown[][] = [];
+    for (const m of spreads) {
+      const sp = (m as { spread: NonNullable<Extract<typeof m, { spread?: unknown }>["spread"]> }).spread;
+      for (const [k, b] of Object.entries(sp.summary)) body.push(line(m.id, "summary", "", k, rec(m.summary)[k], b));
+      sp.redshifts.forEach((bands, i) => {
+        for (const [k, b] of Object.entries(bands))
+          body.push(line(m.id, "redshifts", m.redshifts[i].z, k, rec(m.redshifts[i])[k], b));
+      });
+      sp.targets.forEach((bands, i) => {
+        for (const [k, b] of Object.entries(bands))
+          body.push(line(m.id, "targets", m.targets[i].name, k, rec(m.targets[i])[k], b));
+      });
+      sp.surveys.forEach((bands, i) => {
+        for (const [k, b] of Object.entries(bands))
+          body.push(line(m.id, "surveys", m.surveys[i].name, k, rec(m.surveys[i])[k], b));
+      });
+      const z = (m.grid as unknown as Record<string, (number | null)[]>).z;
+      for (const [k, g] of Object.entries(sp.grid)) {
+        const column = (m.grid as unknown as Record<string, (number | null)[]>)[k];
+        z.forEach((zi, i) =>
+          gridBody.push([
+            m.id,
+            k,
+            zi,
+            column[i],
+            ...(g ? [...g.q.map((a) => a[i]), ...g.mc_error.map((a) => a[i])] : pct.flatMap(() => [null, null])),
+          ]),
+        );
+      }
+    }
+    files["spread.csv"] = table(header, body);
+    files["spread-grid.csv"] = table(["model", "quantity", "z", "value", ...header.slice(5)], gridBody);
+  }
   return files;
 }

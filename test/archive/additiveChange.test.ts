@@ -1,6 +1,6 @@
 // A real additive contract change, made the way DEVELOPERS.md ("Adding a quantity end to end") says, in a copy of the
 // project: the scale factor a = 1/(1+z) (definition of redshift) becomes a per-redshift quantity of a new tables
-// format 4. The rules under test are the schema-evolution rules we follow (old records read as written, forever):
+// format N + 1, N being the newest released format. The rules under test are the schema-evolution rules we follow (old records read as written, forever):
 // the format-1 fixture archive and the demo archive must still build, verify --strict and continue their chains.
 import { describe, expect, it } from "vitest";
 import { spawnSync } from "node:child_process";
@@ -8,6 +8,12 @@ import { cpSync, existsSync, readFileSync, symlinkSync, writeFileSync } from "no
 import { join } from "node:path";
 import { parseHTML } from "linkedom";
 import { ROOT, tempDir } from "../helpers/buildDemoSite.js";
+import { TABLES_FORMAT_NUMBERS } from "../../src/contract/formats.js";
+
+/** The newest released tables format, and the one this test adds. */
+const N = TABLES_FORMAT_NUMBERS.at(-1)!;
+const NEXT = N + 1;
+const list = (n: number) => Array.from({ length: n }, (_, i) => i + 1);
 
 /** Replaces `from` by `to` in a file of the copy, and fails the test if `from` is not there exactly once. */
 function edit(project: string, file: string, from: string, to: string): void {
@@ -55,56 +61,60 @@ describe("an additive contract change keeps every archive readable", { timeout: 
       "    out.light_travel_distance_Gly[i] = lookback;\n    out.scale_factor[i] = a; // a = 1/(1+z), the definition of redshift\n",
     );
     // 2. Contract: a new format whose schema is the previous one plus the key; registered; types regenerated.
-    const schema = JSON.parse(readFileSync(join(project, "src/schema/tables/3.schema.json"), "utf8"));
-    schema.$id = "https://cosmoledger.invalid/schema/tables/4.schema.json";
-    schema.title = "cosmoledger tables document, format cosmoledger.tables/4";
-    schema.properties.format = { const: "cosmoledger.tables/4" };
+    const schema = JSON.parse(readFileSync(join(project, `src/schema/tables/${N}.schema.json`), "utf8"));
+    schema.$id = `https://cosmoledger.invalid/schema/tables/${NEXT}.schema.json`;
+    schema.title = `cosmoledger tables document, format cosmoledger.tables/${NEXT}`;
+    schema.properties.format = { const: `cosmoledger.tables/${NEXT}` };
     schema.definitions.row.required.push("scale_factor");
     schema.definitions.row.properties.scale_factor = { $ref: "#/definitions/num" };
     schema.definitions.gridColumns.required.push("scale_factor");
     schema.definitions.gridColumns.properties.scale_factor = { type: "array", items: { $ref: "#/definitions/num" } };
-    writeFileSync(join(project, "src/schema/tables/4.schema.json"), `${JSON.stringify(schema, null, 2)}\n`);
+    writeFileSync(join(project, `src/schema/tables/${NEXT}.schema.json`), `${JSON.stringify(schema, null, 2)}\n`);
     edit(
       project,
       "src/contract/formats.ts",
-      "TABLES_FORMAT_NUMBERS = [1, 2, 3] as const",
-      "TABLES_FORMAT_NUMBERS = [1, 2, 3, 4] as const",
+      `TABLES_FORMAT_NUMBERS = [${list(N).join(", ")}] as const`,
+      `TABLES_FORMAT_NUMBERS = [${list(NEXT).join(", ")}] as const`,
     );
     edit(
       project,
       "src/contract/formats.ts",
-      "TABLES_FORMAT = `${TABLES_FORMAT_PREFIX}3`",
-      "TABLES_FORMAT = `${TABLES_FORMAT_PREFIX}4`",
+      `TABLES_FORMAT = \`\${TABLES_FORMAT_PREFIX}${N}\``,
+      `TABLES_FORMAT = \`\${TABLES_FORMAT_PREFIX}${NEXT}\``,
     );
     edit(
       project,
       "src/contract/validateContract.ts",
-      'import tables3 from "../schema/tables/3.schema.json" with { type: "json" };',
-      'import tables3 from "../schema/tables/3.schema.json" with { type: "json" };\nimport tables4 from "../schema/tables/4.schema.json" with { type: "json" };',
+      `import tables${N} from "../schema/tables/${N}.schema.json" with { type: "json" };`,
+      `import tables${N} from "../schema/tables/${N}.schema.json" with { type: "json" };\nimport tables${NEXT} from "../schema/tables/${NEXT}.schema.json" with { type: "json" };`,
     );
     edit(
       project,
       "src/contract/validateContract.ts",
-      "tables: { 1: tables1, 2: tables2, 3: tables3 },",
-      "tables: { 1: tables1, 2: tables2, 3: tables3, 4: tables4 },",
+      `tables: { ${list(N)
+        .map((n) => `${n}: tables${n}`)
+        .join(", ")} },`,
+      `tables: { ${list(NEXT)
+        .map((n) => `${n}: tables${n}`)
+        .join(", ")} },`,
     );
     edit(
       project,
       "src/contract/tablesDocument.ts",
-      'import type { TablesDocumentFormat3 } from "./generated/tablesFormat3.js";',
-      'import type { TablesDocumentFormat3 } from "./generated/tablesFormat3.js";\nimport type { TablesDocumentFormat4 } from "./generated/tablesFormat4.js";',
+      `import type { TablesDocumentFormat${N} } from "./generated/tablesFormat${N}.js";`,
+      `import type { TablesDocumentFormat${N} } from "./generated/tablesFormat${N}.js";\nimport type { TablesDocumentFormat${NEXT} } from "./generated/tablesFormat${NEXT}.js";`,
     );
     edit(
       project,
       "src/contract/tablesDocument.ts",
-      "export type TablesDocument = TablesDocumentFormat3;",
-      "export type TablesDocument = TablesDocumentFormat4;",
+      `export type TablesDocument = TablesDocumentFormat${N};`,
+      `export type TablesDocument = TablesDocumentFormat${NEXT};`,
     );
     edit(
       project,
       "src/contract/tablesDocument.ts",
-      "export type StoredTablesDocument = TablesDocumentFormat1 | TablesDocumentFormat2 | TablesDocumentFormat3;",
-      "export type StoredTablesDocument =\n  | TablesDocumentFormat1\n  | TablesDocumentFormat2\n  | TablesDocumentFormat3\n  | TablesDocumentFormat4;",
+      `  | TablesDocumentFormat${N};`,
+      `  | TablesDocumentFormat${N}\n  | TablesDocumentFormat${NEXT};`,
     );
     const types = run(process.execPath, ["src/schema/generateContractTypes.mjs"], project);
     expect(types.code, types.stderr).toBe(0);
@@ -129,12 +139,12 @@ describe("an additive contract change keeps every archive readable", { timeout: 
       /added since frozen \(not drift\): redshifts\[\]\.scale_factor \(not computed in 5 versions\)/,
     );
     expect(v.stdout).toMatch(/added since frozen \(not drift\): grid\.scale_factor/);
-    // It continues its chain with format 4.
+    // It continues its chain with the new format.
     const yaml = join(fixture, "scenarios/cinder-vault.yaml");
     writeFileSync(yaml, readFileSync(yaml, "utf8").replace("H0: 70", "H0: 69"));
-    expect(cli(["freeze", "scenarios/cinder-vault.yaml", "-m", "format 4"], fixture).code).toBe(0);
+    expect(cli(["freeze", "scenarios/cinder-vault.yaml", "-m", `format ${NEXT}`], fixture).code).toBe(0);
     const v4 = JSON.parse(readFileSync(join(fixture, "scenarios/archive/cinder-vault/v4.json"), "utf8"));
-    expect(v4.tables.format).toBe("cosmoledger.tables/4");
+    expect(v4.tables.format).toBe(`cosmoledger.tables/${NEXT}`);
     expect(
       v4.tables.models[0].redshifts.map((r: { z: number; scale_factor: number }) => r.scale_factor * (1 + r.z)),
     ).toEqual([1, 1]);
@@ -150,7 +160,9 @@ describe("an additive contract change keeps every archive readable", { timeout: 
     expect(v4page.querySelector('[data-quantity="scale_factor"]')).not.toBeNull();
     const diff = parseHTML(readFileSync(join(fixture, "site/cinder-vault/diff/v3-v4/index.html"), "utf8")).document;
     expect(diff.querySelector(".format-change")!.textContent).toMatch(
-      /cosmoledger\.tables\/1 → cosmoledger\.tables\/4; quantities added: .*redshifts\[\]\.scale_factor/,
+      new RegExp(
+        `cosmoledger\\.tables\\/1 → cosmoledger\\.tables\\/${NEXT}; quantities added: .*redshifts\\[\\]\\.scale_factor`,
+      ),
     );
     expect(diff.querySelector('tr[data-quantity="scale_factor"]')!.textContent).toMatch(/not computed in version 3/);
     // Exports of an old version leave the quantity out; of the new one, include it.
@@ -171,7 +183,7 @@ describe("an additive contract change keeps every archive readable", { timeout: 
     expect(d.stdout).toMatch(/added since frozen \(not drift\): redshifts\[\]\.scale_factor/);
     expect(cli(["build", "--scenarios", "scenarios", "--out", "site", "--skip-images"], demo).code).toBe(0);
     expect(
-      cli(["freeze", "scenarios/tidewater-geometry.yaml", "-m", "DEMO: first version under format 4"], demo).code,
+      cli(["freeze", "scenarios/tidewater-geometry.yaml", "-m", `DEMO: first version under format ${NEXT}`], demo).code,
     ).toBe(0);
   });
 });

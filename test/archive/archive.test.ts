@@ -116,7 +116,7 @@ describe("freeze, history, diff and verify", { timeout: 180_000 }, () => {
     const r = cli("verify", "--archive", "scenarios/archive", "--strict");
     expect(r.code, r.stderr).toBe(0);
     expect(r.stdout).toMatch(
-      /1 scenario, 2 versions \(2 of cosmoledger\.tables\/3\); every hash and chain link checks out/,
+      /1 scenario, 2 versions \(2 of cosmoledger\.tables\/\d+\); every hash and chain link checks out/,
     );
     expect(r.stdout).toMatch(/(\d+) of \1 quantities reproduce within 1e-10 \(largest 0: bit-identical\)/);
     const full = cli("verify", "--archive", "scenarios/archive", "--verbose");
@@ -262,7 +262,7 @@ describe("freeze, history, diff and verify", { timeout: 180_000 }, () => {
     const s = cli("verify", "--archive", "misshapen");
     expect(s.code).toBe(2);
     expect(s.stderr).toMatch(
-      /misshapen\/shelf-test\/v2\.json: not a valid version record: tables: src\/schema\/tables\/3\.schema\.json: \(the document\) must have required property 'models'/,
+      /misshapen\/shelf-test\/v2\.json: not a valid version record: tables: src\/schema\/tables\/\d+\.schema\.json: \(the document\) must have required property 'models'/,
     );
 
     const before = readFileSync(join(work, "site/index.html"), "utf8");

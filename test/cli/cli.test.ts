@@ -5,7 +5,8 @@ import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { Ajv } from "ajv";
 import { parse as parseCsv } from "csv-parse/sync";
-import tablesSchema from "../../src/schema/tables/3.schema.json" with { type: "json" };
+import tablesSchema from "../../src/schema/tables/4.schema.json" with { type: "json" };
+import { TABLES_FORMAT } from "../../src/contract/formats.js";
 import { compileProject } from "../helpers/buildDemoSite.js";
 import { MPC_CM, FULL_SKY_DEG2, REDSHIFT_COLUMN_KEYS } from "../../src/engine/index.js";
 import { hubbleDistanceMpc, hubbleTimeGyr } from "../helpers/referenceScales.js";
@@ -42,7 +43,7 @@ describe("cosmoledger CLI on the demo scenarios", () => {
       const docText = readFileSync(join(a, id, "tables.json"), "utf8");
       expect(docText).toBe(readFileSync(join(b, id, "tables.json"), "utf8"));
       const doc = JSON.parse(docText);
-      expect(doc.format).toBe("cosmoledger.tables/3");
+      expect(doc.format).toBe(TABLES_FORMAT);
       expect(validate(doc), JSON.stringify(validate.errors?.slice(0, 3))).toBe(true);
       for (const csv of ["parameters.csv", "summary.csv", "redshifts.csv", "differences.csv"])
         expect(existsSync(join(a, id, csv))).toBe(true);
