@@ -84,7 +84,7 @@
       // curve filled down to it. Bands come after the model curves, so dataset i is still model i (legend, markers).
       var bands = [];
       data.models.forEach((m, i) => {
-        var band = m.bands && m.bands[key];
+        var band = m.bands?.[key];
         if (!band) return;
         var lo = [];
         var hi = [];

@@ -86,15 +86,15 @@ export function tablesCsv(doc: StoredTablesDocument): Record<string, string> {
       const z = (m.grid as unknown as Record<string, (number | null)[]>).z;
       for (const [k, g] of Object.entries(sp.grid)) {
         const column = (m.grid as unknown as Record<string, (number | null)[]>)[k];
-        z.forEach((zi, i) =>
+        z.forEach((zi, i) => {
           gridBody.push([
             m.id,
             k,
             zi,
             column[i],
             ...(g ? [...g.q.map((a) => a[i]), ...g.mc_error.map((a) => a[i])] : pct.flatMap(() => [null, null])),
-          ]),
-        );
+          ]);
+        });
       }
     }
     files["spread.csv"] = table(header, body);
