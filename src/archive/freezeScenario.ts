@@ -2,7 +2,7 @@ import { makeFolders, removeEmptyFolders } from "../common/makeFolders.js";
 import { namePathOnError } from "../common/namePathOnError.js";
 import { closeSync, constants, copyFileSync, fsyncSync, linkSync, openSync, rmSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
-import { randomBytes } from "node:crypto";
+import { createHash, randomBytes } from "node:crypto";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import type { TablesDocument } from "../contract/tablesDocument.js";
 import { readScenarioArchive } from "./readArchive.js";
@@ -107,6 +107,11 @@ function freezeInto(
         message,
         previous_sha256: latest?.sha256 ?? null,
         source: { path: scenario.source.name, text: scenario.source.text },
+        // Every samples file the scenario names, so that the version can be recomputed without it.
+        attachments: Object.values(scenario.samples ?? {})
+          .map((t) => ({ path: t.path, sha256: sha256Of(t.text), text: t.text }))
+          .filter((a, i, all) => all.findIndex((b) => b.path === a.path) === i)
+          .sort((a, b) => (a.path < b.path ? -1 : a.path > b.path ? 1 : 0)),
         inputs: frozenInputs(scenario),
         tables: doc,
       },
@@ -133,3 +138,5 @@ function freezeInto(
   }
   throw new Error(`could not take a version number in ${folder} after ${RETRIES} attempts`);
 }
+
+const sha256Of = (text: string) => createHash("sha256").update(text, "utf8").digest("hex");

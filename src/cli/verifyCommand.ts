@@ -3,7 +3,7 @@ import { existsSync } from "node:fs";
 import { displayPath } from "../common/displayPath.js";
 import { readArchive } from "../archive/readArchive.js";
 import { compareWithRecomputed, type DriftFinding } from "../archive/versionDrift.js";
-import { frozenInputs } from "../contract/versionRecord.js";
+import { attachmentsOf, frozenInputs } from "../contract/versionRecord.js";
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError } from "../scenario/scenarioIssue.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
@@ -65,7 +65,15 @@ export function verifyCommand(options: {
       formats.set(v.tables.format, (formats.get(v.tables.format) ?? 0) + 1);
       let scenario: ReturnType<typeof loadScenario>;
       try {
-        scenario = loadScenario(v.source.text, v.source.path);
+        // The files the version kept (samples files) stand in for the scenario's folder.
+        const kept = new Map(attachmentsOf(v).map((a) => [a.path, a.text]));
+        scenario = loadScenario(v.source.text, v.source.path, {
+          readAttachment: (path) => {
+            const text = kept.get(path);
+            if (text === undefined) throw new Error("the version does not keep this file");
+            return text;
+          },
+        });
       } catch (e) {
         if (!(e instanceof ScenarioInputError)) throw e;
         problems.push(`${label}: its frozen source no longer passes the current validation: ${e.issues[0].message}`);

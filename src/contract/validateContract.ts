@@ -5,12 +5,13 @@ import tables3 from "../schema/tables/3.schema.json" with { type: "json" };
 import tables4 from "../schema/tables/4.schema.json" with { type: "json" };
 import version1 from "../schema/version/1.schema.json" with { type: "json" };
 import version2 from "../schema/version/2.schema.json" with { type: "json" };
+import version3 from "../schema/version/3.schema.json" with { type: "json" };
 import { formatNumber, unreadableFormat, type FormatFamily } from "./formats.js";
 
 /** The JSON Schema of every released format, by number. Never edit a released schema: add the next one. */
 const SCHEMAS: Record<FormatFamily, Record<number, object>> = {
   tables: { 1: tables1, 2: tables2, 3: tables3, 4: tables4 },
-  version: { 1: version1, 2: version2 },
+  version: { 1: version1, 2: version2, 3: version3 },
 };
 
 let ajv: Ajv | null = null;

@@ -44,10 +44,28 @@ export interface VersionRecordFormat2<
   tables: T;
 }
 
+/** A file a scenario names (a samples file), kept in the version so that verify can recompute it. */
+export interface Attachment {
+  path: string;
+  sha256: string;
+  text: string;
+}
+
+/** Format 3: format 2 plus the text of every file the scenario names (empty when it names none). */
+export interface VersionRecordFormat3<
+  T extends Exclude<StoredTablesDocument, TablesDocumentFormat1> = Exclude<StoredTablesDocument, TablesDocumentFormat1>,
+> extends Omit<VersionRecordFormat2<T>, "format"> {
+  format: "cosmoledger.version/3";
+  attachments: Attachment[];
+}
+
 /** The record this release writes: the current version format with the current tables format. */
-export type VersionRecord = VersionRecordFormat2<TablesDocument>;
+export type VersionRecord = VersionRecordFormat3<TablesDocument>;
 /** Any record this release reads. */
-export type StoredVersionRecord = VersionRecordFormat1 | VersionRecordFormat2;
+export type StoredVersionRecord = VersionRecordFormat1 | VersionRecordFormat2 | VersionRecordFormat3;
+
+/** The files a stored version keeps (none before format 3). */
+export const attachmentsOf = (r: StoredVersionRecord): Attachment[] => ("attachments" in r ? r.attachments : []);
 
 /** JSON-clean resolved inputs (drops the engine's model objects and the source, which is stored on its own). */
 export function frozenInputs(scenario: ResolvedScenario): FrozenInputs {

@@ -8,6 +8,8 @@ export const WEIGHT_COLUMN = "weight";
 
 /** The nearest valid key when it is plausibly a misspelling (within a third of its length), else null. */
 function closestKey(name: string, valid: string[]): string | null {
+  const sameLetters = valid.find((k) => k.toLowerCase() === name.toLowerCase());
+  if (sameLetters) return sameLetters;
   const near = closest(name, valid);
   return distance(name.toLowerCase(), near.toLowerCase()) <= Math.max(2, Math.floor(near.length / 3)) ? near : null;
 }

@@ -136,6 +136,7 @@ function draftRecord(doc: TablesDocument, n: number): VersionRecord {
     previous_sha256: null,
     tool: { name: "cosmoledger", version: "" },
     source: { path: doc.scenario.source_path, text: doc.scenario.source_text },
+    attachments: [],
     inputs: doc.inputs,
     engine: doc.engine,
     tables: doc,

@@ -192,7 +192,8 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
       throw e;
     }
     if (m.published) tables.published = m.published;
-    if (m.spread && s.draws) {
+    // Spreads go with the chart grid: `quote` (no grid) answers with the central values only.
+    if (m.spread && s.draws && options.chartGrid !== false) {
       const draws = spreadDraws(m.spread, m.id, s.draws.count, s.draws.seed, s.samples?.[m.id]);
       tables.spread = spreadBands(m, tables, draws, (drawn) => modelTables(drawn, s, grid));
       if (tables.spread.rejected > 0)
@@ -254,7 +255,7 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
       s.models.some((m) => m.background.Omega_b !== null),
       s.models.some((m) => m.background.massiveNeutrinos.length > 0),
     ),
-    ...(s.draws
+    ...(s.draws && options.chartGrid !== false
       ? {
           draws: {
             count: s.draws.count,

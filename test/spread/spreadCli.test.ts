@@ -1,0 +1,119 @@
+// Spreads through the command line: bad spreads and samples files are located input errors (exit 2, nothing
+// written); a frozen version keeps its samples file so that verify recomputes it without the file.
+import { describe, expect, it } from "vitest";
+import { existsSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { join } from "node:path";
+import { runCli, tempDir } from "../helpers/buildDemoSite.js";
+
+const HEAD = "title: spread\nredshifts: [1]\ngrid: { points: 20 }\nmodels:\n";
+
+function project(yaml: string, files: Record<string, string> = {}) {
+  const dir = tempDir("cosmoledger-spread-");
+  writeFileSync(join(dir, "s.yaml"), yaml);
+  for (const [name, text] of Object.entries(files)) writeFileSync(join(dir, name), text);
+  return dir;
+}
+
+function refused(yaml: string, files: Record<string, string>, located: RegExp) {
+  const dir = project(yaml, files);
+  const r = runCli(["compute", "s.yaml", "--out", "out"], dir);
+  expect(r.code, r.stderr).toBe(2);
+  expect(r.stderr).toMatch(located);
+  expect(r.stderr).not.toMatch(/\n\s+at /); // no stack trace
+  expect(existsSync(join(dir, "out"))).toBe(false);
+}
+
+const samplesModel = "  - id: m\n    H0: 70\n    Omega_m: 0.3\n    spread: { samples: chain.csv }\n";
+
+describe("bad spreads are located input errors", () => {
+  it("a samples row with a missing cell names the file, line and the header", () =>
+    refused(
+      HEAD + samplesModel,
+      { "chain.csv": "H0,Omega_m\n70,0.3\n71\n" },
+      /chain\.csv:3:1: .*row has 1 cells but the header has 2 \(H0, Omega_m\)/,
+    ));
+
+  it("a non-numeric cell names its line and column", () =>
+    refused(
+      HEAD + samplesModel,
+      { "chain.csv": "H0,Omega_m\n70,0.3\n71,zero\n" },
+      /chain\.csv:3:4: .*Omega_m: "zero" is not a finite number/,
+    ));
+
+  it("a negative weight is refused where it is written", () =>
+    refused(
+      HEAD + samplesModel,
+      { "chain.csv": "H0,Omega_m,weight\n70,0.3,1\n71,0.31,-2\n" },
+      /chain\.csv:3:9: .*weight -2 is negative/,
+    ));
+
+  it("a column that is not a parameter suggests the near key", () =>
+    refused(
+      HEAD + samplesModel,
+      { "chain.csv": "H0,omega_M\n70,0.3\n" },
+      /chain\.csv:1:4: .*column "omega_M" is not a parameter key; did you mean Omega_m\?/,
+    ));
+
+  it("a missing samples file is located at the spread's samples key", () =>
+    refused(
+      HEAD + samplesModel,
+      {},
+      /s\.yaml:8:24: models\[0\]\.spread\.samples: cannot read samples file chain\.csv: the path does not exist/,
+    ));
+
+  it("a correlation matrix that is not positive definite", () =>
+    refused(
+      `${HEAD}  - id: m\n    H0: 70\n    Omega_m: 0.3\n    w0: -1\n    spread:\n      normal: { H0: 1, Omega_m: 0.01, w0: 0.1 }\n      correlation: [[1, 0.9, 0.9], [0.9, 1, -0.9], [0.9, -0.9, 1]]\n`,
+      {},
+      /s\.yaml:11:20: models\[0\]\.spread\.correlation: correlation is not positive definite/,
+    ));
+
+  it("a correlation matrix that is not symmetric names the cell", () =>
+    refused(
+      `${HEAD}  - id: m\n    H0: 70\n    Omega_m: 0.3\n    spread:\n      normal: { H0: 1, Omega_m: 0.01 }\n      correlation: [[1, -0.5], [-0.4, 1]]\n`,
+      {},
+      /models\[0\]\.spread\.correlation\[1\]\[0\]: correlation is not symmetric: row 2 column 1 is -0.4 but row 1 column 2 is -0.5/,
+    ));
+
+  it("a key that is not a parameter, and a parameter the model cannot vary", () => {
+    refused(
+      `${HEAD}  - id: m\n    H0: 70\n    Omega_m: 0.3\n    spread: { normal: { sigma8: 0.01 } }\n`,
+      {},
+      /models\[0\]\.spread\.normal\.sigma8: sigma8 is not a parameter a spread can vary; valid: H0, Omega_m/,
+    );
+    refused(
+      `${HEAD}  - id: m\n    H0: 70\n    Omega_m: 0.3\n    spread: { normal: { omega_b: 0.001 } }\n`,
+      {},
+      /models\[0\]\.spread\.normal\.omega_b: omega_b cannot vary: this model has no baryon density; set omega_b first/,
+    );
+  });
+
+  it("a samples file above the documented 4 MiB is refused before freezing, naming the limit", () => {
+    const row = "70.000000000,0.3000000000\n";
+    const big = `H0,Omega_m\n${row.repeat(Math.ceil((4 * 1024 * 1024) / row.length) + 1)}`;
+    refused(HEAD + samplesModel, { "chain.csv": big }, /has \d+ bytes; at most 4194304 \(4 MiB\) are allowed/);
+  });
+});
+
+describe("a frozen version keeps its samples file", () => {
+  it("verify recomputes it without the file; an edited file is a new version", () => {
+    const chain = ["H0,Omega_m,weight", "69.5,0.31,1", "70.1,0.30,2", "70.8,0.29,1", "71.4,0.28,3"].join("\n");
+    const dir = project(HEAD + samplesModel, { "chain.csv": chain });
+    expect(runCli(["freeze", "s.yaml", "--archive", "archive", "-m", "with chain"], dir).code).toBe(0);
+    const v1 = JSON.parse(readFileSync(join(dir, "archive/s/v1.json"), "utf8"));
+    expect(v1.format).toBe("cosmoledger.version/3");
+    expect(v1.attachments).toEqual([
+      { path: "chain.csv", sha256: expect.stringMatching(/^[0-9a-f]{64}$/), text: chain },
+    ]);
+    expect(v1.tables.models[0].spread.accepted).toBe(4);
+    rmSync(join(dir, "chain.csv"));
+    const v = runCli(["verify", "--archive", "archive", "--strict"], dir);
+    expect(v.code, v.stderr).toBe(0);
+    expect(v.stdout).toMatch(/every archived number reproduces/);
+    // The same scenario text with another chain is another version (the file's SHA-256 is part of the inputs).
+    writeFileSync(join(dir, "chain.csv"), `${chain}\n72.0,0.27,1\n`);
+    const f = runCli(["freeze", "s.yaml", "--archive", "archive", "-m", "new chain"], dir);
+    expect(f.code, f.stderr).toBe(0);
+    expect(f.stdout).toMatch(/froze s version 2/);
+  });
+});
