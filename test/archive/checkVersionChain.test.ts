@@ -23,6 +23,7 @@ function chain(n: number): VersionRecord[] {
           message: `v${v}`,
           previous_sha256: out.at(-1)?.sha256 ?? null,
           source: { path: s.source.name, text: s.source.text },
+          attachments: [],
           inputs: frozenInputs(s),
           tables: buildTablesDocument(s),
         },
