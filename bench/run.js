@@ -4,6 +4,7 @@ import { runComputeBench } from "./compute.js";
 import { runSiteBench } from "./site.js";
 import { runArchiveBench } from "./archive.js";
 import { runLimitsBench } from "./limits.js";
+import { runSpreadBench } from "./spread.js";
 
 const engine = runEngineBench();
 console.log(`engine: ${engine.points} points (8 models x 2000 redshifts, z 0..20, all per-redshift quantities)`);
@@ -47,6 +48,13 @@ console.log(
 console.log(
   `  verify ${archive.versions} versions (hashes, chain, recompute): ${archive.verifyMs.toFixed(0)} ms; build with ${archive.versions} version pages and every diff pair (--skip-images): ${(archive.buildMs / 1000).toFixed(2)} s`,
 );
+const spread = await runSpreadBench();
+console.log(
+  `spread: compute of 8 models x 1,000 draws over 200 grid + 20 table redshifts (one massive neutrino each), whole process: ${spread.wholeMs.toFixed(0)} ms (without spreads ${spread.plainMs.toFixed(0)} ms; node -e 0 ${spread.nodeMs.toFixed(0)} ms)`,
+);
+console.log(
+  `  one draw ${spread.perDrawMs.toFixed(3)} ms against one plain model's evaluation ${spread.plainPerModelMs.toFixed(3)} ms (${spread.drawOverPlain.toFixed(2)}x)`,
+);
 const limits = runLimitsBench();
 for (const l of limits)
   console.log(
@@ -68,6 +76,8 @@ console.log(
     freeze_ms: Number(archive.freezeMedianMs.toFixed(1)),
     verify_20_ms: Number(archive.verifyMs.toFixed(1)),
     build_20_versions_s: Number((archive.buildMs / 1000).toFixed(2)),
+    spread_8x1000_ms: Number(spread.wholeMs.toFixed(0)),
+    draw_over_plain: Number(spread.drawOverPlain.toFixed(2)),
     limits_peak_mb: Math.max(...limits.flatMap((l) => [l.compute.peakMB, l.build.peakMB])),
   }),
 );

@@ -6,6 +6,8 @@ export {
   SPREAD_PERCENTILES,
   effectiveSampleSize,
   percentileMonteCarloError,
+  percentileRank,
+  OrderStatistics,
   sortWeighted,
   weightedPercentile,
 } from "./weightedPercentiles.js";

@@ -87,3 +87,86 @@ export function effectiveSampleSize(weights: ArrayLike<number> | null, n: number
   }
   return s2 > 0 ? (s * s) / s2 : 0;
 }
+
+/** The 0-based rank of the p-th percentile of n equally weighted values (definition 1, as weightedPercentile). */
+export function percentileRank(n: number, percent: number): number {
+  const k = Math.max(1, Math.ceil((percent / 100) * n * (1 - 1e-12)));
+  return Math.min(n, k) - 1;
+}
+
+/**
+ * Order statistics by bucket selection: values are counted into 256 buckets of equal width between their minimum
+ * and maximum (a monotone map, so a bucket holds a contiguous stretch of the sorted order), and only the buckets
+ * that hold a wanted rank are gathered and sorted. Exact, like a full sort, at a few passes over the data (the
+ * distributive partitioning of Dobosiewicz 1978, used for selection; common practice). One instance is reused for
+ * every quantity of a spread.
+ */
+export class OrderStatistics {
+  private static readonly BUCKETS = 256;
+  private readonly bucketOf: Uint8Array;
+  private readonly scratch: Float64Array;
+  private readonly counts = new Int32Array(OrderStatistics.BUCKETS + 1);
+  private readonly filled = new Int32Array(OrderStatistics.BUCKETS);
+  private readonly needed = new Uint8Array(OrderStatistics.BUCKETS);
+
+  constructor(private readonly n: number) {
+    this.bucketOf = new Uint8Array(n);
+    this.scratch = new Float64Array(n);
+  }
+
+  /** Writes to out[j] the value of 0-based rank ranks[j] among values[0..n-1] (finite numbers). */
+  select(values: ArrayLike<number>, ranks: readonly number[], out: number[]): void {
+    const n = this.n;
+    const B = OrderStatistics.BUCKETS;
+    let min = values[0];
+    let max = values[0];
+    for (let i = 1; i < n; i++) {
+      const x = values[i];
+      if (x < min) min = x;
+      else if (x > max) max = x;
+    }
+    if (!(max > min)) {
+      for (let j = 0; j < ranks.length; j++) out[j] = min;
+      return;
+    }
+    const scale = B / (max - min);
+    const counts = this.counts;
+    counts.fill(0);
+    for (let i = 0; i < n; i++) {
+      const b = Math.min(B - 1, Math.floor((values[i] - min) * scale));
+      this.bucketOf[i] = b;
+      counts[b + 1]++;
+    }
+    for (let b = 0; b < B; b++) counts[b + 1] += counts[b]; // counts[b] is now where bucket b starts
+    this.needed.fill(0);
+    for (const r of ranks) {
+      let b = 0;
+      while (counts[b + 1] <= r) b++;
+      this.needed[b] = 1;
+    }
+    const filled = this.filled;
+    for (let b = 0; b < B; b++) filled[b] = counts[b];
+    const scratch = this.scratch;
+    for (let i = 0; i < n; i++) {
+      const b = this.bucketOf[i];
+      if (this.needed[b]) scratch[filled[b]++] = values[i];
+    }
+    for (let b = 0; b < B; b++) {
+      if (!this.needed[b]) continue;
+      const lo = counts[b];
+      const hi = counts[b + 1];
+      if (hi - lo > 32) scratch.subarray(lo, hi).sort();
+      else
+        for (let i = lo + 1; i < hi; i++) {
+          const x = scratch[i];
+          let j = i - 1;
+          while (j >= lo && scratch[j] > x) {
+            scratch[j + 1] = scratch[j];
+            j--;
+          }
+          scratch[j + 1] = x;
+        }
+    }
+    for (let j = 0; j < ranks.length; j++) out[j] = scratch[ranks[j]];
+  }
+}

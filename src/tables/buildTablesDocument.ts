@@ -195,7 +195,12 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
     // Spreads go with the chart grid: `quote` (no grid) answers with the central values only.
     if (m.spread && s.draws && options.chartGrid !== false) {
       const draws = spreadDraws(m.spread, m.id, s.draws.count, s.draws.seed, s.samples?.[m.id]);
-      tables.spread = spreadBands(m, tables, draws, (drawn) => modelTables(drawn, s, grid));
+      tables.spread = spreadBands(m, tables, draws, {
+        redshifts: s.redshifts,
+        grid,
+        targets: s.targets,
+        surveys: s.surveys,
+      });
       if (tables.spread.rejected > 0)
         tables.warnings.push(
           `${tables.spread.rejected} of ${tables.spread.draws} draws rejected (${Object.entries(

@@ -1,7 +1,25 @@
-import { NoBigBangError, NoSuchRedshiftError, QuadratureError } from "../engine/index.js";
+import {
+  NoBigBangError,
+  NoSuchRedshiftError,
+  QuadratureError,
+  backgroundSummary,
+  baoRatios,
+  earlyUniverse,
+  redshiftTable,
+  type BackgroundModel,
+} from "../engine/index.js";
+import { surveyRows } from "./surveyRows.js";
+import { targetRows } from "./targetRows.js";
 import { backgroundOf, outsideSchemaBounds } from "../scenario/modelBackground.js";
 import { inputsWithDraw } from "../scenario/resolveSpread.js";
-import type { ResolvedModel, ResolvedSpread, SamplesTable, SpreadKey } from "../scenario/resolvedScenario.js";
+import type {
+  ResolvedModel,
+  ResolvedSpread,
+  ResolvedSurvey,
+  ResolvedTarget,
+  SamplesTable,
+  SpreadKey,
+} from "../scenario/resolvedScenario.js";
 import {
   SPREAD_PERCENTILES,
   Xoshiro128StarStar,
@@ -10,6 +28,8 @@ import {
   fnv1a32,
   normalQuantile,
   percentileMonteCarloError,
+  percentileRank,
+  OrderStatistics,
   sortWeighted,
   weightedPercentile,
 } from "../statistics/index.js";
@@ -75,57 +95,74 @@ function rejection(e: unknown): string {
   throw e;
 }
 
-/** Reads every number of a model's tables into a flat vector, in a fixed order (NaN where the value is null). */
-interface Layout {
-  size: number;
-  read: (t: ModelTables, out: Float64Array, at: number) => void;
+/** What a draw is evaluated at: the scenario's table redshifts, chart grid, targets and survey shells. */
+export interface DrawContext {
+  redshifts: readonly number[];
+  grid: readonly number[];
+  targets: readonly ResolvedTarget[];
+  surveys: readonly ResolvedSurvey[];
 }
 
 const numericKeys = (o: object) =>
   Object.entries(o)
     .filter(([, v]) => typeof v === "number" || v === null)
     .map(([k]) => k);
+const num = (v: unknown) => (typeof v === "number" && Number.isFinite(v) ? v : Number.NaN);
 
-function layoutOf(nominal: ModelTables) {
+/**
+ * The quantities of a model as one vector, in the order of its tables (summary, each redshift row, targets, survey
+ * shells, the grid column by column), and how to evaluate a drawn background straight into it: the same engine
+ * calls as the model's own tables (src/tables/buildTablesDocument.ts), without building row objects.
+ */
+function layoutOf(nominal: ModelTables, where: DrawContext) {
   const summary = numericKeys(nominal.summary);
   const rowKeys = nominal.redshifts.length ? numericKeys(nominal.redshifts[0]).filter((k) => k !== "z") : [];
   const targetKeys = nominal.targets.map((t) => numericKeys(t).filter((k) => k !== "z" || t.placed_by !== "z"));
   const surveyKeys = nominal.surveys.map((s) => numericKeys(s).filter((k) => k !== "z_min" && k !== "z_max"));
   const gridKeys = Object.keys(nominal.grid).filter((k) => k !== "z");
-  const gridPoints = (nominal.grid as unknown as Record<string, unknown[]>).z?.length ?? 0;
+  const gridPoints = where.grid.length;
   const size =
     summary.length +
     nominal.redshifts.length * rowKeys.length +
     targetKeys.reduce((n, k) => n + k.length, 0) +
     surveyKeys.reduce((n, k) => n + k.length, 0) +
     gridKeys.length * gridPoints;
-  const num = (v: unknown) => (typeof v === "number" && Number.isFinite(v) ? v : Number.NaN);
-  const layout: Layout = {
-    size,
-    read: (t, out, at) => {
-      let p = at;
-      const s = t.summary as Record<string, unknown>;
-      for (const k of summary) out[p++] = num(s[k]);
-      for (const row of t.redshifts) {
-        const r = row as unknown as Record<string, unknown>;
-        for (const k of rowKeys) out[p++] = num(r[k]);
+  const evaluate = (bg: BackgroundModel, out: Float64Array, at: number) => {
+    let p = at;
+    const early = earlyUniverse(bg).values;
+    const s = { ...backgroundSummary(bg).summary, ...early } as Record<string, unknown>;
+    for (const k of summary) out[p++] = num(s[k]);
+    const rDrag = early.sound_horizon_drag_Mpc;
+    const columns = (zs: readonly number[]) => {
+      const c = redshiftTable(bg, zs);
+      return { ...c, ...baoRatios(c, rDrag) } as unknown as Record<string, ArrayLike<number>>;
+    };
+    if (rowKeys.length > 0) {
+      const z = columns(where.redshifts);
+      const K = rowKeys.length;
+      for (let kk = 0; kk < K; kk++) {
+        const column = z[rowKeys[kk]];
+        for (let i = 0; i < where.redshifts.length; i++) out[p + i * K + kk] = num(column[i]);
       }
-      t.targets.forEach((row, i) => {
-        const r = row as unknown as Record<string, unknown>;
-        for (const k of targetKeys[i]) out[p++] = num(r[k]);
-      });
-      t.surveys.forEach((row, i) => {
-        const r = row as unknown as Record<string, unknown>;
-        for (const k of surveyKeys[i]) out[p++] = num(r[k]);
-      });
-      const g = t.grid as unknown as Record<string, ArrayLike<number | null>>;
+      p += where.redshifts.length * K;
+    }
+    targetRows(bg, where.targets).forEach((row, i) => {
+      const r = row as unknown as Record<string, unknown>;
+      for (const k of targetKeys[i]) out[p++] = num(r[k]);
+    });
+    surveyRows(bg, where.surveys).forEach((row, i) => {
+      const r = row as unknown as Record<string, unknown>;
+      for (const k of surveyKeys[i]) out[p++] = num(r[k]);
+    });
+    if (gridPoints > 0) {
+      const g = columns(where.grid);
       for (const k of gridKeys) {
         const column = g[k];
         for (let i = 0; i < gridPoints; i++) out[p++] = num(column[i]);
       }
-    },
+    }
   };
-  return { layout, summary, rowKeys, targetKeys, surveyKeys, gridKeys, gridPoints };
+  return { size, evaluate, summary, rowKeys, targetKeys, surveyKeys, gridKeys, gridPoints };
 }
 
 /** In words, for pages and the assumptions paragraph. */
@@ -149,11 +186,11 @@ export function spreadBands(
   model: ResolvedModel,
   nominal: ModelTables,
   draws: SpreadDraws,
-  evaluate: (m: ResolvedModel) => ModelTables,
+  where: DrawContext,
 ): ModelSpread {
   const spread = model.spread!;
-  const L = layoutOf(nominal);
-  const Q = L.layout.size;
+  const L = layoutOf(nominal, where);
+  const Q = L.size;
   const k = draws.keys.length;
   const values = new Float64Array(draws.count * Q);
   const acceptedIndex: number[] = [];
@@ -171,15 +208,13 @@ export function spreadBands(
       reject("outside the accepted range");
       continue;
     }
-    let tables: ModelTables;
     try {
       const inputs = inputsWithDraw(model.inputs, draws.keys, row);
-      tables = evaluate({ ...model, inputs, background: backgroundOf(inputs) });
+      L.evaluate(backgroundOf(inputs), values, acceptedIndex.length * Q);
     } catch (e) {
       reject(rejection(e));
       continue;
     }
-    L.layout.read(tables, values, acceptedIndex.length * Q);
     acceptedIndex.push(i);
   }
   const n = acceptedIndex.length;
@@ -190,6 +225,19 @@ export function spreadBands(
   const cumulative = new Float64Array(n);
   const order = new Uint32Array(n);
   const undefinedIn: Record<string, number> = {};
+  // The ranks behind each percentile and its Monte Carlo error (as percentileMonteCarloError takes them).
+  const ranksOf = SPREAD_PERCENTILES.map((p) => {
+    const q = p / 100;
+    const d = Math.sqrt((q * (1 - q)) / Math.max(1, n));
+    return {
+      at: percentileRank(n, p),
+      lo: percentileRank(n, Math.max(0, q - d) * 100),
+      hi: percentileRank(n, Math.min(1, q + d) * 100),
+    };
+  });
+  const wantedRanks = [...new Set(ranksOf.flatMap((r) => [r.at, r.lo, r.hi]))].sort((a, b) => a - b);
+  const selector = new OrderStatistics(n);
+  const picked = new Array<number>(wantedRanks.length).fill(0);
   /** The band of quantity q; null when some draw leaves it undefined ("all" when every draw does). */
   const band = (q: number, name: string): Band | "all" | null => {
     let missing = 0;
@@ -202,6 +250,15 @@ export function spreadBands(
     if (missing > 0) {
       undefinedIn[name] = missing;
       return null;
+    }
+    if (weights === null) {
+      // Equal weights: only 15 order statistics are needed, found by selection rather than a full sort.
+      selector.select(column, wantedRanks, picked);
+      const at = (rank: number) => picked[wantedRanks.indexOf(rank)];
+      return {
+        q: ranksOf.map((r) => at(r.at)),
+        mc_error: ranksOf.map((r) => (at(r.hi) - at(r.lo)) / 2),
+      };
     }
     const c = sortWeighted(column, weights, order, sorted, cumulative);
     return {

@@ -7,6 +7,7 @@ import normalQuantileReference from "@stdlib/stats-base-dists-normal-quantile";
 import { loadScenario } from "../../src/scenario/loadScenario.js";
 import { buildTablesDocument } from "../../src/tables/buildTablesDocument.js";
 import {
+  OrderStatistics,
   Xoshiro128StarStar,
   choleskyLower,
   normalQuantile,
@@ -94,6 +95,26 @@ describe("statistics building blocks", () => {
         [0.9, -0.9, 1],
       ]),
     ).toBeNull();
+  });
+
+  it("bucket selection gives exactly the order statistics of a full sort (ties, heavy tails, constant data)", () => {
+    const rng = new Xoshiro128StarStar(4);
+    const shapes: ((u: number) => number)[] = [
+      (u) => u,
+      (u) => Math.round(u * 5), // many ties
+      (u) => 1 / (u * u), // a heavy tail: most values in the first bucket
+      () => 3, // constant
+      (u) => (u < 0.5 ? -1e300 : 1e300) * u, // extreme range
+    ];
+    for (const shape of shapes)
+      for (const n of [1, 2, 17, 1000]) {
+        const values = Float64Array.from({ length: n }, () => shape(rng.nextOpenUnit()));
+        const sorted = Float64Array.from(values).sort();
+        const ranks = [...new Set([0, Math.floor(n / 3), Math.floor(n / 2), n - 1])].sort((a, b) => a - b);
+        const out: number[] = [];
+        new OrderStatistics(n).select(values, ranks, out);
+        expect(out).toEqual(ranks.map((r) => sorted[r]));
+      }
   });
 
   it("weighted percentiles equal the percentiles of rows repeated by weight (Hyndman & Fan definition 1)", () => {
