@@ -45,7 +45,12 @@ describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chrom
       join(dir, "scenarios/deep.yaml"),
       "title: Deep survey\nid: deep\nredshifts: [4, 6, 8, 12]\nmodels:\n  - { id: a, H0: 70, Omega_m: 0.3 }\n  - { id: b, H0: 67, Omega_m: 0.32 }\n",
     );
-    for (const f of ["lantern-deep-field.yaml", "harbor-lights-census.yaml"])
+    for (const f of [
+      "lantern-deep-field.yaml",
+      "harbor-lights-census.yaml",
+      "saltmarsh-forecast.yaml",
+      "saltmarsh-demo-chain.csv",
+    ])
       writeFileSync(join(dir, "scenarios", f), readFileSync(join(ROOT, "scenarios", f)));
     // A frozen version (for the version, history and diff pages), then a change so that a diff exists.
     const freeze = (m: string) => runCli(["freeze", "scenarios/six.yaml", "-m", m], dir);
@@ -75,6 +80,7 @@ describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chrom
     "six-models/history/index.html",
     "six-models/diff/v1-v2/index.html",
     "lantern-deep-field/index.html",
+    "saltmarsh-forecast/index.html",
   ];
 
   it("at 390 px no page kind scrolls sideways; wide tables scroll inside their own box", async () => {

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createServer, type Server } from "node:http";
-import { mkdirSync, readFileSync, existsSync, writeFileSync, statSync } from "node:fs";
+import { mkdirSync, readFileSync, readdirSync, existsSync, writeFileSync, statSync } from "node:fs";
 import { extname, join, resolve } from "node:path";
 import type { BrowserContext, Page } from "playwright-core";
 import { HOSTILE_SCENARIO, ROOT, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
@@ -239,10 +239,54 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     await page.close();
   }, 180_000);
 
+  it("spreads: each spread model's 68 % band is shaded on the charts, the legend lists models only", async () => {
+    const { page, problems } = await open(`${base}/saltmarsh-forecast/`);
+    const doc = JSON.parse(readFileSync(join(site, "saltmarsh-forecast/tables.json"), "utf8"));
+    const withSpread = doc.models.filter((m: { spread?: unknown }) => m.spread).length;
+    expect(withSpread).toBe(5);
+    const charts = await page.evaluate(() =>
+      Object.values((window as unknown as { cosmoledgerCharts: Record<string, unknown> }).cosmoledgerCharts).map(
+        (c) => {
+          const chart = c as {
+            data: { datasets: { isBand?: boolean; fill?: unknown; data: { y: number | null }[] }[] };
+            legend: { legendItems: unknown[] };
+          };
+          return {
+            bands: chart.data.datasets.filter((d) => d.isBand).length,
+            filled: chart.data.datasets.filter((d) => d.fill === "-1").length,
+            legend: chart.legend.legendItems.length,
+            values: chart.data.datasets.filter((d) => d.isBand).flatMap((d) => d.data.map((p) => p.y)),
+          };
+        },
+      ),
+    );
+    expect(charts.length).toBeGreaterThan(0);
+    for (const c of charts) {
+      expect(c.bands).toBe(2 * withSpread); // a 16th- and an 84th-percentile curve per spread model
+      expect(c.filled).toBe(withSpread);
+      expect(c.legend).toBe(doc.models.length);
+      expect(c.values.some((y) => typeof y === "number")).toBe(true);
+    }
+    // Every chart canvas has drawn pixels (curves and bands).
+    const pixels = await drawnPixels(page);
+    for (const n of pixels) expect(n).toBeGreaterThan(2000);
+    // Cells show the interval under the value; the published sets are cited with their transcription mark.
+    expect(await page.locator(".band").count()).toBeGreaterThan(100);
+    expect(await page.locator(".citation").first().textContent()).toMatch(/arXiv:1807\.06209/);
+    expect(await page.locator(".recalled").count()).toBeGreaterThan(0);
+    expect(await page.locator(".spread-caution").textContent()).toMatch(
+      /Marginal uncertainties without their correlations/,
+    );
+    await page.screenshot({ path: join(SHOTS, "spread-bands.png"), fullPage: false });
+    expect(problems).toEqual([]);
+    await page.close();
+  }, 180_000);
+
   it("the index opened via file:// draws its charts, with no network at all", async () => {
     const { page, problems } = await open(`file://${join(site, "index.html")}`);
     const pixels = await drawnPixels(page);
-    expect(pixels.length).toBe(3);
+    // One small chart per demo scenario.
+    expect(pixels.length).toBe(readdirSync(join(ROOT, "scenarios")).filter((f) => f.endsWith(".yaml")).length);
     for (const n of pixels) expect(n).toBeGreaterThan(2000);
     expect(problems).toEqual([]);
     await page.close();
