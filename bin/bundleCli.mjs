@@ -11,7 +11,8 @@ const ROOT = resolve(import.meta.dirname, "..");
 const out = join(ROOT, "dist/bundle");
 rmSync(out, { recursive: true, force: true });
 await build({
-  entryPoints: { cosmoledger: join(ROOT, "dist/cli/main.js") },
+  // The helper thread of spreads (src/tables/drawPool.ts) is its own entry: dist/bundle/drawWorker.mjs.
+  entryPoints: { cosmoledger: join(ROOT, "dist/cli/main.js"), drawWorker: join(ROOT, "dist/tables/drawWorker.js") },
   outdir: out,
   bundle: true,
   splitting: true,

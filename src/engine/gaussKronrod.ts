@@ -20,6 +20,12 @@ const WG = [
   0.129484966168869693270611432679082, 0.27970539148927666790146777142378, 0.381830050505118944950369775488975,
   0.417959183673469387755102040816327,
 ];
+/** The 7-point Gauss-Legendre rule embedded in QK15 (nodes XGK[1], XGK[3], XGK[5], 0; weights WG), on [-1, 1]. */
+export const GAUSS7 = {
+  nodes: [-XGK[1], -XGK[3], -XGK[5], 0, XGK[5], XGK[3], XGK[1]],
+  weights: [WG[0], WG[1], WG[2], WG[3], WG[2], WG[1], WG[0]],
+} as const;
+
 const EPMACH = Number.EPSILON;
 const UFLOW = Number.MIN_VALUE;
 

@@ -3,7 +3,7 @@ import { ARCSEC_RAD } from "./constants.js";
 import { hubbleDistanceMpc, hubbleTimeGyr } from "./hubbleScales.js";
 import { curvatureRadiusMpc } from "./curvatureRadius.js";
 import { expansionRateSquared } from "./expansionRateSquared.js";
-import { pastIntegrals } from "./pastIntegrals.js";
+import { pastIntegrals, type PastIntegralOptions } from "./pastIntegrals.js";
 import { transverseComovingDistance } from "./transverseComovingDistance.js";
 import { comovingVolumeWithin } from "./comovingVolume.js";
 import { massiveNeutrinoParts } from "./massiveNeutrinoDensity.js";
@@ -61,13 +61,17 @@ export const REDSHIFT_COLUMN_KEYS = [
  * so in Gly it equals the lookback time in Gyr (light year of Julian years).
  * The model must have a big bang (see assertBigBang); redshifts finite and >= 0, in any order.
  */
-export function redshiftTable(model: BackgroundModel, redshifts: ArrayLike<number>): RedshiftColumns {
+export function redshiftTable(
+  model: BackgroundModel,
+  redshifts: ArrayLike<number>,
+  options: PastIntegralOptions = {},
+): RedshiftColumns {
   const n = redshifts.length;
   const DH = hubbleDistanceMpc(model.H0_km_s_Mpc);
   const tH = hubbleTimeGyr(model.H0_km_s_Mpc);
   const R = curvatureRadiusMpc(model);
   const e2 = expansionRateSquared(model);
-  const past = pastIntegrals(model, redshifts);
+  const past = pastIntegrals(model, redshifts, options);
   const col = () => new Float64Array(n);
   const out: RedshiftColumns = {
     z: col(),

@@ -1,25 +1,6 @@
-import {
-  NoBigBangError,
-  NoSuchRedshiftError,
-  QuadratureError,
-  backgroundSummary,
-  baoRatios,
-  earlyUniverse,
-  redshiftTable,
-  type BackgroundModel,
-} from "../engine/index.js";
-import { surveyRows } from "./surveyRows.js";
-import { targetRows } from "./targetRows.js";
-import { backgroundOf, outsideSchemaBounds } from "../scenario/modelBackground.js";
-import { inputsWithDraw } from "../scenario/resolveSpread.js";
-import type {
-  ResolvedModel,
-  ResolvedSpread,
-  ResolvedSurvey,
-  ResolvedTarget,
-  SamplesTable,
-  SpreadKey,
-} from "../scenario/resolvedScenario.js";
+import { ACCEPTED, REJECTIONS, layoutKeysOf, type DrawContext } from "./drawEvaluation.js";
+import { evaluateDraws } from "./drawPool.js";
+import type { ResolvedModel, ResolvedSpread, SamplesTable, SpreadKey } from "../scenario/resolvedScenario.js";
 import {
   SPREAD_PERCENTILES,
   Xoshiro128StarStar,
@@ -34,6 +15,8 @@ import {
   weightedPercentile,
 } from "../statistics/index.js";
 import type { Band, ModelSpread, ModelTables } from "../contract/tablesDocument.js";
+
+export type { DrawContext };
 
 /** The parameter values of every draw of a spread (row-major: draw by parameter), and their weights. */
 export interface SpreadDraws {
@@ -86,85 +69,6 @@ export function spreadDraws(
   return { keys: spread.parameters.map((p) => p.key), values, weights: null, count };
 }
 
-/** Why a draw was rejected, in a few words (the keys of `rejected_because`). */
-function rejection(e: unknown): string {
-  if (e instanceof NoBigBangError) return "no big bang";
-  if (e instanceof NoSuchRedshiftError) return "a target not reached";
-  if (e instanceof QuadratureError) return "not computable to the engine's accuracy";
-  if (e instanceof RangeError) return "not a valid model";
-  throw e;
-}
-
-/** What a draw is evaluated at: the scenario's table redshifts, chart grid, targets and survey shells. */
-export interface DrawContext {
-  redshifts: readonly number[];
-  grid: readonly number[];
-  targets: readonly ResolvedTarget[];
-  surveys: readonly ResolvedSurvey[];
-}
-
-const numericKeys = (o: object) =>
-  Object.entries(o)
-    .filter(([, v]) => typeof v === "number" || v === null)
-    .map(([k]) => k);
-const num = (v: unknown) => (typeof v === "number" && Number.isFinite(v) ? v : Number.NaN);
-
-/**
- * The quantities of a model as one vector, in the order of its tables (summary, each redshift row, targets, survey
- * shells, the grid column by column), and how to evaluate a drawn background straight into it: the same engine
- * calls as the model's own tables (src/tables/buildTablesDocument.ts), without building row objects.
- */
-function layoutOf(nominal: ModelTables, where: DrawContext) {
-  const summary = numericKeys(nominal.summary);
-  const rowKeys = nominal.redshifts.length ? numericKeys(nominal.redshifts[0]).filter((k) => k !== "z") : [];
-  const targetKeys = nominal.targets.map((t) => numericKeys(t).filter((k) => k !== "z" || t.placed_by !== "z"));
-  const surveyKeys = nominal.surveys.map((s) => numericKeys(s).filter((k) => k !== "z_min" && k !== "z_max"));
-  const gridKeys = Object.keys(nominal.grid).filter((k) => k !== "z");
-  const gridPoints = where.grid.length;
-  const size =
-    summary.length +
-    nominal.redshifts.length * rowKeys.length +
-    targetKeys.reduce((n, k) => n + k.length, 0) +
-    surveyKeys.reduce((n, k) => n + k.length, 0) +
-    gridKeys.length * gridPoints;
-  const evaluate = (bg: BackgroundModel, out: Float64Array, at: number) => {
-    let p = at;
-    const early = earlyUniverse(bg).values;
-    const s = { ...backgroundSummary(bg).summary, ...early } as Record<string, unknown>;
-    for (const k of summary) out[p++] = num(s[k]);
-    const rDrag = early.sound_horizon_drag_Mpc;
-    const columns = (zs: readonly number[]) => {
-      const c = redshiftTable(bg, zs);
-      return { ...c, ...baoRatios(c, rDrag) } as unknown as Record<string, ArrayLike<number>>;
-    };
-    if (rowKeys.length > 0) {
-      const z = columns(where.redshifts);
-      const K = rowKeys.length;
-      for (let kk = 0; kk < K; kk++) {
-        const column = z[rowKeys[kk]];
-        for (let i = 0; i < where.redshifts.length; i++) out[p + i * K + kk] = num(column[i]);
-      }
-      p += where.redshifts.length * K;
-    }
-    targetRows(bg, where.targets).forEach((row, i) => {
-      const r = row as unknown as Record<string, unknown>;
-      for (const k of targetKeys[i]) out[p++] = num(r[k]);
-    });
-    surveyRows(bg, where.surveys).forEach((row, i) => {
-      const r = row as unknown as Record<string, unknown>;
-      for (const k of surveyKeys[i]) out[p++] = num(r[k]);
-    });
-    if (gridPoints > 0) {
-      const g = columns(where.grid);
-      for (const k of gridKeys) {
-        const column = g[k];
-        for (let i = 0; i < gridPoints; i++) out[p++] = num(column[i]);
-      }
-    }
-  };
-  return { size, evaluate, summary, rowKeys, targetKeys, surveyKeys, gridKeys, gridPoints };
-}
-
 /** In words, for pages and the assumptions paragraph. */
 export function spreadDescription(spread: ResolvedSpread): string {
   if (spread.form === "samples")
@@ -189,33 +93,28 @@ export function spreadBands(
   where: DrawContext,
 ): ModelSpread {
   const spread = model.spread!;
-  const L = layoutOf(nominal, where);
+  const L = layoutKeysOf(nominal, where.grid.length);
   const Q = L.size;
-  const k = draws.keys.length;
-  const values = new Float64Array(draws.count * Q);
+  const { out: values, status } = evaluateDraws(
+    {
+      inputs: model.inputs,
+      keys: draws.keys,
+      values: draws.values,
+      weights: draws.weights,
+      count: draws.count,
+      where,
+      layout: L,
+    },
+    where.redshifts.length + where.grid.length,
+  );
   const acceptedIndex: number[] = [];
   const rejected: Record<string, number> = {};
-  const reject = (why: string) => {
-    rejected[why] = (rejected[why] ?? 0) + 1;
-  };
-  const row = new Float64Array(k);
   for (let i = 0; i < draws.count; i++) {
-    for (let j = 0; j < k; j++) row[j] = draws.values[i * k + j];
-    if (draws.weights !== null && draws.weights[i] === 0) continue; // a zero-weight sample carries nothing
-    let bad: string | null = null;
-    for (let j = 0; j < k && bad === null; j++) bad = outsideSchemaBounds(draws.keys[j], row[j]);
-    if (bad !== null) {
-      reject("outside the accepted range");
-      continue;
+    if (status[i] === ACCEPTED) acceptedIndex.push(i);
+    else if (status[i] >= 2) {
+      const why = REJECTIONS[status[i] - 2];
+      rejected[why] = (rejected[why] ?? 0) + 1;
     }
-    try {
-      const inputs = inputsWithDraw(model.inputs, draws.keys, row);
-      L.evaluate(backgroundOf(inputs), values, acceptedIndex.length * Q);
-    } catch (e) {
-      reject(rejection(e));
-      continue;
-    }
-    acceptedIndex.push(i);
   }
   const n = acceptedIndex.length;
   const weights = draws.weights === null ? null : Float64Array.from(acceptedIndex, (i) => draws.weights![i]);
@@ -242,7 +141,7 @@ export function spreadBands(
   const band = (q: number, name: string): Band | "all" | null => {
     let missing = 0;
     for (let d = 0; d < n; d++) {
-      const v = values[d * Q + q];
+      const v = values[acceptedIndex[d] * Q + q];
       column[d] = v;
       if (Number.isNaN(v)) missing++;
     }
@@ -272,6 +171,7 @@ export function spreadBands(
   };
   let q = 0;
   const summary: Record<string, Band | null> = {};
+  const gridPoints = where.grid.length;
   for (const key of L.summary) summary[key] = scalar(q++, `summary.${key}`);
   const redshifts = nominal.redshifts.map((_, i) => {
     const out: Record<string, Band | null> = {};
@@ -292,10 +192,10 @@ export function spreadBands(
   for (const key of L.gridKeys) {
     // A point where no draw has a value (D_L's distance modulus at z = 0) stays null; a point where only some
     // draws have one leaves the whole column without a band.
-    const qs = SPREAD_PERCENTILES.map(() => new Array<number | null>(L.gridPoints));
-    const es = SPREAD_PERCENTILES.map(() => new Array<number | null>(L.gridPoints));
+    const qs = SPREAD_PERCENTILES.map(() => new Array<number | null>(gridPoints));
+    const es = SPREAD_PERCENTILES.map(() => new Array<number | null>(gridPoints));
     let whole = true;
-    for (let i = 0; i < L.gridPoints; i++) {
+    for (let i = 0; i < gridPoints; i++) {
       const b = band(q++, `grid.${key}`);
       if (b === null) whole = false;
       for (let j = 0; j < SPREAD_PERCENTILES.length; j++) {

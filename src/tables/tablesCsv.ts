@@ -67,7 +67,6 @@ export function tablesCsv(doc: StoredTablesDocument): Record<string, string> {
       return [id, where, row, key, value, ...(b ? [...b.q, ...b.mc_error] : pct.flatMap(() => [null, null]))];
     };
     const body: unknown[][] = [];
-    const gridBody: unknown[][] = [];
     for (const m of spreads) {
       const sp = (m as { spread: NonNullable<Extract<typeof m, { spread?: unknown }>["spread"]> }).spread;
       for (const [k, b] of Object.entries(sp.summary)) body.push(line(m.id, "summary", "", k, rec(m.summary)[k], b));
@@ -83,22 +82,9 @@ export function tablesCsv(doc: StoredTablesDocument): Record<string, string> {
         for (const [k, b] of Object.entries(bands))
           body.push(line(m.id, "surveys", m.surveys[i].name, k, rec(m.surveys[i])[k], b));
       });
-      const z = (m.grid as unknown as Record<string, (number | null)[]>).z;
-      for (const [k, g] of Object.entries(sp.grid)) {
-        const column = (m.grid as unknown as Record<string, (number | null)[]>)[k];
-        z.forEach((zi, i) => {
-          gridBody.push([
-            m.id,
-            k,
-            zi,
-            column[i],
-            ...(g ? [...g.q.map((a) => a[i]), ...g.mc_error.map((a) => a[i])] : pct.flatMap(() => [null, null])),
-          ]);
-        });
-      }
+      // The chart grid's bands stay in tables.json, like the grid itself (spread.grid).
     }
     files["spread.csv"] = table(header, body);
-    files["spread-grid.csv"] = table(["model", "quantity", "z", "value", ...header.slice(5)], gridBody);
   }
   return files;
 }

@@ -117,3 +117,18 @@ describe("a frozen version keeps its samples file", () => {
     expect(f.stdout).toMatch(/froze s version 2/);
   });
 });
+
+describe("a helper thread evaluates draws beside the main thread", () => {
+  it("the tables document is byte-identical with the helper thread and without it", () => {
+    // 500 draws x (2 redshifts + 120 grid points) is above the size at which the helper thread is used.
+    const yaml = `title: threads\nredshifts: [0.5, 2]\ngrid: { points: 120 }\ndraws: { count: 500, seed: 9 }\nmodels:\n  - id: m\n    H0: 70\n    Omega_m: 0.3\n    omega_b: 0.0224\n    m_nu_eV: [0.06]\n    spread: { normal: { H0: 1, Omega_m: 0.01, omega_b: 0.0002 } }\n  - { id: n, extends: m, Omega_k: 0.02 }\n`;
+    const dir = project(yaml);
+    const two = runCli(["compute", "s.yaml", "--out", "two"], dir);
+    expect(two.code, two.stderr).toBe(0);
+    const one = runCli(["compute", "s.yaml", "--out", "one"], dir, { COSMOLEDGER_DRAW_THREADS: "1" });
+    expect(one.code, one.stderr).toBe(0);
+    const a = readFileSync(join(dir, "two/s/tables.json"), "utf8");
+    expect(readFileSync(join(dir, "one/s/tables.json"), "utf8")).toBe(a);
+    expect(JSON.parse(a).models[1].spread.accepted).toBe(500);
+  });
+});

@@ -1,0 +1,176 @@
+import {
+  NoBigBangError,
+  NoSuchRedshiftError,
+  QuadratureError,
+  backgroundSummary,
+  baoRatios,
+  earlyUniverse,
+  redshiftTable,
+  type BackgroundModel,
+} from "../engine/index.js";
+import { backgroundOf, outsideSchemaBounds } from "../scenario/modelBackground.js";
+import { inputsWithDraw } from "../scenario/resolveSpread.js";
+import type { ResolvedModelInputs, ResolvedSurvey, ResolvedTarget, SpreadKey } from "../scenario/resolvedScenario.js";
+import type { ModelTables } from "../contract/tablesDocument.js";
+import { surveyRows } from "./surveyRows.js";
+import { targetRows } from "./targetRows.js";
+
+/** What a draw is evaluated at: the scenario's table redshifts, chart grid, targets and survey shells. */
+export interface DrawContext {
+  redshifts: readonly number[];
+  grid: readonly number[];
+  targets: readonly ResolvedTarget[];
+  surveys: readonly ResolvedSurvey[];
+}
+
+/** The keys of a model's numeric quantities, in the order of its vector: summary, rows, targets, shells, grid. */
+export interface LayoutKeys {
+  summary: string[];
+  rowKeys: string[];
+  targetKeys: string[][];
+  surveyKeys: string[][];
+  gridKeys: string[];
+  size: number;
+}
+
+/** Why a draw was rejected (status code 2 + index); 0 is accepted, 1 a sample of weight 0 (carries nothing). */
+export const REJECTIONS = [
+  "outside the accepted range",
+  "no big bang",
+  "a target not reached",
+  "not computable to the engine's accuracy",
+  "not a valid model",
+] as const;
+export const ACCEPTED = 0;
+export const ZERO_WEIGHT = 1;
+
+function rejectionCode(e: unknown): number {
+  if (e instanceof NoBigBangError) return 2 + 1;
+  if (e instanceof NoSuchRedshiftError) return 2 + 2;
+  if (e instanceof QuadratureError) return 2 + 3;
+  if (e instanceof RangeError) return 2 + 4;
+  throw e;
+}
+
+const numericKeys = (o: object) =>
+  Object.entries(o)
+    .filter(([, v]) => typeof v === "number" || v === null)
+    .map(([k]) => k);
+const num = (v: unknown) => (typeof v === "number" && Number.isFinite(v) ? v : Number.NaN);
+
+/** The vector layout of a model's tables (the nominal model's, which every draw shares). */
+export function layoutKeysOf(nominal: ModelTables, gridPoints: number): LayoutKeys {
+  const summary = numericKeys(nominal.summary);
+  const rowKeys = nominal.redshifts.length ? numericKeys(nominal.redshifts[0]).filter((k) => k !== "z") : [];
+  const targetKeys = nominal.targets.map((t) => numericKeys(t).filter((k) => k !== "z" || t.placed_by !== "z"));
+  const surveyKeys = nominal.surveys.map((s) => numericKeys(s).filter((k) => k !== "z_min" && k !== "z_max"));
+  const gridKeys = Object.keys(nominal.grid).filter((k) => k !== "z");
+  const size =
+    summary.length +
+    nominal.redshifts.length * rowKeys.length +
+    targetKeys.reduce((n, k) => n + k.length, 0) +
+    surveyKeys.reduce((n, k) => n + k.length, 0) +
+    gridKeys.length * gridPoints;
+  return { summary, rowKeys, targetKeys, surveyKeys, gridKeys, size };
+}
+
+/**
+ * Writes a drawn background's quantities into out[at ...] in the layout's order, by the engine calls behind a
+ * model's own tables (src/tables/buildTablesDocument.ts) without building row objects; NaN where a value is null.
+ * The per-redshift integrals take narrow panels by one 7-point Gauss rule (pastIntegrals' option): a draw needs
+ * no 1e-13 panels, and the results agree with the adaptive ones to about 1e-15 (test/spread).
+ */
+export function evaluateInto(
+  bg: BackgroundModel,
+  layout: LayoutKeys,
+  where: DrawContext,
+  out: Float64Array,
+  at: number,
+): void {
+  let p = at;
+  const early = earlyUniverse(bg).values;
+  const s = { ...backgroundSummary(bg).summary, ...early } as Record<string, unknown>;
+  for (const k of layout.summary) out[p++] = num(s[k]);
+  const rDrag = early.sound_horizon_drag_Mpc;
+  const columns = (zs: readonly number[]) => {
+    const c = redshiftTable(bg, zs, { narrowPanelsByGauss7: true });
+    return { ...c, ...baoRatios(c, rDrag) } as unknown as Record<string, Float64Array>;
+  };
+  if (layout.rowKeys.length > 0) {
+    const z = columns(where.redshifts);
+    const K = layout.rowKeys.length;
+    for (let kk = 0; kk < K; kk++) {
+      const column = z[layout.rowKeys[kk]];
+      for (let i = 0; i < where.redshifts.length; i++) out[p + i * K + kk] = num(column[i]);
+    }
+    p += where.redshifts.length * K;
+  }
+  targetRows(bg, where.targets).forEach((row, i) => {
+    const r = row as unknown as Record<string, unknown>;
+    for (const k of layout.targetKeys[i]) out[p++] = num(r[k]);
+  });
+  surveyRows(bg, where.surveys).forEach((row, i) => {
+    const r = row as unknown as Record<string, unknown>;
+    for (const k of layout.surveyKeys[i]) out[p++] = num(r[k]);
+  });
+  const points = where.grid.length;
+  if (points > 0) {
+    const g = columns(where.grid);
+    for (const k of layout.gridKeys) {
+      out.set(g[k], p); // a block copy, then infinite or undefined values marked NaN
+      for (let i = p; i < p + points; i++) if (!Number.isFinite(out[i])) out[i] = Number.NaN;
+      p += points;
+    }
+  }
+}
+
+/** Everything a thread needs to evaluate draws of one model (structured-clone safe; buffers may be shared). */
+export interface DrawJob {
+  inputs: ResolvedModelInputs;
+  keys: SpreadKey[];
+  /** Parameter values, draw by parameter. */
+  values: Float64Array;
+  weights: Float64Array | null;
+  count: number;
+  where: DrawContext;
+  layout: LayoutKeys;
+  /** Results: draw i's vector at out[i * layout.size ...], its status at status[i]. */
+  out: Float64Array;
+  status: Int8Array;
+  /** The next unclaimed draw (claimed with Atomics.add, so threads share the work without a fixed split). */
+  next: Int32Array;
+}
+
+/** Draws claimed at a time: small enough to balance two threads, large enough that claiming costs nothing. */
+const CHUNK = 8;
+
+/** Evaluates draws of a job, claiming them a chunk at a time until none is left. */
+export function evaluateClaimedDraws(job: DrawJob): void {
+  const k = job.keys.length;
+  const Q = job.layout.size;
+  const row = new Float64Array(k);
+  for (;;) {
+    const start = Atomics.add(job.next, 0, CHUNK);
+    if (start >= job.count) return;
+    const end = Math.min(job.count, start + CHUNK);
+    for (let i = start; i < end; i++) {
+      if (job.weights !== null && job.weights[i] === 0) {
+        job.status[i] = ZERO_WEIGHT;
+        continue;
+      }
+      for (let j = 0; j < k; j++) row[j] = job.values[i * k + j];
+      let bad = false;
+      for (let j = 0; j < k && !bad; j++) bad = outsideSchemaBounds(job.keys[j], row[j]) !== null;
+      if (bad) {
+        job.status[i] = 2;
+        continue;
+      }
+      try {
+        evaluateInto(backgroundOf(inputsWithDraw(job.inputs, job.keys, row)), job.layout, job.where, job.out, i * Q);
+        job.status[i] = ACCEPTED;
+      } catch (e) {
+        job.status[i] = rejectionCode(e);
+      }
+    }
+  }
+}

@@ -1,0 +1,67 @@
+import { Worker } from "node:worker_threads";
+import { availableParallelism } from "node:os";
+import { evaluateClaimedDraws, type DrawJob } from "./drawEvaluation.js";
+
+const WAITING = 0;
+const RUNNING = 1;
+const CLOSED = 3;
+const FAILED = 4;
+
+/** Below this many model-redshift evaluations a second thread costs more to start than it saves. */
+const PARALLEL_WORK = 40_000;
+
+let worker: Worker | null | undefined;
+
+/** The one helper thread of this process, started on first use; null when threads are off or unavailable. */
+function helper(): Worker | null {
+  if (worker !== undefined) return worker;
+  worker = null;
+  if (process.env.COSMOLEDGER_DRAW_THREADS === "1" || availableParallelism() < 2) return worker;
+  // Beside this module: dist/tables/drawWorker.js, or dist/bundle/drawWorker.mjs in the bundle.
+  const file = new URL(import.meta.url.endsWith(".mjs") ? "./drawWorker.mjs" : "./drawWorker.js", import.meta.url);
+  try {
+    worker = new Worker(file);
+    worker.unref(); // never keeps the process alive
+    worker.on("error", () => {
+      worker = null;
+    });
+  } catch {
+    worker = null;
+  }
+  return worker;
+}
+
+/**
+ * Evaluates every draw of a job, on this thread and, for large jobs, on one helper thread at once: both claim
+ * draws from a shared counter and write into shared buffers, so the output is the same byte for byte whichever
+ * thread evaluated a draw (and with threads off: COSMOLEDGER_DRAW_THREADS=1). Synchronous: this thread waits
+ * (Atomics.wait) for the helper to finish the draws it claimed.
+ */
+export function evaluateDraws(
+  job: Omit<DrawJob, "out" | "status" | "next">,
+  pointsPerDraw: number,
+): { out: Float64Array; status: Int8Array } {
+  const Q = job.layout.size;
+  const parallel = job.count * pointsPerDraw >= PARALLEL_WORK ? helper() : null;
+  const shared = (bytes: number) => (parallel ? new SharedArrayBuffer(bytes) : new ArrayBuffer(bytes));
+  const full: DrawJob = {
+    ...job,
+    out: new Float64Array(shared(job.count * Q * 8)),
+    status: new Int8Array(shared(job.count)).fill(-1),
+    next: new Int32Array(shared(4)),
+  };
+  if (!parallel) {
+    evaluateClaimedDraws(full);
+    return { out: full.out, status: full.status };
+  }
+  const state = new Int32Array(new SharedArrayBuffer(4));
+  parallel.postMessage({ job: full, state });
+  evaluateClaimedDraws(full);
+  // If the helper has not started yet, it never will for this job; otherwise wait for the draws it claimed.
+  if (Atomics.compareExchange(state, 0, WAITING, CLOSED) !== WAITING) {
+    while (Atomics.load(state, 0) === RUNNING) Atomics.wait(state, 0, RUNNING);
+  }
+  // The helper met an unexpected error: evaluate every draw again here, so that the error surfaces on this thread.
+  if (Atomics.load(state, 0) === FAILED) evaluateClaimedDraws({ ...full, next: new Int32Array(1) });
+  return { out: full.out, status: full.status };
+}
