@@ -21,6 +21,15 @@ export interface DrawContext {
   grid: readonly number[];
   targets: readonly ResolvedTarget[];
   surveys: readonly ResolvedSurvey[];
+  /** Both lists as one, for a single pass (mergeRedshifts); computed when absent. */
+  merged?: MergedRedshifts;
+}
+
+/** Table redshifts and grid in one list z (any order: the engine sorts), with the index of each entry in z. */
+export interface MergedRedshifts {
+  z: number[];
+  table: number[];
+  grid: number[];
 }
 
 /** The keys of a model's numeric quantities, in the order of its vector: summary, rows, targets, shells, grid. */
@@ -92,18 +101,18 @@ export function evaluateInto(
   const s = { ...backgroundSummary(bg).summary, ...early } as Record<string, unknown>;
   for (const k of layout.summary) out[p++] = num(s[k]);
   const rDrag = early.sound_horizon_drag_Mpc;
-  const columns = (zs: readonly number[]) => {
-    const c = redshiftTable(bg, zs, { narrowPanelsByGauss7: true });
-    return { ...c, ...baoRatios(c, rDrag) } as unknown as Record<string, Float64Array>;
-  };
+  // One pass over the table redshifts and the grid together (sorted once per scenario in where.merged).
+  const merged = where.merged ?? mergeRedshifts(where);
+  const c = redshiftTable(bg, merged.z, { narrowPanelsByGauss7: true });
+  const all = { ...c, ...baoRatios(c, rDrag) } as unknown as Record<string, Float64Array>;
   if (layout.rowKeys.length > 0) {
-    const z = columns(where.redshifts);
     const K = layout.rowKeys.length;
+    const rows = merged.table;
     for (let kk = 0; kk < K; kk++) {
-      const column = z[layout.rowKeys[kk]];
-      for (let i = 0; i < where.redshifts.length; i++) out[p + i * K + kk] = num(column[i]);
+      const column = all[layout.rowKeys[kk]];
+      for (let i = 0; i < rows.length; i++) out[p + i * K + kk] = num(column[rows[i]]);
     }
-    p += where.redshifts.length * K;
+    p += rows.length * K;
   }
   targetRows(bg, where.targets).forEach((row, i) => {
     const r = row as unknown as Record<string, unknown>;
@@ -113,15 +122,21 @@ export function evaluateInto(
     const r = row as unknown as Record<string, unknown>;
     for (const k of layout.surveyKeys[i]) out[p++] = num(r[k]);
   });
-  const points = where.grid.length;
-  if (points > 0) {
-    const g = columns(where.grid);
+  const points = merged.grid;
+  if (points.length > 0) {
     for (const k of layout.gridKeys) {
-      out.set(g[k], p); // a block copy, then infinite or undefined values marked NaN
-      for (let i = p; i < p + points; i++) if (!Number.isFinite(out[i])) out[i] = Number.NaN;
-      p += points;
+      const column = all[k];
+      for (let i = 0; i < points.length; i++) {
+        const v = column[points[i]];
+        out[p++] = Number.isFinite(v) ? v : Number.NaN;
+      }
     }
   }
+}
+
+/** The table redshifts and the grid as one list, and where each of them sits in it. */
+export function mergeRedshifts(where: Pick<DrawContext, "redshifts" | "grid">): MergedRedshifts {
+  return { z: [...where.redshifts, ...where.grid], table: where.redshifts.map((_, i) => i), grid: where.grid.map((_, i) => where.redshifts.length + i) };
 }
 
 /** Everything a thread needs to evaluate draws of one model (structured-clone safe; buffers may be shared). */

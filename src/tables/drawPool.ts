@@ -1,6 +1,7 @@
 import { Worker } from "node:worker_threads";
 import { availableParallelism } from "node:os";
 import { evaluateClaimedDraws, type DrawJob } from "./drawEvaluation.js";
+import { computeClaimedBands, type BandJob } from "./bandStatistics.js";
 
 const WAITING = 0;
 const RUNNING = 1;
@@ -54,14 +55,53 @@ export function evaluateDraws(
     evaluateClaimedDraws(full);
     return { out: full.out, status: full.status };
   }
+  runShared(parallel, "draws", full, () => evaluateClaimedDraws(full), () =>
+    evaluateClaimedDraws({ ...full, next: new Int32Array(1) }),
+  );
+  return { out: full.out, status: full.status };
+}
+
+/**
+ * Runs one job on this thread and the helper together: the helper is sent the job, both claim work from its
+ * shared counter, and this thread waits for the helper's claimed part. If the helper had not started by the time
+ * this thread ran out of work, it never starts on this job; if it failed, `redo` does everything here again (so
+ * that an unexpected error surfaces on this thread, with its stack).
+ */
+function runShared(helperThread: Worker, kind: "draws" | "bands", job: object, work: () => void, redo: () => void) {
   const state = new Int32Array(new SharedArrayBuffer(4));
-  parallel.postMessage({ job: full, state });
-  evaluateClaimedDraws(full);
-  // If the helper has not started yet, it never will for this job; otherwise wait for the draws it claimed.
+  helperThread.postMessage({ kind, job, state });
+  work();
   if (Atomics.compareExchange(state, 0, WAITING, CLOSED) !== WAITING) {
     while (Atomics.load(state, 0) === RUNNING) Atomics.wait(state, 0, RUNNING);
   }
-  // The helper met an unexpected error: evaluate every draw again here, so that the error surfaces on this thread.
-  if (Atomics.load(state, 0) === FAILED) evaluateClaimedDraws({ ...full, next: new Int32Array(1) });
-  return { out: full.out, status: full.status };
+  if (Atomics.load(state, 0) === FAILED) redo();
+}
+
+/** The bands of every quantity of a spread (bandStatistics.ts), shared with the helper thread when it is running. */
+export function computeBands(
+  job: Omit<BandJob, "q_" | "e_" | "missing" | "next">,
+): Pick<BandJob, "q_" | "e_" | "missing"> {
+  const parallel = job.values.buffer instanceof SharedArrayBuffer ? helper() : null;
+  const shared = (bytes: number) => (parallel ? new SharedArrayBuffer(bytes) : new ArrayBuffer(bytes));
+  const full: BandJob = {
+    ...job,
+    accepted: parallel ? copyToShared(job.accepted) : job.accepted,
+    weights: job.weights && parallel ? copyToShared(job.weights) : job.weights,
+    q_: new Float64Array(shared(job.Q * 5 * 8)),
+    e_: new Float64Array(shared(job.Q * 5 * 8)),
+    missing: new Int32Array(shared(job.Q * 4)),
+    next: new Int32Array(shared(4)),
+  };
+  if (parallel)
+    runShared(parallel, "bands", full, () => computeClaimedBands(full), () =>
+      computeClaimedBands({ ...full, next: new Int32Array(1) }),
+    );
+  else computeClaimedBands(full);
+  return full;
+}
+
+function copyToShared<T extends Int32Array | Float64Array>(a: T): T {
+  const out = new (a.constructor as new (b: SharedArrayBuffer) => T)(new SharedArrayBuffer(a.byteLength));
+  out.set(a);
+  return out;
 }

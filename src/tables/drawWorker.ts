@@ -1,8 +1,9 @@
-// A worker thread that evaluates spread draws beside the main thread (src/tables/drawPool.ts). It claims draws
+// A worker thread that evaluates spread draws, and then their bands, beside the main thread (src/tables/drawPool.ts). It claims draws
 // from the same counter as the main thread and writes into the same shared buffers, so the results do not depend
 // on which thread computed which draw.
 import { parentPort } from "node:worker_threads";
 import { evaluateClaimedDraws, type DrawJob } from "./drawEvaluation.js";
+import { computeClaimedBands, type BandJob } from "./bandStatistics.js";
 
 /** Job states in the shared `state` cell (see drawPool.ts). */
 const WAITING = 0;
@@ -10,12 +11,15 @@ const RUNNING = 1;
 const DONE = 2;
 const FAILED = 4;
 
-parentPort?.on("message", (message: { job: DrawJob; state: Int32Array }) => {
-  const { job, state } = message;
+type Message = { kind: "draws"; job: DrawJob; state: Int32Array } | { kind: "bands"; job: BandJob; state: Int32Array };
+
+parentPort?.on("message", (message: Message) => {
+  const { state } = message;
   if (Atomics.compareExchange(state, 0, WAITING, RUNNING) !== WAITING) return; // the main thread finished alone
   let final = DONE;
   try {
-    evaluateClaimedDraws(job);
+    if (message.kind === "draws") evaluateClaimedDraws(message.job);
+    else computeClaimedBands(message.job);
   } catch {
     final = FAILED; // the main thread re-evaluates what this thread claimed, and reports the error itself
   }

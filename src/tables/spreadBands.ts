@@ -1,5 +1,5 @@
-import { ACCEPTED, REJECTIONS, layoutKeysOf, type DrawContext } from "./drawEvaluation.js";
-import { evaluateDraws } from "./drawPool.js";
+import { ACCEPTED, REJECTIONS, layoutKeysOf, mergeRedshifts, type DrawContext } from "./drawEvaluation.js";
+import { computeBands, evaluateDraws } from "./drawPool.js";
 import type { ResolvedModel, ResolvedSpread, SamplesTable, SpreadKey } from "../scenario/resolvedScenario.js";
 import {
   SPREAD_PERCENTILES,
@@ -8,11 +8,6 @@ import {
   effectiveSampleSize,
   fnv1a32,
   normalQuantile,
-  percentileMonteCarloError,
-  percentileRank,
-  OrderStatistics,
-  sortWeighted,
-  weightedPercentile,
 } from "../statistics/index.js";
 import type { Band, ModelSpread, ModelTables } from "../contract/tablesDocument.js";
 
@@ -102,7 +97,7 @@ export function spreadBands(
       values: draws.values,
       weights: draws.weights,
       count: draws.count,
-      where,
+      where: { ...where, merged: mergeRedshifts(where) },
       layout: L,
     },
     where.redshifts.length + where.grid.length,
@@ -119,50 +114,26 @@ export function spreadBands(
   const n = acceptedIndex.length;
   const weights = draws.weights === null ? null : Float64Array.from(acceptedIndex, (i) => draws.weights![i]);
   const effective = effectiveSampleSize(weights, n);
-  const column = new Float64Array(n);
-  const sorted = new Float64Array(n);
-  const cumulative = new Float64Array(n);
-  const order = new Uint32Array(n);
   const undefinedIn: Record<string, number> = {};
-  // The ranks behind each percentile and its Monte Carlo error (as percentileMonteCarloError takes them).
-  const ranksOf = SPREAD_PERCENTILES.map((p) => {
-    const q = p / 100;
-    const d = Math.sqrt((q * (1 - q)) / Math.max(1, n));
-    return {
-      at: percentileRank(n, p),
-      lo: percentileRank(n, Math.max(0, q - d) * 100),
-      hi: percentileRank(n, Math.min(1, q + d) * 100),
-    };
+  const stats = computeBands({
+    values,
+    Q,
+    accepted: Int32Array.from(acceptedIndex),
+    weights,
+    effective,
   });
-  const wantedRanks = [...new Set(ranksOf.flatMap((r) => [r.at, r.lo, r.hi]))].sort((a, b) => a - b);
-  const selector = new OrderStatistics(n);
-  const picked = new Array<number>(wantedRanks.length).fill(0);
+  const P = SPREAD_PERCENTILES.length;
   /** The band of quantity q; null when some draw leaves it undefined ("all" when every draw does). */
   const band = (q: number, name: string): Band | "all" | null => {
-    let missing = 0;
-    for (let d = 0; d < n; d++) {
-      const v = values[acceptedIndex[d] * Q + q];
-      column[d] = v;
-      if (Number.isNaN(v)) missing++;
-    }
+    const missing = stats.missing[q];
     if (n === 0 || missing === n) return "all";
     if (missing > 0) {
       undefinedIn[name] = missing;
       return null;
     }
-    if (weights === null) {
-      // Equal weights: only 15 order statistics are needed, found by selection rather than a full sort.
-      selector.select(column, wantedRanks, picked);
-      const at = (rank: number) => picked[wantedRanks.indexOf(rank)];
-      return {
-        q: ranksOf.map((r) => at(r.at)),
-        mc_error: ranksOf.map((r) => (at(r.hi) - at(r.lo)) / 2),
-      };
-    }
-    const c = sortWeighted(column, weights, order, sorted, cumulative);
     return {
-      q: SPREAD_PERCENTILES.map((p) => weightedPercentile(sorted, c, p)),
-      mc_error: SPREAD_PERCENTILES.map((p) => percentileMonteCarloError(sorted, c, effective, p)),
+      q: Array.from(stats.q_.subarray(q * P, q * P + P)),
+      mc_error: Array.from(stats.e_.subarray(q * P, q * P + P)),
     };
   };
   const scalar = (q: number, name: string): Band | null => {
