@@ -136,7 +136,11 @@ export function evaluateInto(
 
 /** The table redshifts and the grid as one list, and where each of them sits in it. */
 export function mergeRedshifts(where: Pick<DrawContext, "redshifts" | "grid">): MergedRedshifts {
-  return { z: [...where.redshifts, ...where.grid], table: where.redshifts.map((_, i) => i), grid: where.grid.map((_, i) => where.redshifts.length + i) };
+  return {
+    z: [...where.redshifts, ...where.grid],
+    table: where.redshifts.map((_, i) => i),
+    grid: where.grid.map((_, i) => where.redshifts.length + i),
+  };
 }
 
 /** Everything a thread needs to evaluate draws of one model (structured-clone safe; buffers may be shared). */

@@ -55,8 +55,12 @@ export function evaluateDraws(
     evaluateClaimedDraws(full);
     return { out: full.out, status: full.status };
   }
-  runShared(parallel, "draws", full, () => evaluateClaimedDraws(full), () =>
-    evaluateClaimedDraws({ ...full, next: new Int32Array(1) }),
+  runShared(
+    parallel,
+    "draws",
+    full,
+    () => evaluateClaimedDraws(full),
+    () => evaluateClaimedDraws({ ...full, next: new Int32Array(1) }),
   );
   return { out: full.out, status: full.status };
 }
@@ -93,8 +97,12 @@ export function computeBands(
     next: new Int32Array(shared(4)),
   };
   if (parallel)
-    runShared(parallel, "bands", full, () => computeClaimedBands(full), () =>
-      computeClaimedBands({ ...full, next: new Int32Array(1) }),
+    runShared(
+      parallel,
+      "bands",
+      full,
+      () => computeClaimedBands(full),
+      () => computeClaimedBands({ ...full, next: new Int32Array(1) }),
     );
   else computeClaimedBands(full);
   return full;
