@@ -259,6 +259,8 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
     cautions: cautions(
       s.models.some((m) => m.background.Omega_b !== null),
       s.models.some((m) => m.background.massiveNeutrinos.length > 0),
+      s.models.some((m) => m.spread !== undefined) && options.chartGrid !== false,
+      s.models.some((m) => (m.published?.length ?? 0) > 0),
     ),
     ...(s.draws && options.chartGrid !== false
       ? {
