@@ -36,6 +36,13 @@ export const MAX_TABLE_EVALUATIONS = 20_000;
 export const MAX_GRID_EVALUATIONS = 100_000;
 /** At most this many model-redshift evaluations over every draw of every spread (~2 s of work per million). */
 export const MAX_DRAW_EVALUATIONS = 4_000_000;
+/** At most this many evaluations per draw of one model: its draws' numbers are held at once (~0.2 GB at this size). */
+export const MAX_DRAW_EVALUATIONS_PER_MODEL = 1_000_000;
+/**
+ * At most this many banded quantities' rows (models with a spread x (redshifts + grid points + targets + surveys)):
+ * each carries ten numbers per quantity in the document (~50 MB of JSON at this size).
+ */
+export const MAX_BANDED_ROWS = 10_000;
 export const DEFAULT_DRAW_COUNT = 1000;
 export const DEFAULT_DRAW_SEED = 1;
 
@@ -486,10 +493,25 @@ export function resolveScenario(
       (n, m) => n + (m.spread ? (m.spread.form === "samples" ? m.spread.rows : draws!.count) * perDraw : 0),
       0,
     );
+    const at = raw.draws?.count !== undefined ? ["draws", "count"] : ["models"];
     if (drawWork > MAX_DRAW_EVALUATIONS)
       fail(
-        raw.draws?.count !== undefined ? ["draws", "count"] : ["models"],
+        at,
         `the spreads ask for ${drawWork} draw evaluations (draws x (redshifts + grid points), summed over models with a spread); at most ${MAX_DRAW_EVALUATIONS} are allowed (fewer draws, rows or grid points)`,
+      );
+    const perModel = Math.max(
+      ...models.map((m) => (m.spread ? (m.spread.form === "samples" ? m.spread.rows : draws!.count) * perDraw : 0)),
+    );
+    if (perModel > MAX_DRAW_EVALUATIONS_PER_MODEL)
+      fail(
+        at,
+        `one model's spread asks for ${perModel} draw evaluations (draws x (redshifts + grid points)); at most ${MAX_DRAW_EVALUATIONS_PER_MODEL} per model are allowed (fewer draws, rows or grid points)`,
+      );
+    const banded = models.filter((m) => m.spread).length * (perDraw + targets.length + surveys.length);
+    if (banded > MAX_BANDED_ROWS)
+      fail(
+        ["models"],
+        `the spreads would band ${banded} rows (models with a spread x (redshifts + grid points + targets + surveys)); at most ${MAX_BANDED_ROWS} are allowed (fewer spread models or grid points)`,
       );
   }
   // Warnings go with the errors: they may explain one (H0 = 0.7 makes omega_b = 0.0224 an impossible Omega_b).

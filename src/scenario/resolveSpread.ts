@@ -262,6 +262,10 @@ function samplesSpread(
     ctx.fail(at, "samples must name a CSV file, relative to the scenario's folder");
     return null;
   }
+  if (value.split(/[\\/]/).includes("..")) {
+    ctx.fail(at, `samples must name a file inside the scenario's folder or below it, without "..": ${value}`);
+    return null;
+  }
   if (value.startsWith("/") || /^[A-Za-z]:[\\/]/.test(value)) {
     ctx.fail(
       at,

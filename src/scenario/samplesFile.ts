@@ -14,6 +14,9 @@ function closestKey(name: string, valid: string[]): string | null {
   return distance(name.toLowerCase(), near.toLowerCase()) <= Math.max(2, Math.floor(near.length / 3)) ? near : null;
 }
 
+/** A cell as messages quote it: at most 40 characters. */
+const shortCell = (cell: string) => (cell.length > 40 ? `${cell.slice(0, 39)}\u2026` : cell);
+
 export interface SamplesProblem {
   line: number;
   column: number;
@@ -66,7 +69,7 @@ export function parseSamplesFile(
       problems.push({
         line: headerLine,
         column: columnStart(header, i),
-        message: `column ${JSON.stringify(name)} is not a parameter key${near ? `; did you mean ${near}?` : ""} (valid: ${SPREAD_KEYS.join(", ")}, and ${WEIGHT_COLUMN})`,
+        message: `column ${JSON.stringify(shortCell(name))} is not a parameter key${near ? `; did you mean ${near}?` : ""} (valid: ${SPREAD_KEYS.join(", ")}, and ${WEIGHT_COLUMN})`,
       });
     }
   });
@@ -107,7 +110,7 @@ export function parseSamplesFile(
         problems.push({
           line: info.lines,
           column: columnStart(record, i),
-          message: `${name}: ${JSON.stringify(cell)} is not a finite number`,
+          message: `${name}: ${JSON.stringify(shortCell(cell))} is not a finite number`,
         });
         return;
       }

@@ -88,6 +88,27 @@ describe("bad spreads are located input errors", () => {
     );
   });
 
+  it("a samples file outside the scenario's folder is refused (no ..), and long cells are quoted short", () => {
+    refused(
+      `${HEAD}  - id: m\n    H0: 70\n    Omega_m: 0.3\n    spread: { samples: ../chain.csv }\n`,
+      {},
+      /models\[0\]\.spread\.samples: samples must name a file inside the scenario's folder or below it, without "\.\."/,
+    );
+    const long = "x".repeat(5000);
+    const dir = project(HEAD + samplesModel, { "chain.csv": `H0,Omega_m\n70,${long}\n` });
+    const r = runCli(["compute", "s.yaml", "--out", "out"], dir);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/Omega_m: "x{39}\u2026" is not a finite number/);
+    expect(r.stderr.length).toBeLessThan(1000);
+  });
+
+  it("spreads too large for the document are refused with the limit named", () =>
+    refused(
+      "title: big\nredshifts: [1]\ngrid: { points: 5000 }\ndraws: { count: 20 }\nmodels:\n  - { id: a, H0: 70, Omega_m: 0.3, spread: { normal: { H0: 1 } } }\n  - { id: b, extends: a }\n  - { id: c, extends: a }\n",
+      {},
+      /the spreads would band 15003 rows .*at most 10000 are allowed/,
+    ));
+
   it("a samples file above the documented 4 MiB is refused before freezing, naming the limit", () => {
     const row = "70.000000000,0.3000000000\n";
     const big = `H0,Omega_m\n${row.repeat(Math.ceil((4 * 1024 * 1024) / row.length) + 1)}`;
