@@ -155,7 +155,7 @@ export async function quoteCommand(argv: string[]): Promise<number> {
     const sections = quoteSections(sources, shown, placements, quantities, everyPlacementIsATarget);
     const columns = shown.map((id, i) => {
       const m = doc.models.find((x) => x.id === id)!;
-      return { id, label: file ? m.label : (models[i]?.argument ?? m.label) };
+      return { id, label: file ? m.label : (models[i]?.argument ?? m.label), cites: citations(m.published ?? []) };
     });
     const provenance: ExportProvenance = {
       tool: "cosmoledger",
@@ -295,5 +295,15 @@ function parseQuoteArgs(argv: string[]) {
       save: { type: "string" },
       help: { type: "boolean", short: "h" },
     },
+  });
+}
+
+/** The published sets a model extends, cited on one line each (with the values recalled from memory named). */
+function citations(sets: NonNullable<TablesDocument["models"][number]["published"]>): string[] {
+  return sets.map((p) => {
+    const memo = Object.entries(p.transcription)
+      .filter(([, how]) => how === "recalled from memory")
+      .map(([k]) => k);
+    return `${p.title}: ${p.journal}, arXiv:${p.arxiv}, ${p.table}${memo.length ? `; ${memo.join(", ")} recalled from memory` : ""}`;
   });
 }

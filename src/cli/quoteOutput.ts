@@ -99,7 +99,7 @@ export function quoteTable(sections: QuoteSection[], columns: { id: string; labe
  */
 export function quoteTerminal(
   sections: QuoteSection[],
-  columns: { id: string; label: string }[],
+  columns: { id: string; label: string; cites?: string[] }[],
   provenance: ExportProvenance,
 ): string {
   const nameWidth = Math.max(8, ...sections.flatMap((s) => s.rows.map((r) => r.quantity.short.length)));
@@ -128,6 +128,8 @@ export function quoteTerminal(
   });
   const legend = columns.filter((c) => c.label !== c.id).map((c) => `  ${c.id}: ${c.label}`);
   if (legend.length > 0) lines.push("models:", ...legend);
+  const cited = columns.flatMap((c) => (c.cites ?? []).map((line) => `  ${c.id}: ${line}`));
+  if (cited.length > 0) lines.push("published sets:", ...cited);
   lines.push(
     `${provenance.tool} ${provenance.tool_version}, engine ${provenance.engine_version}; inputs SHA-256 ${provenance.inputs_sha256.slice(0, 12)}; background FLRW only (see the README's cautions)`,
   );

@@ -153,3 +153,24 @@ describe("a helper thread evaluates draws beside the main thread", () => {
     expect(JSON.parse(a).models[1].spread.accepted).toBe(500);
   });
 });
+
+describe("quote with a published set", () => {
+  it("answers with the set's central values and cites it, marking values recalled from memory", () => {
+    const r = runCli([
+      "quote",
+      "--model",
+      "id=planck extends=published/planck2018-ttteee-lowe-lensing-bao",
+      "--z",
+      "2",
+      "--quantities",
+      "age0",
+    ]);
+    expect(r.code, r.stderr).toBe(0);
+    // Planck 2018 VI, Table 2, last column: age 13.787 +/- 0.020 Gyr (recalled from memory); the quote prints 6 figures.
+    const age = Number(/age0\s+\[Gyr\]\s+([\d.]+)/.exec(r.stdout)?.[1]);
+    expect(Math.abs(age - 13.787)).toBeLessThan(0.02);
+    expect(r.stdout).toMatch(
+      /published sets:\n {2}planck: Planck 2018, TT,TE,EE\+lowE\+lensing\+BAO: A&A 641, A6 \(2020\), arXiv:1807\.06209, Table 2.*; H0, Omega_m, omega_b recalled from memory/,
+    );
+  });
+});
