@@ -29,8 +29,10 @@ function hostileScenario(): string {
     `description: ${q(evil("description"))}`,
     "redshifts: [0.5, 2]",
     "grid: { z_max: 3, points: 8 }",
+    "draws: { count: 40, seed: 3 }",
     "models:",
-    `  - { id: a, label: ${q(evil("label-a"))}, notes: ${q(evil("notes"))}, H0: 70, Omega_m: 0.3, omega_b: 0.0224 }`,
+    // A spread puts intervals (X^{+a}_{-b} in LaTeX) into every exported table of model a.
+    `  - { id: a, label: ${q(evil("label-a"))}, notes: ${q(evil("notes"))}, H0: 70, Omega_m: 0.3, omega_b: 0.0224, spread: { normal: { H0: 1, Omega_m: 0.01 } } }`,
     `  - { id: b, label: ${q(`-${evil("label-b")}`)}, extends: a, w0: -0.9 }`,
     // A LaTeX label (checked to hold mathematics only) is set in math mode in every .tex export and must compile.
     `  - { id: c, label: plain, label_tex: '\\Lambda\\mathrm{CDM}_{\\nu}', extends: a, w0: -1.1 }`,
