@@ -31,7 +31,8 @@ export function intervalOf(band: Band | null | undefined): IntervalText | null {
   const scale = Math.abs(median);
   const exponent = scale >= 1e6 || (scale > 0 && scale < 1e-3) ? Math.floor(Math.log10(scale)) : 0;
   const f = 10 ** exponent;
-  const decimals = Math.max(0, 1 - Math.floor(Math.log10(smaller / f)));
+  // Twelve significant figures first, so that 0.3 - 0.2 = 0.09999999999999998 counts as 0.1.
+  const decimals = Math.max(0, 1 - Math.floor(Math.log10(Number((smaller / f).toPrecision(12)))));
   const fix = (x: number) => (x / f).toFixed(Math.min(decimals, 20));
   const core = `${fix(median)} +${fix(plus)} \u2212${fix(minus)}`;
   const texCore = `${fix(median)}^{+${fix(plus)}}_{-${fix(minus)}}`;
