@@ -44,6 +44,12 @@ models:
     m_nu_eV: [0.06]
   - { id: open, extends: base, Omega_k: 0.05, w0: -0.9, wa: 0.1 }
   - &c { id: closed, extends: base, Omega_k: -0.02 }
+  - id: spread
+    extends: [published/planck2018-ttteee-lowe-lensing, published/riess2022-sh0es-h0]
+    spread:
+      normal: { H0: 1, Omega_m: { plus: 0.01, minus: 0.02 } }
+      correlation: [[1, -0.5], [-0.5, 1]]
+draws: { count: 20, seed: 4 }
 targets:
   - { name: Arc, z: 2.3, size_kpc: 10, absolute_magnitude: -21 }
   - { name: Old, age_Gyr: 1 }
@@ -99,6 +105,15 @@ const TOKENS = [
   "\n    ",
   "=HYPERLINK(1)",
   "\\input{/etc/passwd}",
+  "spread: none",
+  "spread: { samples: ../../etc/passwd }",
+  "spread: { samples: /etc/passwd }",
+  "correlation: [[1, 2], [2, 1]]",
+  "[[1, 0.999999999999], [0.999999999999, 1]]",
+  "extends: published/wmap9-lcdm",
+  "extends: [published/nope]",
+  "count: 100000",
+  "seed: -1",
 ];
 
 type Mutation =
