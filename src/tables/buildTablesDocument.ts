@@ -201,6 +201,16 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
         targets: s.targets,
         surveys: s.surveys,
       });
+      if (tables.spread.accepted === 0)
+        throw new ModelComputeError(
+          i,
+          m.id,
+          `every one of the ${tables.spread.draws} draws of its spread was rejected (${Object.entries(
+            tables.spread.rejected_because,
+          )
+            .map(([why, count]) => `${count} ${why}`)
+            .join(", ")}), so no band can be given; narrow the spread`,
+        );
       if (tables.spread.rejected > 0)
         tables.warnings.push(
           `${tables.spread.rejected} of ${tables.spread.draws} draws rejected (${Object.entries(

@@ -102,6 +102,13 @@ describe("bad spreads are located input errors", () => {
     expect(r.stderr.length).toBeLessThan(1000);
   });
 
+  it("a spread whose every draw is rejected is an input error at the model", () =>
+    refused(
+      `${HEAD}  - { id: m, H0: 70, Omega_m: 0.3, spread: { normal: { H0: 1e308 } } }\n`,
+      {},
+      /s\.yaml:5:5: models\[0\]: model m: every one of the 1000 draws of its spread was rejected \(1000 outside the accepted range\)/,
+    ));
+
   it("spreads too large for the document are refused with the limit named", () =>
     refused(
       "title: big\nredshifts: [1]\ngrid: { points: 5000 }\ndraws: { count: 20 }\nmodels:\n  - { id: a, H0: 70, Omega_m: 0.3, spread: { normal: { H0: 1 } } }\n  - { id: b, extends: a }\n  - { id: c, extends: a }\n",
