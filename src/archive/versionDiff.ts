@@ -113,6 +113,7 @@ const SCENARIO_KEYS = [
   "grid",
   "targets",
   "surveys",
+  "draws",
 ] as const;
 
 function inputChanges(a: StoredVersionRecord, b: StoredVersionRecord): InputChange[] {
@@ -136,6 +137,28 @@ function inputChanges(a: StoredVersionRecord, b: StoredVersionRecord): InputChan
     const ma = a.tables.models.find((m) => m.id === mb.id);
     if (!ma) continue;
     const mods = (m: StoredModelTables) => m as unknown as Record<string, unknown>;
+    // The spread is compared as resolved (its inputs record: form, parameters and uncertainties, or the samples
+    // file's hash), not as its bands; the published sets by their ids.
+    const spreadOf = (r: StoredVersionRecord, id: string) =>
+      (r.inputs.models as { id: string; spread?: unknown }[]).find((m) => m.id === id)?.spread;
+    const published = (m: StoredModelTables) =>
+      "published" in m && m.published ? m.published.map((p) => p.id) : undefined;
+    for (const [key, x, y] of [
+      ["spread", spreadOf(a, mb.id), spreadOf(b, mb.id)],
+      ["published", published(ma), published(mb)],
+    ] as const) {
+      if (text(x) !== text(y))
+        out.push({
+          model: mb.id,
+          key,
+          before: text(x),
+          after: text(y),
+          beforeNumber: null,
+          afterNumber: null,
+          provenanceBefore: null,
+          provenanceAfter: null,
+        });
+    }
     for (const key of ["label", "extends", "notes"] as const) {
       if (text(mods(ma)[key]) !== text(mods(mb)[key]))
         out.push({

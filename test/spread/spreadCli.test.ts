@@ -3,6 +3,7 @@
 import { describe, expect, it } from "vitest";
 import { existsSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
+import { parseHTML } from "linkedom";
 import { runCli, tempDir } from "../helpers/buildDemoSite.js";
 
 const HEAD = "title: spread\nredshifts: [1]\ngrid: { points: 20 }\nmodels:\n";
@@ -179,5 +180,24 @@ describe("quote with a published set", () => {
     expect(r.stdout).toMatch(
       /published sets:\n {2}planck: Planck 2018, TT,TE,EE\+lowE\+lensing\+BAO: A&A 641, A6 \(2020\), arXiv:1807\.06209, Table 2.*; H0, Omega_m, omega_b recalled from memory/,
     );
+  });
+});
+
+describe("the diff page of two versions names a changed spread", () => {
+  it("lists the draws' seed and the spread's uncertainties among the resolved inputs that changed", () => {
+    const v1 = `${HEAD.replace("models:", "draws: { count: 40, seed: 1 }\nmodels:")}  - { id: m, H0: 70, Omega_m: 0.3, spread: { normal: { H0: 1 } } }\n`;
+    const dir = project(v1);
+    expect(runCli(["freeze", "s.yaml", "--archive", "archive", "-m", "one"], dir).code).toBe(0);
+    writeFileSync(join(dir, "s.yaml"), v1.replace("seed: 1", "seed: 2").replace("H0: 1 }", "H0: 2 }"));
+    expect(runCli(["freeze", "s.yaml", "--archive", "archive", "-m", "two"], dir).code).toBe(0);
+    const b = runCli(
+      ["build", "--scenarios", ".", "--archive", "archive", "--out", "site", "--skip-images", "--quiet"],
+      dir,
+    );
+    expect(b.code, b.stderr).toBe(0);
+    const page = parseHTML(readFileSync(join(dir, "site/s/diff/v1-v2/index.html"), "utf8")).document;
+    const rows = [...page.querySelectorAll("tr")].map((r) => (r.textContent ?? "").replace(/\s+/g, " "));
+    expect(rows.some((r) => /draws .*"seed":1.*"seed":2/.test(r))).toBe(true);
+    expect(rows.some((r) => /spread .*"plus":1.*"plus":2/.test(r))).toBe(true);
   });
 });
