@@ -107,12 +107,16 @@ export function evaluateInto(
   const all = { ...c, ...baoRatios(c, rDrag) } as unknown as Record<string, Float64Array>;
   if (layout.rowKeys.length > 0) {
     const K = layout.rowKeys.length;
-    const rows = merged.table;
+    const rows = merged.table.length;
+    const from = merged.table[0] ?? 0; // the table redshifts are one contiguous stretch of the merged list
     for (let kk = 0; kk < K; kk++) {
       const column = all[layout.rowKeys[kk]];
-      for (let i = 0; i < rows.length; i++) out[p + i * K + kk] = num(column[rows[i]]);
+      for (let i = 0; i < rows; i++) {
+        const v = column[from + i];
+        out[p + i * K + kk] = Number.isFinite(v) ? v : Number.NaN;
+      }
     }
-    p += rows.length * K;
+    p += rows * K;
   }
   targetRows(bg, where.targets).forEach((row, i) => {
     const r = row as unknown as Record<string, unknown>;
@@ -122,14 +126,13 @@ export function evaluateInto(
     const r = row as unknown as Record<string, unknown>;
     for (const k of layout.surveyKeys[i]) out[p++] = num(r[k]);
   });
-  const points = merged.grid;
-  if (points.length > 0) {
+  const points = merged.grid.length;
+  if (points > 0) {
+    const from = merged.grid[0]; // the grid is one contiguous stretch of the merged list
     for (const k of layout.gridKeys) {
-      const column = all[k];
-      for (let i = 0; i < points.length; i++) {
-        const v = column[points[i]];
-        out[p++] = Number.isFinite(v) ? v : Number.NaN;
-      }
+      out.set(all[k].subarray(from, from + points), p); // a block copy, then undefined values marked NaN
+      for (let i = p; i < p + points; i++) if (!Number.isFinite(out[i])) out[i] = Number.NaN;
+      p += points;
     }
   }
 }
