@@ -39,6 +39,9 @@ describe.skipIf(!chromiumPath || !pdftotext)("printing to A4 and Letter", { time
     mkdirSync(join(dir, "scenarios"));
     writeFileSync(join(dir, "scenarios/eight.yaml"), EIGHT);
     writeFileSync(join(dir, "scenarios/lantern.yaml"), readFileSync(join(ROOT, "scenarios/lantern-deep-field.yaml")));
+    // A page with spreads: every cell has an interval line under its value.
+    for (const f of ["saltmarsh-forecast.yaml", "saltmarsh-demo-chain.csv"])
+      writeFileSync(join(dir, "scenarios", f), readFileSync(join(ROOT, "scenarios", f)));
     site = join(dir, "site");
     const r = runCli(["build", "--scenarios", "scenarios", "--out", site, "--quiet", "--skip-images"], dir);
     if (r.code !== 0) throw new Error(r.stderr);
@@ -53,6 +56,7 @@ describe.skipIf(!chromiumPath || !pdftotext)("printing to A4 and Letter", { time
     ["eight/index.html", "A4"],
     ["eight/index.html", "Letter"],
     ["lantern-deep-field/index.html", "A4"],
+    ["saltmarsh-forecast/index.html", "A4"],
   ] as const) {
     it(`${page} on ${format}: every number of every table is in the PDF's text, and no table overlaps another`, async () => {
       const tab = await context.newPage();
@@ -65,9 +69,15 @@ describe.skipIf(!chromiumPath || !pdftotext)("printing to A4 and Letter", { time
           .filter((td) => td.getClientRects().length > 0)
           .map((td) => {
             const copy = td.cloneNode(true) as HTMLElement;
-            for (const d of copy.querySelectorAll(".diff")) d.remove();
+            for (const d of copy.querySelectorAll(".diff, .band")) d.remove();
             return copy.textContent!.trim();
           }),
+      );
+      // And every interval line of a spread (its numbers; the line may wrap in print).
+      const bands = await tab.evaluate(() =>
+        [...document.querySelectorAll("main table td.num .band")]
+          .filter((b) => b.getClientRects().length > 0)
+          .map((b) => b.textContent!.replace("68 %:", "").trim()),
       );
       const overlaps = await tab.evaluate(() => {
         const boxes = [...document.querySelectorAll("main table")].map((t) => t.getBoundingClientRect());
@@ -90,6 +100,9 @@ describe.skipIf(!chromiumPath || !pdftotext)("printing to A4 and Letter", { time
       const missing = numbers.filter((n) => n && n !== "—" && !printed.includes(squeeze(n)));
       expect(numbers.length).toBeGreaterThan(100);
       expect(missing, `${missing.length} of ${numbers.length} numbers missing`).toEqual([]);
+      const missingBands = bands.filter((b) => !printed.includes(squeeze(b)));
+      expect(missingBands, `${missingBands.length} of ${bands.length} intervals missing`).toEqual([]);
+      if (page.startsWith("saltmarsh")) expect(bands.length).toBeGreaterThan(100);
     });
   }
 });
