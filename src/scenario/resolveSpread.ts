@@ -281,6 +281,8 @@ function samplesSpread(
   try {
     text = ctx.readAttachment(value);
   } catch (e) {
+    // The system refusing (permission, I/O) is not an input problem: it keeps its own exit status (4).
+    if (typeof (e as { code?: unknown }).code === "string") throw e;
     ctx.fail(at, `cannot read samples file ${value}: ${(e as Error).message}`);
     return null;
   }

@@ -171,6 +171,14 @@ describe.skipIf(!isRoot)("the system refuses: full disk, read-only, permission d
     mkdirSync(join(work, "tables"), { mode: 0o755 });
     mkdirSync(join(work, "archive"), { mode: 0o755 });
     refusedBySystem(cli(["check", "secret.yaml"], work, true), /secret\.yaml/, /permission denied/);
+    // A samples file the user cannot read is the system refusing too (4), not a bad scenario (2).
+    writeFileSync(join(work, "chain.csv"), "H0\n70\n");
+    chmodSync(join(work, "chain.csv"), 0o600);
+    writeFileSync(
+      join(work, "spread.yaml"),
+      "title: s\nmodels:\n  - { id: m, H0: 70, Omega_m: 0.3, spread: { samples: chain.csv } }\n",
+    );
+    refusedBySystem(cli(["check", "spread.yaml"], work, true), /chain\.csv/, /permission denied/);
     refusedBySystem(cli(["compute", "plan.yaml", "--out", "tables"], work, true), /tables/, /permission denied/);
     refusedBySystem(cli(["freeze", "plan.yaml", "--archive", "archive"], work, true), /archive/, /permission denied/);
     mkdirSync(join(work, "scenarios"), { mode: 0o755 });
