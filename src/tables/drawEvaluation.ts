@@ -21,15 +21,8 @@ export interface DrawContext {
   grid: readonly number[];
   targets: readonly ResolvedTarget[];
   surveys: readonly ResolvedSurvey[];
-  /** Both lists as one, for a single pass (mergeRedshifts); computed when absent. */
-  merged?: MergedRedshifts;
-}
-
-/** Table redshifts and grid in one list z (any order: the engine sorts), with the index of each entry in z. */
-export interface MergedRedshifts {
-  z: number[];
-  table: number[];
-  grid: number[];
+  /** The table redshifts, then the grid, as one list for a single engine pass; made from them when absent. */
+  merged?: number[];
 }
 
 /** The keys of a model's numeric quantities, in the order of its vector: summary, rows, targets, shells, grid. */
@@ -87,7 +80,7 @@ export function layoutKeysOf(nominal: ModelTables, gridPoints: number): LayoutKe
  * Writes a drawn background's quantities into out[at ...] in the layout's order, by the engine calls behind a
  * model's own tables (src/tables/buildTablesDocument.ts) without building row objects; NaN where a value is null.
  * The per-redshift integrals take narrow panels by one 7-point Gauss rule (pastIntegrals' option): a draw needs
- * no 1e-13 panels, and the results agree with the adaptive ones to about 1e-15 (test/spread).
+ * no 1e-13 panels, and on a dense grid they still meet the mpmath fixtures to 1e-10 (test/engine/mpmathFixtures).
  */
 export function evaluateInto(
   bg: BackgroundModel,
@@ -101,22 +94,20 @@ export function evaluateInto(
   const s = { ...backgroundSummary(bg).summary, ...early } as Record<string, unknown>;
   for (const k of layout.summary) out[p++] = num(s[k]);
   const rDrag = early.sound_horizon_drag_Mpc;
-  // One pass over the table redshifts and the grid together (sorted once per scenario in where.merged).
-  const merged = where.merged ?? mergeRedshifts(where);
-  const c = redshiftTable(bg, merged.z, { narrowPanelsByGauss7: true });
+  // One pass over the table redshifts and then the grid: rows 0 .. R-1 of the columns, then R .. R+G-1.
+  const c = redshiftTable(bg, where.merged ?? [...where.redshifts, ...where.grid], { narrowPanelsByGauss7: true });
+  const R = where.redshifts.length;
   const all = { ...c, ...baoRatios(c, rDrag) } as unknown as Record<string, Float64Array>;
   if (layout.rowKeys.length > 0) {
     const K = layout.rowKeys.length;
-    const rows = merged.table.length;
-    const from = merged.table[0] ?? 0; // the table redshifts are one contiguous stretch of the merged list
     for (let kk = 0; kk < K; kk++) {
       const column = all[layout.rowKeys[kk]];
-      for (let i = 0; i < rows; i++) {
-        const v = column[from + i];
+      for (let i = 0; i < R; i++) {
+        const v = column[i];
         out[p + i * K + kk] = Number.isFinite(v) ? v : Number.NaN;
       }
     }
-    p += rows * K;
+    p += R * K;
   }
   targetRows(bg, where.targets).forEach((row, i) => {
     const r = row as unknown as Record<string, unknown>;
@@ -126,24 +117,14 @@ export function evaluateInto(
     const r = row as unknown as Record<string, unknown>;
     for (const k of layout.surveyKeys[i]) out[p++] = num(r[k]);
   });
-  const points = merged.grid.length;
+  const points = where.grid.length;
   if (points > 0) {
-    const from = merged.grid[0]; // the grid is one contiguous stretch of the merged list
     for (const k of layout.gridKeys) {
-      out.set(all[k].subarray(from, from + points), p); // a block copy, then undefined values marked NaN
+      out.set(all[k].subarray(R, R + points), p); // a block copy, then undefined values marked NaN
       for (let i = p; i < p + points; i++) if (!Number.isFinite(out[i])) out[i] = Number.NaN;
       p += points;
     }
   }
-}
-
-/** The table redshifts and the grid as one list, and where each of them sits in it. */
-export function mergeRedshifts(where: Pick<DrawContext, "redshifts" | "grid">): MergedRedshifts {
-  return {
-    z: [...where.redshifts, ...where.grid],
-    table: where.redshifts.map((_, i) => i),
-    grid: where.grid.map((_, i) => where.redshifts.length + i),
-  };
 }
 
 /** Everything a thread needs to evaluate draws of one model (structured-clone safe; buffers may be shared). */
@@ -166,8 +147,11 @@ export interface DrawJob {
 /** Draws claimed at a time: small enough to balance two threads, large enough that claiming costs nothing. */
 const CHUNK = 8;
 
-/** Evaluates draws of a job, claiming them a chunk at a time until none is left. */
-export function evaluateClaimedDraws(job: DrawJob): void {
+/**
+ * Evaluates draws of a job, claiming them a chunk at a time until none is left; adds the number it evaluated to
+ * `tally` when given (the helper thread's count, which tests read to see that the work was shared).
+ */
+export function evaluateClaimedDraws(job: DrawJob, tally?: Int32Array): void {
   const k = job.keys.length;
   const Q = job.layout.size;
   const row = new Float64Array(k);
@@ -175,6 +159,7 @@ export function evaluateClaimedDraws(job: DrawJob): void {
     const start = Atomics.add(job.next, 0, CHUNK);
     if (start >= job.count) return;
     const end = Math.min(job.count, start + CHUNK);
+    if (tally) Atomics.add(tally, 0, end - start);
     for (let i = start; i < end; i++) {
       if (job.weights !== null && job.weights[i] === 0) {
         job.status[i] = ZERO_WEIGHT;

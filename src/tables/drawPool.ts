@@ -2,6 +2,7 @@ import { Worker } from "node:worker_threads";
 import { availableParallelism } from "node:os";
 import { evaluateClaimedDraws, type DrawJob } from "./drawEvaluation.js";
 import { computeClaimedBands, type BandJob } from "./bandStatistics.js";
+import { SPREAD_PERCENTILES } from "../statistics/index.js";
 
 const WAITING = 0;
 const RUNNING = 1;
@@ -41,7 +42,7 @@ function helper(): Worker | null {
 export function evaluateDraws(
   job: Omit<DrawJob, "out" | "status" | "next">,
   pointsPerDraw: number,
-): { out: Float64Array; status: Int8Array } {
+): { out: Float64Array; status: Int8Array; helperDraws: number } {
   const Q = job.layout.size;
   const parallel = job.count * pointsPerDraw >= PARALLEL_WORK ? helper() : null;
   const shared = (bytes: number) => (parallel ? new SharedArrayBuffer(bytes) : new ArrayBuffer(bytes));
@@ -53,16 +54,20 @@ export function evaluateDraws(
   };
   if (!parallel) {
     evaluateClaimedDraws(full);
-    return { out: full.out, status: full.status };
+    return { out: full.out, status: full.status, helperDraws: 0 };
   }
+  const tally = new Int32Array(new SharedArrayBuffer(4));
   runShared(
     parallel,
     "draws",
-    full,
+    { job: full, tally },
     () => evaluateClaimedDraws(full),
-    () => evaluateClaimedDraws({ ...full, next: new Int32Array(1) }),
+    () => {
+      Atomics.store(tally, 0, 0);
+      evaluateClaimedDraws({ ...full, next: new Int32Array(1) });
+    },
   );
-  return { out: full.out, status: full.status };
+  return { out: full.out, status: full.status, helperDraws: Atomics.load(tally, 0) };
 }
 
 /**
@@ -71,9 +76,15 @@ export function evaluateDraws(
  * this thread ran out of work, it never starts on this job; if it failed, `redo` does everything here again (so
  * that an unexpected error surfaces on this thread, with its stack).
  */
-function runShared(helperThread: Worker, kind: "draws" | "bands", job: object, work: () => void, redo: () => void) {
+function runShared(
+  helperThread: Worker,
+  kind: "draws" | "bands",
+  payload: { job: object; tally?: Int32Array },
+  work: () => void,
+  redo: () => void,
+) {
   const state = new Int32Array(new SharedArrayBuffer(4));
-  helperThread.postMessage({ kind, job, state });
+  helperThread.postMessage({ kind, ...payload, state });
   work();
   if (Atomics.compareExchange(state, 0, WAITING, CLOSED) !== WAITING) {
     while (Atomics.load(state, 0) === RUNNING) Atomics.wait(state, 0, RUNNING);
@@ -91,8 +102,8 @@ export function computeBands(
     ...job,
     accepted: parallel ? copyToShared(job.accepted) : job.accepted,
     weights: job.weights && parallel ? copyToShared(job.weights) : job.weights,
-    q_: new Float64Array(shared(job.Q * 5 * 8)),
-    e_: new Float64Array(shared(job.Q * 5 * 8)),
+    q_: new Float64Array(shared(job.Q * SPREAD_PERCENTILES.length * 8)),
+    e_: new Float64Array(shared(job.Q * SPREAD_PERCENTILES.length * 8)),
     missing: new Int32Array(shared(job.Q * 4)),
     next: new Int32Array(shared(4)),
   };
@@ -100,7 +111,7 @@ export function computeBands(
     runShared(
       parallel,
       "bands",
-      full,
+      { job: full },
       () => computeClaimedBands(full),
       () => computeClaimedBands({ ...full, next: new Int32Array(1) }),
     );

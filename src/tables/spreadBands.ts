@@ -1,4 +1,4 @@
-import { ACCEPTED, REJECTIONS, layoutKeysOf, mergeRedshifts, type DrawContext } from "./drawEvaluation.js";
+import { ACCEPTED, REJECTIONS, layoutKeysOf, type DrawContext } from "./drawEvaluation.js";
 import { computeBands, evaluateDraws } from "./drawPool.js";
 import type { ResolvedModel, ResolvedSpread, SamplesTable, SpreadKey } from "../scenario/resolvedScenario.js";
 import {
@@ -10,8 +10,6 @@ import {
   normalQuantile,
 } from "../statistics/index.js";
 import type { Band, ModelSpread, ModelTables } from "../contract/tablesDocument.js";
-
-export type { DrawContext };
 
 /** The parameter values of every draw of a spread (row-major: draw by parameter), and their weights. */
 export interface SpreadDraws {
@@ -97,7 +95,7 @@ export function spreadBands(
       values: draws.values,
       weights: draws.weights,
       count: draws.count,
-      where: { ...where, merged: mergeRedshifts(where) },
+      where: { ...where, merged: [...where.redshifts, ...where.grid] },
       layout: L,
     },
     where.redshifts.length + where.grid.length,
