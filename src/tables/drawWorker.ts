@@ -11,14 +11,16 @@ const RUNNING = 1;
 const DONE = 2;
 const FAILED = 4;
 
-type Message = { kind: "draws"; job: DrawJob; state: Int32Array } | { kind: "bands"; job: BandJob; state: Int32Array };
+type Message =
+  | { kind: "draws"; job: DrawJob; tally: Int32Array; state: Int32Array }
+  | { kind: "bands"; job: BandJob; state: Int32Array };
 
 parentPort?.on("message", (message: Message) => {
   const { state } = message;
   if (Atomics.compareExchange(state, 0, WAITING, RUNNING) !== WAITING) return; // the main thread finished alone
   let final = DONE;
   try {
-    if (message.kind === "draws") evaluateClaimedDraws(message.job);
+    if (message.kind === "draws") evaluateClaimedDraws(message.job, message.tally);
     else computeClaimedBands(message.job);
   } catch {
     final = FAILED; // the main thread re-evaluates what this thread claimed, and reports the error itself

@@ -1,10 +1,12 @@
 // Spreads through the command line: bad spreads and samples files are located input errors (exit 2, nothing
 // written); a frozen version keeps its samples file so that verify recomputes it without the file.
 import { describe, expect, it } from "vitest";
+import { spawnSync } from "node:child_process";
 import { existsSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { availableParallelism } from "node:os";
 import { join } from "node:path";
 import { parseHTML } from "linkedom";
-import { runCli, tempDir } from "../helpers/buildDemoSite.js";
+import { ROOT, runCli, tempDir } from "../helpers/buildDemoSite.js";
 
 const HEAD = "title: spread\nredshifts: [1]\ngrid: { points: 20 }\nmodels:\n";
 
@@ -148,6 +150,27 @@ describe("a frozen version keeps its samples file", () => {
 });
 
 describe("a helper thread evaluates draws beside the main thread", () => {
+  it("the helper thread takes part of the draws, and the numbers are the same bytes as on one thread", () => {
+    const run = (env: Record<string, string>) => {
+      const r = spawnSync(process.execPath, [join(ROOT, "test/helpers/drawPoolProbe.mjs")], {
+        encoding: "utf8",
+        env: { ...process.env, ...env },
+      });
+      expect(r.status, r.stderr).toBe(0);
+      return JSON.parse(r.stdout) as { helperDraws: number; count: number; hash: string };
+    };
+    const one = run({ COSMOLEDGER_DRAW_THREADS: "1" });
+    expect(one.helperDraws).toBe(0);
+    const two = run({});
+    expect(two.hash).toBe(one.hash);
+    // On two or more cores the helper, started and idle before the job, claims some of the 2,000 draws while the
+    // main thread spends a few hundred milliseconds on its own share.
+    if (availableParallelism() >= 2) {
+      expect(two.helperDraws).toBeGreaterThan(0);
+      expect(two.helperDraws).toBeLessThan(two.count);
+    }
+  });
+
   it("the tables document is byte-identical with the helper thread and without it", () => {
     // 500 draws x (2 redshifts + 120 grid points) is above the size at which the helper thread is used.
     const yaml = `title: threads\nredshifts: [0.5, 2]\ngrid: { points: 120 }\ndraws: { count: 500, seed: 9 }\nmodels:\n  - id: m\n    H0: 70\n    Omega_m: 0.3\n    omega_b: 0.0224\n    m_nu_eV: [0.06]\n    spread: { normal: { H0: 1, Omega_m: 0.01, omega_b: 0.0002 } }\n  - { id: n, extends: m, Omega_k: 0.02 }\n`;
