@@ -60,6 +60,8 @@ export const NARROW_PANEL = 0.1;
 export interface PastIntegralOptions {
   /** Narrow panels by one 7-point Gauss rule (no error estimate): for spreads, whose draws need no 1e-13 panels. */
   narrowPanelsByGauss7?: boolean;
+  /** The indices of the redshifts in ascending order, when the caller has them already (every draw of a spread). */
+  ascending?: ArrayLike<number>;
 }
 
 export function pastIntegrals(
@@ -68,14 +70,23 @@ export function pastIntegrals(
   options: PastIntegralOptions = {},
 ): PastIntegrals {
   const n = redshifts.length;
-  const order = Array.from({ length: n }, (_, i) => i);
   let sorted = true;
   for (let i = 0; i < n; i++) {
     const z = redshifts[i];
     if (!(z >= 0) || !Number.isFinite(z)) throw new RangeError(`redshift must be finite and >= 0, got ${z}`);
     if (i > 0 && z < redshifts[i - 1]) sorted = false;
   }
-  if (!sorted) order.sort((i, j) => redshifts[i] - redshifts[j]);
+  let order: ArrayLike<number>;
+  if (options.ascending) {
+    order = options.ascending;
+    for (let k = 1; k < n; k++)
+      if (!(redshifts[order[k]] >= redshifts[order[k - 1]])) throw new RangeError("the given order is not ascending");
+  } else {
+    const o = new Uint32Array(n);
+    for (let i = 0; i < n; i++) o[i] = i;
+    if (!sorted) o.sort((i, j) => redshifts[i] - redshifts[j]);
+    order = o;
+  }
 
   const f = pastIntegrand(model);
   const vec = new GaussKronrodIntegrator(2);

@@ -7,7 +7,7 @@ export {
   effectiveSampleSize,
   percentileMonteCarloError,
   percentileRank,
-  OrderStatistics,
+  SortingPermutation,
   sortWeighted,
   weightedPercentile,
 } from "./weightedPercentiles.js";

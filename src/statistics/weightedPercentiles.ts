@@ -95,29 +95,64 @@ export function percentileRank(n: number, percent: number): number {
 }
 
 /**
- * Order statistics by bucket selection: values are counted into 256 buckets of equal width between their minimum
- * and maximum (a monotone map, so a bucket holds a contiguous stretch of the sorted order), and only the buckets
- * that hold a wanted rank are gathered and sorted. Exact, like a full sort, at a few passes over the data (the
- * distributive partitioning of Dobosiewicz 1978, used for selection; common practice). One instance is reused for
- * every quantity of a spread.
+ * Ascending order of a sequence of columns of n values, kept from one column to the next: each column is put in
+ * order by insertion sort starting from the previous column's order, which costs about n steps when neighbouring
+ * columns rank the draws alike (a quantity at adjacent grid redshifts); a column ranked very differently is sorted
+ * afresh by distribution into n equal-width buckets (Dobosiewicz 1978), then insertion within buckets, and
+ * Array.prototype.sort as the last resort. Exact, like any full sort (common practice). Finite values only.
  */
-export class OrderStatistics {
-  private static readonly BUCKETS = 256;
-  private readonly bucketOf: Uint8Array;
-  private readonly scratch: Float64Array;
-  private readonly counts = new Int32Array(OrderStatistics.BUCKETS + 1);
-  private readonly filled = new Int32Array(OrderStatistics.BUCKETS);
-  private readonly needed = new Uint8Array(OrderStatistics.BUCKETS);
+export class SortingPermutation {
+  /** order[k] is the index of the k-th smallest value of the last column sorted. */
+  readonly order: Uint32Array;
+  private readonly counts: Int32Array;
+  private readonly start: Int32Array;
+  private readonly keys: Float64Array;
 
   constructor(private readonly n: number) {
-    this.bucketOf = new Uint8Array(n);
-    this.scratch = new Float64Array(n);
+    this.keys = new Float64Array(n);
+    this.order = Uint32Array.from({ length: n }, (_, i) => i);
+    this.counts = new Int32Array(n + 1);
+    this.start = new Int32Array(n + 1);
   }
 
-  /** Writes to out[j] the value of 0-based rank ranks[j] among values[0..n-1] (finite numbers). */
-  select(values: ArrayLike<number>, ranks: readonly number[], out: number[]): void {
+  /** Reorders `order` so that values[order[0]] <= values[order[1]] <= ...; returns it. */
+  sort(values: ArrayLike<number>): Uint32Array {
+    if (!this.insertion(values, 4 * this.n)) {
+      if (!this.distribute(values) || !this.insertion(values, 16 * this.n))
+        this.order.sort((i, j) => values[i] - values[j]);
+    }
+    return this.order;
+  }
+
+  /** Insertion sort of `order` by the values; gives up (false) after `budget` moves, leaving a permutation. */
+  private insertion(values: ArrayLike<number>, budget: number): boolean {
+    const { order, keys, n } = this;
+    for (let k = 0; k < n; k++) keys[k] = values[order[k]]; // moved with the indices: sequential comparisons
+    let moves = 0;
+    for (let i = 1; i < n; i++) {
+      const x = keys[i];
+      if (keys[i - 1] <= x) continue;
+      const p = order[i];
+      let j = i - 1;
+      do {
+        keys[j + 1] = keys[j];
+        order[j + 1] = order[j];
+        j--;
+      } while (j >= 0 && keys[j] > x);
+      keys[j + 1] = x;
+      order[j + 1] = p;
+      moves += i - 1 - j;
+      if (moves > budget) return false;
+    }
+    return true;
+  }
+
+  /**
+   * Orders the indices by bucket (n equal-width buckets between the minimum and maximum, a monotone map); false
+   * when the range overflows (then nothing is changed).
+   */
+  private distribute(values: ArrayLike<number>): boolean {
     const n = this.n;
-    const B = OrderStatistics.BUCKETS;
     let min = values[0];
     let max = values[0];
     for (let i = 1; i < n; i++) {
@@ -125,48 +160,15 @@ export class OrderStatistics {
       if (x < min) min = x;
       else if (x > max) max = x;
     }
-    if (!(max > min)) {
-      for (let j = 0; j < ranks.length; j++) out[j] = min;
-      return;
-    }
-    const scale = B / (max - min);
-    const counts = this.counts;
+    if (!(max > min)) return true; // all equal: any order is sorted
+    if (!Number.isFinite(max - min)) return false;
+    const scale = n / (max - min);
+    const { counts, start, order } = this;
     counts.fill(0);
-    for (let i = 0; i < n; i++) {
-      const b = Math.min(B - 1, Math.floor((values[i] - min) * scale));
-      this.bucketOf[i] = b;
-      counts[b + 1]++;
-    }
-    for (let b = 0; b < B; b++) counts[b + 1] += counts[b]; // counts[b] is now where bucket b starts
-    this.needed.fill(0);
-    for (const r of ranks) {
-      let b = 0;
-      while (counts[b + 1] <= r) b++;
-      this.needed[b] = 1;
-    }
-    const filled = this.filled;
-    for (let b = 0; b < B; b++) filled[b] = counts[b];
-    const scratch = this.scratch;
-    for (let i = 0; i < n; i++) {
-      const b = this.bucketOf[i];
-      if (this.needed[b]) scratch[filled[b]++] = values[i];
-    }
-    for (let b = 0; b < B; b++) {
-      if (!this.needed[b]) continue;
-      const lo = counts[b];
-      const hi = counts[b + 1];
-      if (hi - lo > 32) scratch.subarray(lo, hi).sort();
-      else
-        for (let i = lo + 1; i < hi; i++) {
-          const x = scratch[i];
-          let j = i - 1;
-          while (j >= lo && scratch[j] > x) {
-            scratch[j + 1] = scratch[j];
-            j--;
-          }
-          scratch[j + 1] = x;
-        }
-    }
-    for (let j = 0; j < ranks.length; j++) out[j] = scratch[ranks[j]];
+    for (let i = 0; i < n; i++) counts[Math.min(n - 1, Math.floor((values[i] - min) * scale)) + 1]++;
+    for (let b = 0; b < n; b++) counts[b + 1] += counts[b];
+    start.set(counts);
+    for (let i = 0; i < n; i++) order[start[Math.min(n - 1, Math.floor((values[i] - min) * scale))]++] = i;
+    return true;
   }
 }

@@ -1,5 +1,5 @@
 import {
-  OrderStatistics,
+  SortingPermutation,
   SPREAD_PERCENTILES,
   percentileMonteCarloError,
   percentileRank,
@@ -30,17 +30,18 @@ export interface BandJob {
   next: Int32Array;
 }
 
-/** Quantities claimed at a time. */
+/** Quantities claimed at a time (gathered together, so that each draw's stretch of them is read at once). */
 const CHUNK = 64;
 
 /**
- * Computes the bands of the quantities it claims, until none is left. Equal weights: the 15 order statistics
- * behind the five percentiles and their Monte Carlo errors, by selection; weights: a sort and the weighted rule.
+ * Computes the bands of the quantities it claims, until none is left. Equal weights: the order of the draws by the
+ * quantity (carried from one quantity to the next, see SortingPermutation) and the 15 order statistics behind the
+ * five percentiles and their Monte Carlo errors; weights: a sort and the weighted rule.
  */
 export function computeClaimedBands(job: BandJob): void {
   const n = job.accepted.length;
   const { values, Q, accepted, weights } = job;
-  const column = new Float64Array(n);
+  const block = new Float64Array(CHUNK * n);
   const sorted = new Float64Array(n);
   const cumulative = new Float64Array(n);
   const order = new Uint32Array(n);
@@ -54,30 +55,29 @@ export function computeClaimedBands(job: BandJob): void {
       hi: percentileRank(n, Math.min(1, q + d) * 100),
     };
   });
-  const wanted = [...new Set(ranksOf.flatMap((r) => [r.at, r.lo, r.hi]))].sort((a, b) => a - b);
-  const slot = (rank: number) => wanted.indexOf(rank);
-  const rankSlots = ranksOf.map((r) => ({ at: slot(r.at), lo: slot(r.lo), hi: slot(r.hi) }));
-  const selector = new OrderStatistics(n);
-  const picked = new Array<number>(wanted.length).fill(0);
+  const permutation = new SortingPermutation(n);
   for (;;) {
     const start = Atomics.add(job.next, 0, CHUNK);
     if (start >= Q) return;
     const end = Math.min(Q, start + CHUNK);
+    const width = end - start;
+    // Quantity-major copy of the claimed stretch: block[j * n + d] is draw d's quantity start + j.
+    for (let d = 0; d < n; d++) {
+      const from = accepted[d] * Q + start;
+      for (let j = 0; j < width; j++) block[j * n + d] = values[from + j];
+    }
     for (let q = start; q < end; q++) {
+      const column = block.subarray((q - start) * n, (q - start + 1) * n);
       let missing = 0;
-      for (let d = 0; d < n; d++) {
-        const v = values[accepted[d] * Q + q];
-        column[d] = v;
-        if (Number.isNaN(v)) missing++;
-      }
+      for (let d = 0; d < n; d++) if (Number.isNaN(column[d])) missing++;
       job.missing[q] = missing;
       if (n === 0 || missing > 0) continue;
       if (weights === null) {
-        selector.select(column, wanted, picked);
+        const byValue = permutation.sort(column);
         for (let j = 0; j < P; j++) {
-          const r = rankSlots[j];
-          job.q_[q * P + j] = picked[r.at];
-          job.e_[q * P + j] = (picked[r.hi] - picked[r.lo]) / 2;
+          const r = ranksOf[j];
+          job.q_[q * P + j] = column[byValue[r.at]];
+          job.e_[q * P + j] = (column[byValue[r.hi]] - column[byValue[r.lo]]) / 2;
         }
       } else {
         const c = sortWeighted(column, weights, order, sorted, cumulative);

@@ -33,6 +33,19 @@ function helper(): Worker | null {
   return worker;
 }
 
+let spare: ArrayBuffer | SharedArrayBuffer | null = null;
+
+/**
+ * A buffer for draw vectors, reused from one model to the next (their bands are done before the next model's draws
+ * start): writing tens of megabytes into fresh memory costs a page fault per 4 KiB. Slots of rejected draws keep
+ * whatever was there; only accepted draws' vectors are read, and those are written in full.
+ */
+function resultBuffer(bytes: number, shared: boolean): ArrayBuffer | SharedArrayBuffer {
+  if (spare === null || spare.byteLength < bytes || spare instanceof SharedArrayBuffer !== shared)
+    spare = shared ? new SharedArrayBuffer(bytes) : new ArrayBuffer(bytes);
+  return spare;
+}
+
 /**
  * Evaluates every draw of a job, on this thread and, for large jobs, on one helper thread at once: both claim
  * draws from a shared counter and write into shared buffers, so the output is the same byte for byte whichever
@@ -48,7 +61,7 @@ export function evaluateDraws(
   const shared = (bytes: number) => (parallel ? new SharedArrayBuffer(bytes) : new ArrayBuffer(bytes));
   const full: DrawJob = {
     ...job,
-    out: new Float64Array(shared(job.count * Q * 8)),
+    out: new Float64Array(resultBuffer(job.count * Q * 8, parallel !== null), 0, job.count * Q),
     status: new Int8Array(shared(job.count)).fill(-1),
     next: new Int32Array(shared(4)),
   };

@@ -7,7 +7,7 @@ import normalQuantileReference from "@stdlib/stats-base-dists-normal-quantile";
 import { loadScenario } from "../../src/scenario/loadScenario.js";
 import { buildTablesDocument } from "../../src/tables/buildTablesDocument.js";
 import {
-  OrderStatistics,
+  SortingPermutation,
   Xoshiro128StarStar,
   choleskyLower,
   normalQuantile,
@@ -97,7 +97,7 @@ describe("statistics building blocks", () => {
     ).toBeNull();
   });
 
-  it("bucket selection gives exactly the order statistics of a full sort (ties, heavy tails, constant data)", () => {
+  it("the carried sorting order equals a full sort, column after column (ties, tails, reversals, constant data)", () => {
     const rng = new Xoshiro128StarStar(4);
     const shapes: ((u: number) => number)[] = [
       (u) => u,
@@ -105,15 +105,24 @@ describe("statistics building blocks", () => {
       (u) => 1 / (u * u), // a heavy tail: most values in the first bucket
       () => 3, // constant
       (u) => (u < 0.5 ? -1e300 : 1e300) * u, // extreme range
+      (u) => (u < 0.5 ? -1.7e308 : 1.7e308) * u, // a range that overflows: the last-resort sort
     ];
+    const checkSorted = (values: Float64Array, order: Uint32Array) => {
+      expect([...order].sort((a, b) => a - b)).toEqual([...values.keys()]); // a permutation
+      expect(Float64Array.from(order, (i) => values[i])).toEqual(Float64Array.from(values).sort());
+    };
     for (const shape of shapes)
       for (const n of [1, 2, 17, 1000]) {
-        const values = Float64Array.from({ length: n }, () => shape(rng.nextOpenUnit()));
-        const sorted = Float64Array.from(values).sort();
-        const ranks = [...new Set([0, Math.floor(n / 3), Math.floor(n / 2), n - 1])].sort((a, b) => a - b);
-        const out: number[] = [];
-        new OrderStatistics(n).select(values, ranks, out);
-        expect(out).toEqual(ranks.map((r) => sorted[r]));
+        const sorter = new SortingPermutation(n);
+        const base = Float64Array.from({ length: n }, () => shape(rng.nextOpenUnit()));
+        // A column, a slightly perturbed one (the cheap path), its reverse (the fresh sort), and a new one.
+        const columns = [
+          base,
+          base.map((x) => x * (1 + 1e-3 * (rng.nextOpenUnit() - 0.5))),
+          base.map((x) => -x),
+          Float64Array.from({ length: n }, () => shape(rng.nextOpenUnit())),
+        ];
+        for (const column of columns) checkSorted(column, sorter.sort(column));
       }
   });
 
