@@ -3,7 +3,7 @@ import { hubbleDistanceMpc, hubbleTimeGyr } from "./hubbleScales.js";
 import { curvatureRadiusMpc } from "./curvatureRadius.js";
 import { bounceScaleFactor, maximumScaleFactor } from "./turningPoints.js";
 import { NoBigBangError } from "./noBigBangError.js";
-import { pastIntegrals } from "./pastIntegrals.js";
+import { pastIntegrals, type PastIntegrals } from "./pastIntegrals.js";
 import { futureIntegrals } from "./futureIntegrals.js";
 import { comovingVolumeWithin } from "./comovingVolume.js";
 import { decelerationParameter } from "./decelerationParameter.js";
@@ -77,12 +77,13 @@ export function assertBigBang(model: BackgroundModel): void {
  * 2 pi^2 R^3, antipode at pi R, the space with antipodal points identified has half the volume, and the observable
  * fraction is the geodesic-ball volume of the particle horizon over the total.
  */
-export function backgroundSummary(model: BackgroundModel): SummaryResult {
+export function backgroundSummary(model: BackgroundModel, options: { past?: PastIntegrals } = {}): SummaryResult {
   assertBigBang(model);
   const warnings: string[] = [];
   const DH = hubbleDistanceMpc(model.H0_km_s_Mpc);
   const tH = hubbleTimeGyr(model.H0_km_s_Mpc);
-  const past = pastIntegrals(model, [0]);
+  // Only age0 and conformalAge0 are used: any redshifts' integrals of this model serve (a spread's draws pass theirs).
+  const past = options.past ?? pastIntegrals(model, [0]);
   const aMax = maximumScaleFactor(model);
   const future = futureIntegrals(model, aMax);
   const R = curvatureRadiusMpc(model);

@@ -68,7 +68,13 @@ export interface EarlyUniverse {
  * is null and `note` says why. z* and z_drag come from fitting formulas, r_drag from a calibrated formula (named
  * on the pages); r* and the integral r_drag are integrals of the background. theta* = r* / D_M(z*).
  */
-export function earlyUniverse(model: BackgroundModel): { values: EarlyUniverse; note: string | null } {
+export function earlyUniverse(
+  model: BackgroundModel,
+  options: {
+    /** D_M at a redshift in Mpc, when the caller computes it with other redshifts in one pass (a spread's draws). */
+    transverseComovingDistanceMpc?: (z: number) => number;
+  } = {},
+): { values: EarlyUniverse; note: string | null } {
   const DH = hubbleDistanceMpc(model.H0_km_s_Mpc);
   const zEq = matterRadiationEqualityRedshift(model);
   let kEq: number | null = null;
@@ -99,7 +105,9 @@ export function earlyUniverse(model: BackgroundModel): { values: EarlyUniverse; 
   const zStar = recombinationRedshiftHuSugiyama(omega_b, omega_m);
   const zDrag = dragRedshiftEisensteinHu(omega_b, omega_m);
   const rStar = soundHorizonMpc(model, zStar);
-  const DMstar = redshiftTable(model, [zStar]).transverse_comoving_distance_Mpc[0];
+  const DMstar = options.transverseComovingDistanceMpc
+    ? options.transverseComovingDistanceMpc(zStar)
+    : redshiftTable(model, [zStar]).transverse_comoving_distance_Mpc[0];
   return {
     values: {
       z_recombination: zStar,

@@ -47,14 +47,21 @@ export function matterDarkEnergyEqualityRedshift(model: BackgroundModel): number
     const a = Math.exp(u);
     return Math.log(Omega_de * darkEnergyDensityRatio(a, w0, wa)) - Math.log(matterLike(model, a));
   };
-  if (h(0) === 0) return 0;
+  const h0 = h(0);
+  if (h0 === 0) return 0;
   const step = 0.005;
+  // Outward in both directions at once, each side's last value kept (every grid point evaluated once).
+  let past = h0;
+  let future = h0;
   for (let i = 1; i * step <= 30; i++) {
-    for (const dir of [-1, 1]) {
-      const u0 = dir * (i - 1) * step;
-      const u1 = dir * i * step;
-      if (h(u0) > 0 !== h(u1) > 0 || h(u1) === 0) return Math.expm1(-brentRoot(h, u0, u1, 0));
-    }
+    const uPast = -1 * i * step;
+    const hPast = h(uPast);
+    if (past > 0 !== hPast > 0 || hPast === 0) return Math.expm1(-brentRoot(h, -1 * (i - 1) * step, uPast, 0));
+    past = hPast;
+    const uFuture = 1 * i * step;
+    const hFuture = h(uFuture);
+    if (future > 0 !== hFuture > 0 || hFuture === 0) return Math.expm1(-brentRoot(h, 1 * (i - 1) * step, uFuture, 0));
+    future = hFuture;
   }
   return null;
 }

@@ -1,7 +1,7 @@
 import type { BackgroundModel } from "./backgroundModel.js";
 import { expansionRateSquared } from "./expansionRateSquared.js";
 import { dominantTermLate } from "./dominantTerm.js";
-import { GaussKronrodIntegrator } from "./gaussKronrod.js";
+import { borrowIntegrator, releaseIntegrator, type GaussKronrodIntegrator } from "./gaussKronrod.js";
 import { PANEL_REL_TOL } from "./pastIntegrals.js";
 import { energyRatioSlope, lnEnergyRatio } from "./fermiDiracEnergy.js";
 
@@ -26,14 +26,28 @@ export interface FutureIntegrals {
  * 1/sqrt(a_max - a) end-point behaviour into a smooth integrand (Friedmann equation near H = 0).
  */
 export function futureIntegrals(model: BackgroundModel, maxScaleFactor: number | null): FutureIntegrals {
+  const vec = borrowIntegrator(2);
+  const one = borrowIntegrator(1);
+  try {
+    return futureIntegralsWith(vec, one, model, maxScaleFactor);
+  } finally {
+    releaseIntegrator(vec);
+    releaseIntegrator(one);
+  }
+}
+
+function futureIntegralsWith(
+  vec: GaussKronrodIntegrator,
+  one: GaussKronrodIntegrator,
+  model: BackgroundModel,
+  maxScaleFactor: number | null,
+): FutureIntegrals {
   const e2 = expansionRateSquared(model);
-  const vec = new GaussKronrodIntegrator(2);
   const value = new Float64Array(2);
   const error = new Float64Array(2);
   if (maxScaleFactor === null) {
     const late = dominantTermLate(model);
     if (!(late.power < 2)) return { timeToTurnaround: Infinity, conformalToTurnaround: Infinity, timeToRip: Infinity };
-    const one = new GaussKronrodIntegrator(1);
     const v1 = new Float64Array(1);
     const err1 = new Float64Array(1);
     if (!Number.isFinite(late.power)) {

@@ -235,9 +235,20 @@ export class GaussKronrodIntegrator {
   }
 }
 
-const scalarIntegrator = new GaussKronrodIntegrator(1);
-const scalarValue = new Float64Array(1);
-const scalarError = new Float64Array(1);
+const idle: GaussKronrodIntegrator[][] = [];
+
+/**
+ * An integrator of k components from a pool, to give back with releaseIntegrator when done: its scratch space is
+ * made once, not on every call. Nested use (an integrand that integrates) takes another one, so it is reentrant.
+ */
+export function borrowIntegrator(components: number): GaussKronrodIntegrator {
+  return idle[components]?.pop() ?? new GaussKronrodIntegrator(components);
+}
+
+export function releaseIntegrator(integrator: GaussKronrodIntegrator): void {
+  idle[integrator.components] ??= [];
+  idle[integrator.components].push(integrator);
+}
 
 /** Integrates a scalar function over [a, b] to max(epsAbs, epsRel |I|); returns the value and its error estimate. */
 export function integrateScalar(
@@ -247,16 +258,23 @@ export function integrateScalar(
   epsRel = 1e-13,
   epsAbs = 0,
 ): { value: number; error: number } {
-  scalarIntegrator.integrate(
-    (x, out) => {
-      out[0] = f(x);
-    },
-    a,
-    b,
-    epsRel,
-    epsAbs,
-    scalarValue,
-    scalarError,
-  );
-  return { value: scalarValue[0], error: scalarError[0] };
+  const integrator = borrowIntegrator(1);
+  const scalarValue = new Float64Array(1); // per call (small, on the heap), so nested calls cannot mix results
+  const scalarError = new Float64Array(1);
+  try {
+    integrator.integrate(
+      (x, out) => {
+        out[0] = f(x);
+      },
+      a,
+      b,
+      epsRel,
+      epsAbs,
+      scalarValue,
+      scalarError,
+    );
+    return { value: scalarValue[0], error: scalarError[0] };
+  } finally {
+    releaseIntegrator(integrator);
+  }
 }

@@ -1,7 +1,7 @@
 import type { BackgroundModel } from "./backgroundModel.js";
 import { expansionRateSquared } from "./expansionRateSquared.js";
 import { dominantTermEarly } from "./dominantTerm.js";
-import { GAUSS7, GaussKronrodIntegrator } from "./gaussKronrod.js";
+import { GAUSS7, borrowIntegrator, releaseIntegrator, type GaussKronrodIntegrator } from "./gaussKronrod.js";
 import { NeumaierSum } from "./neumaierSum.js";
 
 /** Relative tolerance asked of every panel integral (the engine promises 1e-10 on the results). */
@@ -51,15 +51,26 @@ function pastIntegrand(model: BackgroundModel): (s: number, out: Float64Array) =
  * the panels are summed with Neumaier compensation. Redshifts must be finite and >= 0; any order.
  */
 /**
- * A panel at most this wide relative to its lower end (in s = sqrt(a)) is one 7-point Gauss rule when asked for:
- * the integrands are analytic with no singularity closer than s = 0, so the rule's error is of order
- * (width / 2s)^14 < 1e-18 here, far below PANEL_REL_TOL.
+ * A panel at most this wide relative to its lower end (in s = sqrt(a)) is one Gauss rule when asked for: the
+ * integrands are analytic with no singularity closer than s = 0, so an m-point rule's error is of order
+ * (width / 2s)^(2m): below 1e-18 for the 7-point rule here, far below PANEL_REL_TOL.
  */
 export const NARROW_PANEL = 0.1;
+/** At most this wide (relative), the 4-point rule is enough: (0.015)^8 < 1e-14. */
+export const VERY_NARROW_PANEL = 0.03;
+
+/** 4-point Gauss-Legendre rule on [-1, 1] (Abramowitz & Stegun 1964, table 25.4). */
+const GAUSS4 = {
+  nodes: [-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526],
+  weights: [0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538],
+} as const;
 
 export interface PastIntegralOptions {
-  /** Narrow panels by one 7-point Gauss rule (no error estimate): for spreads, whose draws need no 1e-13 panels. */
-  narrowPanelsByGauss7?: boolean;
+  /**
+   * Narrow panels by one Gauss rule (4 or 7 points by width; no error estimate): for spreads, whose draws need no
+   * 1e-13 panels.
+   */
+  narrowPanelsByGauss?: boolean;
   /** The indices of the redshifts in ascending order, when the caller has them already (every draw of a spread). */
   ascending?: ArrayLike<number>;
 }
@@ -68,6 +79,20 @@ export function pastIntegrals(
   model: BackgroundModel,
   redshifts: ArrayLike<number>,
   options: PastIntegralOptions = {},
+): PastIntegrals {
+  const vec = borrowIntegrator(2);
+  try {
+    return pastIntegralsWith(vec, model, redshifts, options);
+  } finally {
+    releaseIntegrator(vec);
+  }
+}
+
+function pastIntegralsWith(
+  vec: GaussKronrodIntegrator,
+  model: BackgroundModel,
+  redshifts: ArrayLike<number>,
+  options: PastIntegralOptions,
 ): PastIntegrals {
   const n = redshifts.length;
   let sorted = true;
@@ -89,7 +114,6 @@ export function pastIntegrals(
   }
 
   const f = pastIntegrand(model);
-  const vec = new GaussKronrodIntegrator(2);
   const value = new Float64Array(2);
   const error = new Float64Array(2);
   const panelT = new Float64Array(n);
@@ -106,15 +130,16 @@ export function pastIntegrals(
   for (let k = 0; k < n; k++) {
     const i = order[k];
     const s = 1 / Math.sqrt(1 + redshifts[i]);
-    if (options.narrowPanelsByGauss7 && sHi - s <= NARROW_PANEL * s) {
+    if (options.narrowPanelsByGauss && sHi - s <= NARROW_PANEL * s) {
       const half = (sHi - s) / 2;
       const mid = (sHi + s) / 2;
+      const rule = sHi - s <= VERY_NARROW_PANEL * s ? GAUSS4 : GAUSS7;
       let t = 0;
       let c = 0;
-      for (let j = 0; j < 7; j++) {
-        f(mid + half * GAUSS7.nodes[j], value);
-        t += GAUSS7.weights[j] * value[0];
-        c += GAUSS7.weights[j] * value[1];
+      for (let j = 0; j < rule.nodes.length; j++) {
+        f(mid + half * rule.nodes[j], value);
+        t += rule.weights[j] * value[0];
+        c += rule.weights[j] * value[1];
       }
       value[0] = t * half;
       value[1] = c * half;
@@ -138,21 +163,25 @@ export function pastIntegrals(
     baseT = value[0];
     baseC = value[1];
   } else if (converge.age) {
-    const one = new GaussKronrodIntegrator(1);
+    const one = borrowIntegrator(1);
     const v1 = new Float64Array(1);
     const e1 = new Float64Array(1);
-    one.integrate(
-      (s, out) => {
-        f(s, value);
-        out[0] = value[0];
-      },
-      0,
-      sLow,
-      PANEL_REL_TOL,
-      0,
-      v1,
-      e1,
-    );
+    try {
+      one.integrate(
+        (s, out) => {
+          f(s, value);
+          out[0] = value[0];
+        },
+        0,
+        sLow,
+        PANEL_REL_TOL,
+        0,
+        v1,
+        e1,
+      );
+    } finally {
+      releaseIntegrator(one);
+    }
     baseT = v1[0];
   }
   const upT = new NeumaierSum();

@@ -3,7 +3,7 @@ import { ARCSEC_RAD } from "./constants.js";
 import { hubbleDistanceMpc, hubbleTimeGyr } from "./hubbleScales.js";
 import { curvatureRadiusMpc } from "./curvatureRadius.js";
 import { expansionRateSquared } from "./expansionRateSquared.js";
-import { pastIntegrals, type PastIntegralOptions } from "./pastIntegrals.js";
+import { pastIntegrals, type PastIntegralOptions, type PastIntegrals } from "./pastIntegrals.js";
 import { transverseComovingDistance } from "./transverseComovingDistance.js";
 import { comovingVolumeWithin } from "./comovingVolume.js";
 import { massiveNeutrinoParts } from "./massiveNeutrinoDensity.js";
@@ -64,14 +64,17 @@ export const REDSHIFT_COLUMN_KEYS = [
 export function redshiftTable(
   model: BackgroundModel,
   redshifts: ArrayLike<number>,
-  options: PastIntegralOptions = {},
+  options: PastIntegralOptions & {
+    /** The past integrals at these redshifts (the first redshifts.length of them), when computed already. */
+    past?: PastIntegrals;
+  } = {},
 ): RedshiftColumns {
   const n = redshifts.length;
   const DH = hubbleDistanceMpc(model.H0_km_s_Mpc);
   const tH = hubbleTimeGyr(model.H0_km_s_Mpc);
   const R = curvatureRadiusMpc(model);
   const e2 = expansionRateSquared(model);
-  const past = pastIntegrals(model, redshifts, options);
+  const past = options.past ?? pastIntegrals(model, redshifts, options);
   const col = () => new Float64Array(n);
   const out: RedshiftColumns = {
     z: col(),

@@ -4,9 +4,14 @@ import {
   QuadratureError,
   backgroundSummary,
   baoRatios,
+  curvatureRadiusMpc,
   earlyUniverse,
+  hubbleDistanceMpc,
+  pastIntegrals,
   redshiftTable,
+  transverseComovingDistance,
   type BackgroundModel,
+  type PastIntegrals,
 } from "../engine/index.js";
 import { backgroundOf, outsideSchemaBounds } from "../scenario/modelBackground.js";
 import { inputsWithDraw } from "../scenario/resolveSpread.js";
@@ -92,15 +97,29 @@ export function evaluateInto(
   at: number,
 ): void {
   let p = at;
-  const early = earlyUniverse(bg).values as unknown as Record<string, unknown>;
-  const summary = backgroundSummary(bg).summary as unknown as Record<string, unknown>;
+  // One pass of the past integrals serves everything: the table redshifts, then the grid, then z* when there is one
+  // (for D_M(z*)); today's age and conformal age come out of the same pass.
+  const pass = passRedshiftsOf(where);
+  const n = pass.redshifts.length - 1;
+  let past: PastIntegrals | null = null;
+  const early = earlyUniverse(bg, {
+    transverseComovingDistanceMpc: (zStar) => {
+      pass.redshifts[n] = zStar;
+      past = pastIntegrals(bg, pass.redshifts, { narrowPanelsByGauss: true, ascending: pass.ascendingWith(zStar) });
+      return transverseComovingDistance(
+        hubbleDistanceMpc(bg.H0_km_s_Mpc) * past.comoving[n],
+        bg.geometry,
+        curvatureRadiusMpc(bg),
+      );
+    },
+  }).values as unknown as Record<string, unknown>;
+  const integrals: PastIntegrals =
+    past ?? pastIntegrals(bg, pass.redshifts.subarray(0, n), { narrowPanelsByGauss: true, ascending: pass.ascending });
+  const summary = backgroundSummary(bg, { past: integrals }).summary as unknown as Record<string, unknown>;
   for (const k of layout.summary) out[p++] = num(k in early ? early[k] : summary[k]);
   const rDrag = early.sound_horizon_drag_Mpc as number | null;
-  // One pass over the table redshifts and then the grid: rows 0 .. R-1 of the columns, then R .. R+G-1.
-  const c = redshiftTable(bg, where.merged ?? [...where.redshifts, ...where.grid], {
-    narrowPanelsByGauss7: true,
-    ascending: where.ascending,
-  });
+  // Rows 0 .. R-1 of the columns are the table redshifts, R .. R+G-1 the grid.
+  const c = redshiftTable(bg, pass.redshifts.subarray(0, n), { past: integrals });
   const bao = baoRatios(c, rDrag);
   const columnOf = (k: string) =>
     (k in bao ? bao[k as keyof typeof bao] : c[k as keyof typeof c]) as Float64Array | undefined;
@@ -133,6 +152,48 @@ export function evaluateInto(
     }
     p += points;
   }
+}
+
+interface PassRedshifts {
+  /** The table redshifts, the grid, and one more slot for z*. */
+  redshifts: Float64Array;
+  /** The ascending order of the first n. */
+  ascending: Uint32Array;
+  /** The ascending order of all n + 1, with z at index n (made in place; valid until the next call). */
+  ascendingWith: (z: number) => Uint32Array;
+}
+
+const passes = new WeakMap<DrawContext, PassRedshifts>();
+
+/** The redshift list of a draw's single pass, made once per context (and thread). */
+function passRedshiftsOf(where: DrawContext): PassRedshifts {
+  const known = passes.get(where);
+  if (known) return known;
+  const merged = where.merged ?? [...where.redshifts, ...where.grid];
+  const n = merged.length;
+  const redshifts = new Float64Array(n + 1);
+  redshifts.set(merged);
+  const ascending = where.ascending ?? Uint32Array.from(merged.keys()).sort((i, j) => merged[i] - merged[j]);
+  const withExtra = new Uint32Array(n + 1);
+  const pass: PassRedshifts = {
+    redshifts,
+    ascending,
+    ascendingWith: (z) => {
+      let lo = 0; // the first position whose redshift exceeds z
+      let hi = n;
+      while (lo < hi) {
+        const mid = (lo + hi) >>> 1;
+        if (merged[ascending[mid]] <= z) lo = mid + 1;
+        else hi = mid;
+      }
+      withExtra.set(ascending.subarray(0, lo), 0);
+      withExtra[lo] = n;
+      withExtra.set(ascending.subarray(lo), lo + 1);
+      return withExtra;
+    },
+  };
+  passes.set(where, pass);
+  return pass;
 }
 
 /** Everything a thread needs to evaluate draws of one model (structured-clone safe; buffers may be shared). */

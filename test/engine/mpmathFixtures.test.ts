@@ -67,7 +67,7 @@ describe("engine against mpmath 30-digit fixtures (curved, w0-wa, negative Omega
         const zMax = Math.max(...zs);
         const dense = Array.from({ length: 400 }, (_, i) => Math.expm1((Math.log1p(zMax) * (i + 1)) / 401));
         const all = [...zs, ...dense];
-        const t = redshiftTable(model, all, { narrowPanelsByGauss7: true });
+        const t = redshiftTable(model, all, { narrowPanelsByGauss: true });
         f.redshifts.forEach((row: any, i: number) => {
           for (const key of ROW_KEYS) {
             if (row[key] === null) continue;
