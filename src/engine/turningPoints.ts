@@ -16,6 +16,8 @@ interface Scaled {
   terms(u: number, out: Float64Array): void;
   /** ln a beyond which every other term's share of the dominant one only shrinks. */
   settled: number;
+  /** The power n of the scaling. */
+  power: number;
 }
 
 /**
@@ -39,6 +41,7 @@ function scaled(model: BackgroundModel, late: boolean): Scaled {
   }
   return {
     settled,
+    power: n,
     terms(u, out) {
       const a = Math.exp(u);
       const xa = x * a;
@@ -75,15 +78,29 @@ function scanForZero(model: BackgroundModel, far: number): number | null {
     if (late && dom.power === 3) nuFloor += v.Omega_rel * (FD_NUMBER / FD_ENERGY_MASSLESS) * Math.exp(v.lnY0);
   }
   const dir = late ? 1 : -1;
+  const gridPoint = (i: number) =>
+    i * STEP_NEAR <= NEAR ? dir * i * STEP_NEAR : dir * (NEAR + (i - NEAR / STEP_NEAR) * STEP_FAR);
+  // Going back in time, grid points where E^2 > 0 is already proven are skipped (see provenBeyond below); the
+  // last of them is still evaluated, so a sign change is always bracketed by neighbouring grid points as before.
+  const slope = late ? 0 : earlyLogSlopeBound(model, s.power);
+  let proven = 0;
   let uPrev = 0;
   for (let i = 1; ; i++) {
-    const near = i * STEP_NEAR <= NEAR;
-    const u = near ? dir * i * STEP_NEAR : dir * (NEAR + (i - NEAR / STEP_NEAR) * STEP_FAR);
+    const u = gridPoint(i);
     if (dir * u > dir * far) return null;
+    if (dir * gridPoint(i + 1) < dir * proven) continue;
     s.terms(u, t);
     const v = t[0] + t[1] + t[2] + t[3] + t[4];
     if (!(v > 0)) return v === 0 ? u : Number.isNaN(v) ? null : brentRoot(g, uPrev, u, 0);
     uPrev = u;
+    if (!late) {
+      proven = u + dir * provenBeyond(t, slope);
+      if (dir * proven >= dir * far) return null; // positive all the way: no zero ahead
+      // Jump close to the last grid point before `proven` (the check above skips the rest one by one).
+      const x = dir * proven;
+      const before = x <= NEAR ? Math.floor(x / STEP_NEAR) : NEAR / STEP_NEAR + Math.floor((x - NEAR) / STEP_FAR);
+      if (before - 3 > i) i = before - 3;
+    }
     if (dom.coefficient > 0 && dir * u > dir * s.settled) {
       // E^2 >= (terms of the dominant power, constant in this scaling) - |negative other terms|, and the negative
       // terms' shares only shrink from here: once the first is four times the second, no zero lies ahead.
@@ -98,6 +115,38 @@ function scanForZero(model: BackgroundModel, far: number): number | null {
       if (domPart > 4 * negative) return null;
     }
   }
+}
+
+/**
+ * A bound A on |d ln|term| / d ln a| of every scaled term at a <= 1 going back in time: power terms |n - p|, the CPL
+ * term |p_de + n| + 3|wa| (its exponent's slope is p_de + n + 3 wa a), massive neutrinos between |n - 4| and |n - 3|
+ * (the slope of ln R(y) lies between 0 and 1; a margin of 0.01 covers its interpolation).
+ */
+function earlyLogSlopeBound(model: BackgroundModel, n: number): number {
+  let A = 0;
+  if (model.Omega_r !== 0) A = Math.max(A, Math.abs(n - 4));
+  if (model.Omega_cb !== 0) A = Math.max(A, Math.abs(n - 3));
+  if (model.Omega_k !== 0) A = Math.max(A, Math.abs(n - 2));
+  if (model.Omega_de !== 0) A = Math.max(A, Math.abs(-3 * (1 + model.w0 + model.wa) + n) + 3 * Math.abs(model.wa));
+  if (model.massiveNeutrinos.length > 0) A = Math.max(A, Math.abs(n - 4) + 0.01, Math.abs(n - 3) + 0.01);
+  return A;
+}
+
+/**
+ * How far back in ln a from a point E^2 provably stays positive, given the scaled terms there: the positive ones
+ * sum to P, the negative ones to -N, and each changes by at most a factor e^(A h) over a step h, so E^2 > 0 while
+ * P e^(-A h) > N e^(A h), i.e. h < ln(P / N) / (2 A). Half of that, for rounding; Infinity when nothing is negative.
+ */
+function provenBeyond(t: Float64Array, slope: number): number {
+  let P = 0;
+  let N = 0;
+  for (let j = 0; j < 5; j++) {
+    if (t[j] > 0) P += t[j];
+    else N -= t[j];
+  }
+  if (N === 0) return Infinity;
+  if (!(P > N * (1 + 1e-9)) || slope === 0) return 0;
+  return (0.5 * Math.log(P / N)) / (2 * slope);
 }
 
 function isDarkEnergyDominant(model: BackgroundModel, power: number, late: boolean): boolean {
