@@ -67,6 +67,8 @@ export function redshiftTable(
   options: PastIntegralOptions & {
     /** The past integrals at these redshifts (the first redshifts.length of them), when computed already. */
     past?: PastIntegrals;
+    /** Columns to write into (each redshifts.length long), for a caller that reuses them from model to model. */
+    into?: RedshiftColumns;
   } = {},
 ): RedshiftColumns {
   const n = redshifts.length;
@@ -76,7 +78,7 @@ export function redshiftTable(
   const e2 = expansionRateSquared(model);
   const past = options.past ?? pastIntegrals(model, redshifts, options);
   const col = () => new Float64Array(n);
-  const out: RedshiftColumns = {
+  const out: RedshiftColumns = options.into ?? {
     z: col(),
     H_km_s_Mpc: col(),
     H_over_1pz_km_s_Mpc: col(),

@@ -1,6 +1,7 @@
 import type { BackgroundModel } from "./backgroundModel.js";
 import { dominantTermEarly, dominantTermLate } from "./dominantTerm.js";
 import { brentRoot } from "./brentRoot.js";
+import { positiveReach } from "./scanForSign.js";
 import { FD_ENERGY_MASSLESS, FD_NUMBER, lnEnergyRatio } from "./fermiDiracEnergy.js";
 
 // ln a ranges scanned for E^2 = 0. The scan works with E^2 divided by the magnitude of its asymptotically dominant
@@ -132,11 +133,7 @@ function earlyLogSlopeBound(model: BackgroundModel, n: number): number {
   return A;
 }
 
-/**
- * How far back in ln a from a point E^2 provably stays positive, given the scaled terms there: the positive ones
- * sum to P, the negative ones to -N, and each changes by at most a factor e^(A h) over a step h, so E^2 > 0 while
- * P e^(-A h) > N e^(A h), i.e. h < ln(P / N) / (2 A). Half of that, for rounding; Infinity when nothing is negative.
- */
+/** How far back in ln a from a point E^2 provably stays positive, given its scaled terms there (positiveReach). */
 function provenBeyond(t: Float64Array, slope: number): number {
   let P = 0;
   let N = 0;
@@ -144,9 +141,7 @@ function provenBeyond(t: Float64Array, slope: number): number {
     if (t[j] > 0) P += t[j];
     else N -= t[j];
   }
-  if (N === 0) return Infinity;
-  if (!(P > N * (1 + 1e-9)) || slope === 0) return 0;
-  return (0.5 * Math.log(P / N)) / (2 * slope);
+  return positiveReach(P, N, slope);
 }
 
 function isDarkEnergyDominant(model: BackgroundModel, power: number, late: boolean): boolean {

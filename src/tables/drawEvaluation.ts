@@ -12,6 +12,7 @@ import {
   transverseComovingDistance,
   type BackgroundModel,
   type PastIntegrals,
+  type RedshiftColumns,
 } from "../engine/index.js";
 import { backgroundOf, outsideSchemaBounds } from "../scenario/modelBackground.js";
 import { inputsWithDraw } from "../scenario/resolveSpread.js";
@@ -119,7 +120,8 @@ export function evaluateInto(
   for (const k of layout.summary) out[p++] = num(k in early ? early[k] : summary[k]);
   const rDrag = early.sound_horizon_drag_Mpc as number | null;
   // Rows 0 .. R-1 of the columns are the table redshifts, R .. R+G-1 the grid.
-  const c = redshiftTable(bg, pass.redshifts.subarray(0, n), { past: integrals });
+  const c = redshiftTable(bg, pass.redshifts.subarray(0, n), { past: integrals, into: pass.columns });
+  pass.columns = c; // made by the first draw, written over by the next
   const bao = baoRatios(c, rDrag);
   const columnOf = (k: string) =>
     (k in bao ? bao[k as keyof typeof bao] : c[k as keyof typeof c]) as Float64Array | undefined;
@@ -161,6 +163,8 @@ interface PassRedshifts {
   ascending: Uint32Array;
   /** The ascending order of all n + 1, with z at index n (made in place; valid until the next call). */
   ascendingWith: (z: number) => Uint32Array;
+  /** The columns of the draws' tables, written over by each draw on this thread. */
+  columns?: RedshiftColumns;
 }
 
 const passes = new WeakMap<DrawContext, PassRedshifts>();

@@ -2,7 +2,9 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import {
   backgroundSummary,
+  accelerationOnsetRedshift,
   bounceScaleFactor,
+  decelerationParameter,
   expansionRateSquared,
   makeBackgroundModel,
   maximumScaleFactor,
@@ -213,5 +215,65 @@ describe("the bounce search skips only grid points where E^2 > 0 is proven", () 
     );
     console.log(`bounces found: ${bounces} of 1500 models`);
     expect(bounces).toBeGreaterThan(20); // the sample really exercises bounces
+  });
+});
+
+describe("the acceleration-onset search skips only grid points where acceleration is proven", () => {
+  it("finds the same onset as a plain scan of the sign of q(a) on the same grid (constant w, neutrinos or not)", () => {
+    let onsets = 0;
+    fc.assert(
+      fc.property(
+        fc.record({
+          Om: fc.double({ min: 0.01, max: 1, noNaN: true }),
+          Ok: fc.double({ min: -0.3, max: 0.3, noNaN: true }),
+          w0: fc.double({ min: -2, max: -0.4, noNaN: true }),
+          nu: fc.boolean(),
+        }),
+        (p) => {
+          let m: BackgroundModel;
+          try {
+            m = makeBackgroundModel({
+              H0_km_s_Mpc: 70,
+              Omega_m: p.Om,
+              curvature: { kind: "Omega_k", Omega_k: p.Ok },
+              w0: p.w0,
+              wa: 0,
+              radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
+              m_nu_eV: p.nu ? [0.06] : [],
+            });
+          } catch {
+            return;
+          }
+          if (bounceScaleFactor(m) !== null || !(decelerationParameter(m, 1) < 0)) return;
+          // Reference: -q at every grid point of ln a (0.005 to -12, then 0.05 to -170), bisecting the first sign change.
+          const g = (u: number) => -decelerationParameter(m, Math.exp(u));
+          let plain: number | null = null;
+          let prev = 0;
+          for (let i = 1; plain === null; i++) {
+            const u = i <= 2400 ? -i * 0.005 : -(12 + (i - 2400) * 0.05);
+            if (u < -170) break;
+            if (!(g(u) > 0)) {
+              let hi = prev;
+              let lo = u;
+              for (let k = 0; k < 200 && hi - lo > 1e-15; k++) {
+                const mid = (hi + lo) / 2;
+                if (g(mid) > 0) hi = mid;
+                else lo = mid;
+              }
+              plain = Math.expm1(-(hi + lo) / 2);
+            }
+            prev = u;
+          }
+          const found = accelerationOnsetRedshift(m);
+          if (plain === null) expect(found).toBeNull();
+          else {
+            onsets++;
+            expect(relDiff(found!, plain)).toBeLessThan(1e-12);
+          }
+        },
+      ),
+      { numRuns: 300 },
+    );
+    expect(onsets).toBeGreaterThan(100);
   });
 });
