@@ -2,7 +2,7 @@ import type { BackgroundModel } from "./backgroundModel.js";
 import { expansionRateSquared } from "./expansionRateSquared.js";
 import { hubbleDistanceMpc } from "./hubbleScales.js";
 import { integrateScalar } from "./gaussKronrod.js";
-import { PANEL_REL_TOL } from "./pastIntegrals.js";
+import { GAUSS4, PANEL_REL_TOL, VERY_NARROW_PANEL } from "./pastIntegrals.js";
 import { redshiftTable } from "./redshiftTable.js";
 import { matterRadiationEqualityRedshift } from "./equalityRedshifts.js";
 
@@ -35,21 +35,39 @@ export function dragSoundHorizonAubourgMpc(omega_cb: number, omega_b: number, om
  * s = sqrt(a) from the big bang.
  */
 export function soundHorizonMpc(model: BackgroundModel, z: number): number {
+  const integrand = soundHorizonIntegrand(model);
+  const value = integrateScalar(integrand, 0, 1 / Math.sqrt(1 + z), PANEL_REL_TOL).value;
+  return hubbleDistanceMpc(model.H0_km_s_Mpc) * value;
+}
+
+/** The integrand of soundHorizonMpc in s = sqrt(a), in units of D_H. */
+function soundHorizonIntegrand(model: BackgroundModel): (s: number) => number {
   if (model.Omega_b === null || model.Omega_gamma === 0)
     throw new RangeError("the sound horizon needs baryons and photons");
   const e2 = expansionRateSquared(model);
   const k = (3 * model.Omega_b) / (4 * model.Omega_gamma);
-  const s1 = 1 / Math.sqrt(1 + z);
-  const value = integrateScalar(
-    (s) => {
-      const a = s * s;
-      return 2 / (s * a * Math.sqrt(e2(a)) * Math.sqrt(3 * (1 + k * a)));
-    },
-    0,
-    s1,
-    PANEL_REL_TOL,
-  ).value;
-  return hubbleDistanceMpc(model.H0_km_s_Mpc) * value;
+  return (s) => {
+    const a = s * s;
+    return 2 / (s * a * Math.sqrt(e2(a)) * Math.sqrt(3 * (1 + k * a)));
+  };
+}
+
+/**
+ * The sound horizon at z2 < z1 from the one at z1: r(z2) = r(z1) + int_{s1}^{s2} (soundHorizonMpc's integrand), the
+ * panel by the 4-point Gauss rule when at most VERY_NARROW_PANEL wide (relative), else adaptive (for spreads' draws).
+ */
+function soundHorizonOnwardMpc(model: BackgroundModel, r1Mpc: number, z1: number, z2: number): number {
+  const f = soundHorizonIntegrand(model);
+  const s1 = 1 / Math.sqrt(1 + z1);
+  const s2 = 1 / Math.sqrt(1 + z2);
+  let panel = 0;
+  if (s2 - s1 <= VERY_NARROW_PANEL * s1) {
+    const half = (s2 - s1) / 2;
+    const mid = (s2 + s1) / 2;
+    for (let j = 0; j < 4; j++) panel += GAUSS4.weights[j] * f(mid + half * GAUSS4.nodes[j]);
+    panel *= half;
+  } else panel = integrateScalar(f, s1, s2, PANEL_REL_TOL).value;
+  return r1Mpc + hubbleDistanceMpc(model.H0_km_s_Mpc) * panel;
 }
 
 export interface EarlyUniverse {
@@ -73,6 +91,8 @@ export function earlyUniverse(
   options: {
     /** D_M at a redshift in Mpc, when the caller computes it with other redshifts in one pass (a spread's draws). */
     transverseComovingDistanceMpc?: (z: number) => number;
+    /** The integral r_drag as r* plus the stretch from z* to z_drag (soundHorizonOnwardMpc), for spreads' draws. */
+    onwardFromRecombination?: boolean;
   } = {},
 ): { values: EarlyUniverse; note: string | null } {
   const DH = hubbleDistanceMpc(model.H0_km_s_Mpc);
@@ -114,7 +134,10 @@ export function earlyUniverse(
       z_drag: zDrag,
       sound_horizon_recombination_Mpc: rStar,
       sound_horizon_drag_Mpc: dragSoundHorizonAubourgMpc(model.Omega_cb * h2, omega_b, model.Omega_nu_massive * h2),
-      sound_horizon_drag_integral_Mpc: soundHorizonMpc(model, zDrag),
+      sound_horizon_drag_integral_Mpc:
+        options.onwardFromRecombination && zDrag < zStar
+          ? soundHorizonOnwardMpc(model, rStar, zStar, zDrag)
+          : soundHorizonMpc(model, zDrag),
       theta_star_100: (100 * rStar) / DMstar,
       transverse_comoving_distance_recombination_Mpc: DMstar,
       k_eq_1_Mpc: kEq,

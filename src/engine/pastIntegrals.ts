@@ -60,7 +60,7 @@ export const NARROW_PANEL = 0.1;
 export const VERY_NARROW_PANEL = 0.03;
 
 /** 4-point Gauss-Legendre rule on [-1, 1] (Abramowitz & Stegun 1964, table 25.4). */
-const GAUSS4 = {
+export const GAUSS4 = {
   nodes: [-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526],
   weights: [0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538],
 } as const;

@@ -104,6 +104,7 @@ export function evaluateInto(
   const n = pass.redshifts.length - 1;
   let past: PastIntegrals | null = null;
   const early = earlyUniverse(bg, {
+    onwardFromRecombination: true,
     transverseComovingDistanceMpc: (zStar) => {
       pass.redshifts[n] = zStar;
       past = pastIntegrals(bg, pass.redshifts, { narrowPanelsByGauss: true, ascending: pass.ascendingWith(zStar) });

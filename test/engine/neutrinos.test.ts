@@ -82,6 +82,27 @@ describe("massive neutrinos in the background", () => {
     expect(relErr(e.sound_horizon_drag_Mpc!, 147.09)).toBeLessThan(0.001);
     expect(relErr(s.z_matter_radiation_equality!, 3402)).toBeLessThan(0.002);
   });
+  it("the draws' shortcuts (r_drag onward from z*, D_M(z*) given) agree with the direct integrals to 1e-12", () => {
+    // The draws of a spread take r_drag's integral as r* plus the stretch z* -> z_drag, and D_M(z*) from their own
+    // pass of past integrals; here D_M(z*) is handed the direct value, so only the onward integral is new.
+    for (const masses of [[], [0.06], [0.3, 0.3, 0.3]]) {
+      const m = planck(3.044, masses);
+      const direct = earlyUniverse(m).values;
+      let asked = 0;
+      const shortcut = earlyUniverse(m, {
+        onwardFromRecombination: true,
+        transverseComovingDistanceMpc: (z) => {
+          asked = z;
+          return direct.transverse_comoving_distance_recombination_Mpc!;
+        },
+      }).values;
+      expect(asked).toBe(direct.z_recombination);
+      expect(relErr(shortcut.sound_horizon_drag_integral_Mpc!, direct.sound_horizon_drag_integral_Mpc!)).toBeLessThan(
+        1e-12,
+      );
+      expect(shortcut.theta_star_100).toBe(direct.theta_star_100);
+    }
+  });
   it("without baryons the early-universe quantities are null with a note", () => {
     const m = makeBackgroundModel({
       H0_km_s_Mpc: 70,
