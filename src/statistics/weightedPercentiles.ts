@@ -115,19 +115,19 @@ export class SortingPermutation {
     this.start = new Int32Array(n + 1);
   }
 
-  /** Reorders `order` so that values[order[0]] <= values[order[1]] <= ...; returns it. */
-  sort(values: ArrayLike<number>): Uint32Array {
-    if (!this.insertion(values, 4 * this.n)) {
-      if (!this.distribute(values) || !this.insertion(values, 16 * this.n))
-        this.order.sort((i, j) => values[i] - values[j]);
+  /** Reorders `order` so that values[at + order[0]] <= values[at + order[1]] <= ...; returns it. */
+  sort(values: ArrayLike<number>, at = 0): Uint32Array {
+    if (!this.insertion(values, at, 4 * this.n)) {
+      if (!this.distribute(values, at) || !this.insertion(values, at, 16 * this.n))
+        this.order.sort((i, j) => values[at + i] - values[at + j]);
     }
     return this.order;
   }
 
   /** Insertion sort of `order` by the values; gives up (false) after `budget` moves, leaving a permutation. */
-  private insertion(values: ArrayLike<number>, budget: number): boolean {
+  private insertion(values: ArrayLike<number>, at: number, budget: number): boolean {
     const { order, keys, n } = this;
-    for (let k = 0; k < n; k++) keys[k] = values[order[k]]; // moved with the indices: sequential comparisons
+    for (let k = 0; k < n; k++) keys[k] = values[at + order[k]]; // moved with the indices: sequential comparisons
     let moves = 0;
     for (let i = 1; i < n; i++) {
       const x = keys[i];
@@ -151,12 +151,12 @@ export class SortingPermutation {
    * Orders the indices by bucket (n equal-width buckets between the minimum and maximum, a monotone map); false
    * when the range overflows (then nothing is changed).
    */
-  private distribute(values: ArrayLike<number>): boolean {
+  private distribute(values: ArrayLike<number>, at: number): boolean {
     const n = this.n;
-    let min = values[0];
-    let max = values[0];
+    let min = values[at];
+    let max = values[at];
     for (let i = 1; i < n; i++) {
-      const x = values[i];
+      const x = values[at + i];
       if (x < min) min = x;
       else if (x > max) max = x;
     }
@@ -165,10 +165,10 @@ export class SortingPermutation {
     const scale = n / (max - min);
     const { counts, start, order } = this;
     counts.fill(0);
-    for (let i = 0; i < n; i++) counts[Math.min(n - 1, Math.floor((values[i] - min) * scale)) + 1]++;
+    for (let i = 0; i < n; i++) counts[Math.min(n - 1, Math.floor((values[at + i] - min) * scale)) + 1]++;
     for (let b = 0; b < n; b++) counts[b + 1] += counts[b];
     start.set(counts);
-    for (let i = 0; i < n; i++) order[start[Math.min(n - 1, Math.floor((values[i] - min) * scale))]++] = i;
+    for (let i = 0; i < n; i++) order[start[Math.min(n - 1, Math.floor((values[at + i] - min) * scale))]++] = i;
     return true;
   }
 }

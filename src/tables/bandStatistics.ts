@@ -42,6 +42,7 @@ export function computeClaimedBands(job: BandJob): void {
   const n = job.accepted.length;
   const { values, Q, accepted, weights } = job;
   const block = new Float64Array(CHUNK * n);
+  const nans = new Int32Array(CHUNK);
   const sorted = new Float64Array(n);
   const cumulative = new Float64Array(n);
   const order = new Uint32Array(n);
@@ -61,25 +62,30 @@ export function computeClaimedBands(job: BandJob): void {
     if (start >= Q) return;
     const end = Math.min(Q, start + CHUNK);
     const width = end - start;
-    // Quantity-major copy of the claimed stretch: block[j * n + d] is draw d's quantity start + j.
+    // Quantity-major copy of the claimed stretch: block[j * n + d] is draw d's quantity start + j; NaNs counted.
+    nans.fill(0);
     for (let d = 0; d < n; d++) {
       const from = accepted[d] * Q + start;
-      for (let j = 0; j < width; j++) block[j * n + d] = values[from + j];
+      for (let j = 0; j < width; j++) {
+        const v = values[from + j];
+        block[j * n + d] = v;
+        if (v !== v) nans[j]++;
+      }
     }
     for (let q = start; q < end; q++) {
-      const column = block.subarray((q - start) * n, (q - start + 1) * n);
-      let missing = 0;
-      for (let d = 0; d < n; d++) if (Number.isNaN(column[d])) missing++;
+      const at = (q - start) * n;
+      const missing = nans[q - start];
       job.missing[q] = missing;
       if (n === 0 || missing > 0) continue;
       if (weights === null) {
-        const byValue = permutation.sort(column);
+        const byValue = permutation.sort(block, at);
         for (let j = 0; j < P; j++) {
           const r = ranksOf[j];
-          job.q_[q * P + j] = column[byValue[r.at]];
-          job.e_[q * P + j] = (column[byValue[r.hi]] - column[byValue[r.lo]]) / 2;
+          job.q_[q * P + j] = block[at + byValue[r.at]];
+          job.e_[q * P + j] = (block[at + byValue[r.hi]] - block[at + byValue[r.lo]]) / 2;
         }
       } else {
+        const column = block.subarray(at, at + n);
         const c = sortWeighted(column, weights, order, sorted, cumulative);
         for (let j = 0; j < P; j++) {
           job.q_[q * P + j] = weightedPercentile(sorted, c, SPREAD_PERCENTILES[j]);

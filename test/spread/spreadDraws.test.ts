@@ -122,7 +122,12 @@ describe("statistics building blocks", () => {
           base.map((x) => -x),
           Float64Array.from({ length: n }, () => shape(rng.nextOpenUnit())),
         ];
-        for (const column of columns) checkSorted(column, sorter.sort(column));
+        for (const column of columns) {
+          checkSorted(column, sorter.sort(column));
+          // The same column inside a larger buffer, addressed by its offset (as the band blocks are).
+          const padded = Float64Array.from([Number.NaN, -Infinity, ...column, Infinity]);
+          checkSorted(column, sorter.sort(padded, 2));
+        }
       }
   });
 
