@@ -69,7 +69,7 @@ export function computeClaimedBands(job: BandJob): void {
       for (let j = 0; j < width; j++) {
         const v = values[from + j];
         block[j * n + d] = v;
-        if (v !== v) nans[j]++;
+        if (Number.isNaN(v)) nans[j]++;
       }
     }
     for (let q = start; q < end; q++) {
