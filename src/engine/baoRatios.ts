@@ -7,9 +7,10 @@ export type BaoColumns = Record<(typeof BAO_KEYS)[number], Float64Array>;
  * The distance ratios BAO analyses quote: D_M / r_drag, D_H / r_drag with D_H(z) = c / H(z), and D_V / r_drag with
  * D_V = [z D_M^2 D_H]^(1/3) (Eisenstein et al. 2005, ApJ 633, 560, eq. 2). NaN everywhere when r_drag is null.
  */
-export function baoRatios(columns: RedshiftColumns, rDragMpc: number | null): BaoColumns {
+export function baoRatios(columns: RedshiftColumns, rDragMpc: number | null, into?: BaoColumns): BaoColumns {
   const n = columns.z.length;
-  const out: BaoColumns = {
+  // `into`: columns to write over (each n long), for a caller that reuses them from model to model.
+  const out: BaoColumns = into ?? {
     D_M_over_r_drag: new Float64Array(n),
     D_H_over_r_drag: new Float64Array(n),
     D_V_over_r_drag: new Float64Array(n),

@@ -50,18 +50,35 @@ export function matterDarkEnergyEqualityRedshift(model: BackgroundModel): number
   const h0 = h(0);
   if (h0 === 0) return 0;
   const step = 0.005;
-  // Outward in both directions at once, each side's last value kept (every grid point evaluated once).
+  // Outward in both directions at once, each side's last value kept. |dh/du| is at most the dark energy's log-slope
+  // bound plus 3 (matter-like density falls as a^-3, neutrinos' rho - 3p between a^-2 and a^-3; 0.01 spare), so from
+  // a value h the sign cannot change within |h| / bound: grid points inside half that are skipped, except the last
+  // (so a crossing is bracketed by the same neighbours). The future side skips only for constant w (the CPL slope
+  // 3 wa a grows without bound there).
+  const pastBound = Math.abs(3 * (1 + w0 + wa)) + 3 * Math.abs(wa) + 3.01;
+  const futureBound = wa === 0 ? Math.abs(3 * (1 + w0)) + 3.01 : Infinity;
+  const reach = (value: number, bound: number) => (Number.isFinite(value) ? (0.5 * Math.abs(value)) / bound : 0);
   let past = h0;
   let future = h0;
+  let pastProven = reach(h0, pastBound);
+  let futureProven = reach(h0, futureBound);
   for (let i = 1; i * step <= 30; i++) {
-    const uPast = -1 * i * step;
-    const hPast = h(uPast);
-    if (past > 0 !== hPast > 0 || hPast === 0) return Math.expm1(-brentRoot(h, -1 * (i - 1) * step, uPast, 0));
-    past = hPast;
-    const uFuture = 1 * i * step;
-    const hFuture = h(uFuture);
-    if (future > 0 !== hFuture > 0 || hFuture === 0) return Math.expm1(-brentRoot(h, 1 * (i - 1) * step, uFuture, 0));
-    future = hFuture;
+    const next = (i + 1) * step;
+    if (!(next < pastProven)) {
+      const uPast = -1 * i * step;
+      const hPast = h(uPast);
+      if (past > 0 !== hPast > 0 || hPast === 0) return Math.expm1(-brentRoot(h, -1 * (i - 1) * step, uPast, 0));
+      past = hPast;
+      pastProven = i * step + reach(hPast, pastBound);
+    }
+    if (!(next < futureProven)) {
+      const uFuture = 1 * i * step;
+      const hFuture = h(uFuture);
+      if (future > 0 !== hFuture > 0 || hFuture === 0) return Math.expm1(-brentRoot(h, 1 * (i - 1) * step, uFuture, 0));
+      future = hFuture;
+      futureProven = i * step + reach(hFuture, futureBound);
+    }
+    if (pastProven > 30 + step && futureProven > 30 + step) return null; // no crossing within the range
   }
   return null;
 }

@@ -11,6 +11,7 @@ import {
   redshiftTable,
   transverseComovingDistance,
   type BackgroundModel,
+  type BaoColumns,
   type PastIntegrals,
   type RedshiftColumns,
 } from "../engine/index.js";
@@ -123,7 +124,8 @@ export function evaluateInto(
   // Rows 0 .. R-1 of the columns are the table redshifts, R .. R+G-1 the grid.
   const c = redshiftTable(bg, pass.redshifts.subarray(0, n), { past: integrals, into: pass.columns });
   pass.columns = c; // made by the first draw, written over by the next
-  const bao = baoRatios(c, rDrag);
+  const bao = baoRatios(c, rDrag, pass.bao);
+  pass.bao = bao;
   const columnOf = (k: string) =>
     (k in bao ? bao[k as keyof typeof bao] : c[k as keyof typeof c]) as Float64Array | undefined;
   const R = where.redshifts.length;
@@ -166,6 +168,7 @@ interface PassRedshifts {
   ascendingWith: (z: number) => Uint32Array;
   /** The columns of the draws' tables, written over by each draw on this thread. */
   columns?: RedshiftColumns;
+  bao?: BaoColumns;
 }
 
 const passes = new WeakMap<DrawContext, PassRedshifts>();

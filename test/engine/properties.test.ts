@@ -4,7 +4,10 @@ import {
   backgroundSummary,
   accelerationOnsetRedshift,
   bounceScaleFactor,
+  darkEnergyDensityRatio,
   decelerationParameter,
+  massiveNeutrinoParts,
+  matterDarkEnergyEqualityRedshift,
   expansionRateSquared,
   makeBackgroundModel,
   maximumScaleFactor,
@@ -275,5 +278,81 @@ describe("the acceleration-onset search skips only grid points where acceleratio
       { numRuns: 300 },
     );
     expect(onsets).toBeGreaterThan(100);
+  });
+});
+
+describe("the matter-dark energy equality search skips only grid points whose sign is proven", () => {
+  it("finds the crossing nearest today in ln a as a plain scan of every grid point does (CPL, curvature, neutrinos)", () => {
+    let crossings = 0;
+    let tried = 0;
+    fc.assert(
+      fc.property(
+        fc.record({
+          Om: fc.double({ min: 0.05, max: 0.9, noNaN: true }),
+          Ok: fc.double({ min: -0.3, max: 0.3, noNaN: true }),
+          w0: fc.double({ min: -1.8, max: -0.4, noNaN: true }),
+          wa: fc.oneof(fc.constant(0), fc.double({ min: -1.5, max: 0.8, noNaN: true })),
+          nu: fc.boolean(),
+        }),
+        (p) => {
+          let m: BackgroundModel;
+          try {
+            m = makeBackgroundModel({
+              H0_km_s_Mpc: 70,
+              Omega_m: p.Om,
+              curvature: { kind: "Omega_k", Omega_k: p.Ok },
+              w0: p.w0,
+              wa: p.wa,
+              radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
+              m_nu_eV: p.nu ? [0.06] : [],
+            });
+          } catch {
+            return;
+          }
+          if (!(m.Omega_de > 0)) return;
+          tried++;
+          // Reference: ln(rho_de / rho_m) (CPL density; matter = cold matter + baryons + neutrinos' rho - 3p) at every
+          // grid point, 0.005 apart, past side first, out to |ln a| = 30; the first sign change bisected.
+          const h = (u: number) => {
+            const a = Math.exp(u);
+            const nu = massiveNeutrinoParts(m, a);
+            return (
+              Math.log(m.Omega_de * darkEnergyDensityRatio(a, m.w0, m.wa)) -
+              Math.log(m.Omega_cb / a ** 3 + nu.rho - nu.threeP)
+            );
+          };
+          const bisect = (inside: number, outside: number) => {
+            const s = h(inside) > 0;
+            for (let k = 0; k < 200; k++) {
+              const mid = (inside + outside) / 2;
+              if (mid === inside || mid === outside) break;
+              if (h(mid) > 0 === s) inside = mid;
+              else outside = mid;
+            }
+            return Math.expm1(-(inside + outside) / 2);
+          };
+          let plain: number | null = null;
+          const h0 = h(0);
+          for (let i = 1; plain === null && i * 0.005 <= 30; i++) {
+            for (const dir of [-1, 1]) {
+              if (plain !== null) break;
+              const before = dir * (i - 1) * 0.005;
+              const u = dir * i * 0.005;
+              if ((i === 1 ? h0 : h(before)) > 0 !== h(u) > 0) plain = bisect(before, u);
+            }
+          }
+          const found = matterDarkEnergyEqualityRedshift(m);
+          if (plain === null) expect(found).toBeNull();
+          else {
+            crossings++;
+            expect(found).not.toBeNull();
+            expect(Math.abs(found! - plain)).toBeLessThan(1e-9 * (1 + Math.abs(plain)));
+          }
+        },
+      ),
+      { numRuns: 200 },
+    );
+    console.log(`equality crossings: ${crossings} of ${tried} models with dark energy`);
+    expect(crossings).toBeGreaterThan(100);
   });
 });
