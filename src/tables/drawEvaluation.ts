@@ -140,14 +140,16 @@ export function evaluateInto(
     }
     p += R * K;
   }
-  targetRows(bg, where.targets).forEach((row, i) => {
-    const r = row as unknown as Record<string, unknown>;
-    for (const k of layout.targetKeys[i]) out[p++] = num(r[k]);
-  });
-  surveyRows(bg, where.surveys).forEach((row, i) => {
-    const r = row as unknown as Record<string, unknown>;
-    for (const k of layout.surveyKeys[i]) out[p++] = num(r[k]);
-  });
+  // Plain loops, and none without targets or shells: calling forEach on row arrays of changing shapes made the
+  // optimised code of this function bail out on about one draw in ten.
+  if (where.targets.length > 0) {
+    const rows = targetRows(bg, where.targets) as unknown as Record<string, unknown>[];
+    for (let i = 0; i < rows.length; i++) for (const k of layout.targetKeys[i]) out[p++] = num(rows[i][k]);
+  }
+  if (where.surveys.length > 0) {
+    const rows = surveyRows(bg, where.surveys) as unknown as Record<string, unknown>[];
+    for (let i = 0; i < rows.length; i++) for (const k of layout.surveyKeys[i]) out[p++] = num(rows[i][k]);
+  }
   const points = where.grid.length;
   for (const k of layout.gridKeys) {
     const column = columnOf(k)!; // a plain loop: cheaper than a subarray view and a block copy for 200 values
