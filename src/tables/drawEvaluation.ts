@@ -28,10 +28,6 @@ export interface DrawContext {
   grid: readonly number[];
   targets: readonly ResolvedTarget[];
   surveys: readonly ResolvedSurvey[];
-  /** The table redshifts, then the grid, as one list for a single engine pass; made from them when absent. */
-  merged?: number[];
-  /** The indices of `merged` in ascending redshift order (pastIntegrals' option), when made already. */
-  ascending?: Uint32Array;
 }
 
 /** The keys of a model's numeric quantities, in the order of its vector: summary, rows, targets, shells, grid. */
@@ -88,8 +84,9 @@ export function layoutKeysOf(nominal: ModelTables, gridPoints: number): LayoutKe
 /**
  * Writes a drawn background's quantities into out[at ...] in the layout's order, by the engine calls behind a
  * model's own tables (src/tables/buildTablesDocument.ts) without building row objects; NaN where a value is null.
- * The per-redshift integrals take narrow panels by one 7-point Gauss rule (pastIntegrals' option): a draw needs
- * no 1e-13 panels, and on a dense grid they still meet the mpmath fixtures to 1e-10 (test/engine/mpmathFixtures).
+ * The per-redshift integrals take narrow panels by one 4- or 7-point Gauss rule (pastIntegrals' option): a draw
+ * needs no 1e-13 panels, and on a dense grid they still meet the mpmath fixtures to 1e-10
+ * (test/engine/mpmathFixtures). D_M(z*) and today's age come from the same pass; r_drag's integral continues from r*.
  */
 export function evaluateInto(
   bg: BackgroundModel,
@@ -179,11 +176,11 @@ const passes = new WeakMap<DrawContext, PassRedshifts>();
 function passRedshiftsOf(where: DrawContext): PassRedshifts {
   const known = passes.get(where);
   if (known) return known;
-  const merged = where.merged ?? [...where.redshifts, ...where.grid];
+  const merged = [...where.redshifts, ...where.grid];
   const n = merged.length;
   const redshifts = new Float64Array(n + 1);
   redshifts.set(merged);
-  const ascending = where.ascending ?? Uint32Array.from(merged.keys()).sort((i, j) => merged[i] - merged[j]);
+  const ascending = Uint32Array.from(merged.keys()).sort((i, j) => merged[i] - merged[j]);
   const withExtra = new Uint32Array(n + 1);
   const pass: PassRedshifts = {
     redshifts,

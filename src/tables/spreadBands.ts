@@ -88,8 +88,6 @@ export function spreadBands(
   const spread = model.spread!;
   const L = layoutKeysOf(nominal, where.grid.length);
   const Q = L.size;
-  const merged = [...where.redshifts, ...where.grid];
-  const ascending = Uint32Array.from(merged.keys()).sort((i, j) => merged[i] - merged[j]);
   const { out: values, status } = evaluateDraws(
     {
       inputs: model.inputs,
@@ -97,7 +95,7 @@ export function spreadBands(
       values: draws.values,
       weights: draws.weights,
       count: draws.count,
-      where: { ...where, merged, ascending },
+      where,
       layout: L,
     },
     where.redshifts.length + where.grid.length,

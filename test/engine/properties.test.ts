@@ -154,6 +154,29 @@ describe("curved results approach the flat ones continuously as Omega_k -> 0 fro
   });
 });
 
+/** H0 = 70 with photons and N_eff = 3.044, optionally one 0.06 eV neutrino; null where makeBackgroundModel refuses. */
+function thermalModel(
+  Omega_m: number,
+  curvature: { kind: "Omega_k"; Omega_k: number } | { kind: "Omega_de"; Omega_de: number },
+  w0: number,
+  wa: number,
+  neutrino: boolean,
+): BackgroundModel | null {
+  try {
+    return makeBackgroundModel({
+      H0_km_s_Mpc: 70,
+      Omega_m,
+      curvature,
+      w0,
+      wa,
+      radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
+      m_nu_eV: neutrino ? [0.06] : [],
+    });
+  } catch {
+    return null; // refused by the engine's own rules (Omega_m below the neutrinos' share)
+  }
+}
+
 describe("the bounce search skips only grid points where E^2 > 0 is proven", () => {
   // Reference: a plain walk back over the same grid of ln a (step 0.005 to ln a = -12, then 0.05), evaluating E^2
   // itself (Friedmann equation) at every point and bisecting the first sign change. Stops at ln a = -60, where
@@ -189,20 +212,8 @@ describe("the bounce search skips only grid points where E^2 > 0 is proven", () 
           nu: fc.boolean(),
         }),
         (p) => {
-          let m: BackgroundModel;
-          try {
-            m = makeBackgroundModel({
-              H0_km_s_Mpc: 70,
-              Omega_m: p.Om,
-              curvature: { kind: "Omega_de", Omega_de: p.Ode },
-              w0: p.w0,
-              wa: p.wa,
-              radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
-              m_nu_eV: p.nu ? [0.06] : [],
-            });
-          } catch {
-            return; // refused by the resolver's rules (Omega_m below the neutrinos' share)
-          }
+          const m = thermalModel(p.Om, { kind: "Omega_de", Omega_de: p.Ode }, p.w0, p.wa, p.nu);
+          if (m === null) return;
           const found = bounceScaleFactor(m);
           if (found !== null && found < Math.exp(-60)) return;
           const plain = plainBounce(m);
@@ -233,20 +244,8 @@ describe("the acceleration-onset search skips only grid points where acceleratio
           nu: fc.boolean(),
         }),
         (p) => {
-          let m: BackgroundModel;
-          try {
-            m = makeBackgroundModel({
-              H0_km_s_Mpc: 70,
-              Omega_m: p.Om,
-              curvature: { kind: "Omega_k", Omega_k: p.Ok },
-              w0: p.w0,
-              wa: 0,
-              radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
-              m_nu_eV: p.nu ? [0.06] : [],
-            });
-          } catch {
-            return;
-          }
+          const m = thermalModel(p.Om, { kind: "Omega_k", Omega_k: p.Ok }, p.w0, 0, p.nu);
+          if (m === null) return;
           if (bounceScaleFactor(m) !== null || !(decelerationParameter(m, 1) < 0)) return;
           // Reference: -q at every grid point of ln a (0.005 to -12, then 0.05 to -170), bisecting the first sign change.
           const g = (u: number) => -decelerationParameter(m, Math.exp(u));
@@ -295,20 +294,8 @@ describe("the matter-dark energy equality search skips only grid points whose si
           nu: fc.boolean(),
         }),
         (p) => {
-          let m: BackgroundModel;
-          try {
-            m = makeBackgroundModel({
-              H0_km_s_Mpc: 70,
-              Omega_m: p.Om,
-              curvature: { kind: "Omega_k", Omega_k: p.Ok },
-              w0: p.w0,
-              wa: p.wa,
-              radiation: { T_cmb_K: 2.7255, N_eff: 3.044 },
-              m_nu_eV: p.nu ? [0.06] : [],
-            });
-          } catch {
-            return;
-          }
+          const m = thermalModel(p.Om, { kind: "Omega_k", Omega_k: p.Ok }, p.w0, p.wa, p.nu);
+          if (m === null) return;
           if (!(m.Omega_de > 0)) return;
           tried++;
           // Reference: ln(rho_de / rho_m) (CPL density; matter = cold matter + baryons + neutrinos' rho - 3p) at every
