@@ -1,7 +1,7 @@
 // The whole compute process for one scenario of 8 models, 2,000 grid points and 20 table redshifts,
 // and --help start-up, each measured beyond a bare Node start-up (median of several runs).
 import { spawnSync } from "node:child_process";
-import { mkdtempSync, writeFileSync, rmSync } from "node:fs";
+import { mkdirSync, mkdtempSync, readFileSync, writeFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 
@@ -72,6 +72,47 @@ export function runComputeBench(runs = 7) {
   const quoteRatio = pairedRatio(() => run(quoteArgs), runs * 2);
   const computeRatio = pairedRatio(() => run(computeArgs()), runs * 2);
   const phases = JSON.parse(run([join(ROOT, "bench/computePhases.js"), file, join(dir, "phases")]));
+  const floorRatio = serialiseFloorRatio(dir, join(dir, "out0", "bench", "tables.json"), runs * 2);
+  // compute's code loaded and nothing done: with no file named, compute stops at its usage error (exit 2) after
+  // loading the modules it runs with.
+  const loadRatio = pairedRatio(() => {
+    const r = spawnSync(process.execPath, [BIN, "compute"], { encoding: "utf8" });
+    if (r.status !== 2) throw new Error(`compute without a file: exit ${r.status} ${r.stderr}`);
+  }, runs * 2);
   rmSync(dir, { recursive: true, force: true });
-  return { nodeStartMs: node, helpMs: help, computeMs: compute, quoteRatio, computeRatio, phases };
+  return {
+    nodeStartMs: node,
+    helpMs: help,
+    computeMs: compute,
+    quoteRatio,
+    computeRatio,
+    floorRatio,
+    loadRatio,
+    phases,
+  };
+}
+
+/**
+ * The floor under compute's ratio: a process that only serialises the same tables document and writes it
+ * (bench/serialiseFloor.js), side by side with `node -e 0`. Checked to write compute's own bytes.
+ */
+function serialiseFloorRatio(dir, tablesJson, pairs) {
+  const text = readFileSync(tablesJson, "utf8");
+  const doc = JSON.parse(text);
+  const prepared = join(dir, "floor");
+  mkdirSync(prepared);
+  const doubles = [];
+  for (const model of doc.models)
+    for (const key of Object.keys(model.grid)) {
+      const column = model.grid[key];
+      for (const v of column) doubles.push(v === null ? Number.NaN : v);
+      model.grid[key] = column.length;
+    }
+  writeFileSync(join(prepared, "grid.f64"), new Uint8Array(Float64Array.from(doubles).buffer));
+  writeFileSync(join(prepared, "skeleton.json"), JSON.stringify(doc));
+  const floorArgs = [join(ROOT, "bench/serialiseFloor.js"), prepared, join(dir, "floor.json")];
+  run(floorArgs);
+  if (readFileSync(join(dir, "floor.json"), "utf8") !== text)
+    throw new Error("bench/serialiseFloor.js did not write compute's tables.json byte for byte");
+  return pairedRatio(() => run(floorArgs), pairs);
 }

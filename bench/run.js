@@ -25,6 +25,9 @@ console.log(
   `  side by side with node -e 0 (median of pair ratios): quote of 1 model at 3 redshifts ${cli.quoteRatio.toFixed(2)}x; compute (as above) ${cli.computeRatio.toFixed(2)}x`,
 );
 console.log(
+  `  floors under compute, side by side with node -e 0: a process that only serialises the same tables document and writes tables.json ${cli.floorRatio.toFixed(2)}x; compute's modules loaded, nothing run (compute without a file) ${cli.loadRatio.toFixed(2)}x`,
+);
+console.log(
   `  compute phases, one cold process: ${Object.entries(cli.phases)
     .map(([k, v]) => `${k} ${v} ms`)
     .join("; ")}`,
@@ -53,6 +56,9 @@ console.log(
   `spread: compute of 8 models x 1,000 draws over 200 grid + 20 table redshifts (one massive neutrino each), whole process: ${spread.wholeMs.toFixed(0)} ms (without spreads ${spread.plainMs.toFixed(0)} ms; node -e 0 ${spread.nodeMs.toFixed(0)} ms)`,
 );
 console.log(
+  `  warm, in one process (the document built again, both threads' code already optimised): ${spread.warmMs.toFixed(0)} ms`,
+);
+console.log(
   `  one draw ${spread.perDrawMs.toFixed(3)} ms against one plain model's evaluation ${spread.plainPerModelMs.toFixed(3)} ms (${spread.drawOverPlain.toFixed(2)}x)`,
 );
 const limits = runLimitsBench();
@@ -70,6 +76,8 @@ console.log(
     compute_ms_beyond_node: Number((cli.computeMs - cli.nodeStartMs).toFixed(1)),
     quote_over_node: Number(cli.quoteRatio.toFixed(2)),
     compute_over_node: Number(cli.computeRatio.toFixed(2)),
+    serialise_floor_over_node: Number(cli.floorRatio.toFixed(2)),
+    load_floor_over_node: Number(cli.loadRatio.toFixed(2)),
     site_200_s: Number(site.seconds[2].toFixed(2)),
     site_10_with_images_s: Number(site.imageSeconds.toFixed(2)),
     max_page_kb: Number(site.maxPageKB.toFixed(1)),
@@ -77,6 +85,7 @@ console.log(
     verify_20_ms: Number(archive.verifyMs.toFixed(1)),
     build_20_versions_s: Number((archive.buildMs / 1000).toFixed(2)),
     spread_8x1000_ms: Number(spread.wholeMs.toFixed(0)),
+    spread_8x1000_warm_ms: Number(spread.warmMs.toFixed(0)),
     draw_over_plain: Number(spread.drawOverPlain.toFixed(2)),
     limits_peak_mb: Math.max(...limits.flatMap((l) => [l.compute.peakMB, l.build.peakMB])),
   }),
