@@ -111,12 +111,17 @@ export function makeBackgroundModel(input: BackgroundModelInput): BackgroundMode
   const Omega_nu = radiation ? perSpecies * (3 - masses.length) : 0;
   const T_nu_K = radiation ? Math.cbrt(4 / 11) * radiation.T_cmb_K : null;
   const lnTeffOverTnu = radiation ? Math.log((radiation.N_eff / 3) * NR_CONVENTION_KAPPA) : 0;
-  const massiveNeutrinos: MassiveNeutrino[] = masses.map((m) => ({
-    m_eV: m,
-    Omega_rel: perSpecies,
-    lnY0:
-      Math.log((m * CONSTANTS.electron_volt.value) / (CONSTANTS.boltzmann_constant.value * T_nu_K!)) - lnTeffOverTnu,
-  }));
+  // Built by push, not Array.prototype.map: once V8 optimises this function its inlined map makes a holey array
+  // where the builtin makes a packed one, and every engine function that reads the list would meet a second array
+  // shape and throw its optimised code away (seen with --trace-deopt on the spread benchmark).
+  const massiveNeutrinos: MassiveNeutrino[] = [];
+  for (const m of masses)
+    massiveNeutrinos.push({
+      m_eV: m,
+      Omega_rel: perSpecies,
+      lnY0:
+        Math.log((m * CONSTANTS.electron_volt.value) / (CONSTANTS.boltzmann_constant.value * T_nu_K!)) - lnTeffOverTnu,
+    });
   const Omega_nu_massive = massiveNeutrinos.reduce((sum, n) => sum + n.Omega_rel * Math.exp(lnEnergyRatio(n.lnY0)), 0);
   const Omega_cb = Omega_m - Omega_nu_massive;
   if (Omega_cb < 0)
@@ -169,3 +174,28 @@ export function makeBackgroundModel(input: BackgroundModelInput): BackgroundMode
     geometry,
   };
 }
+
+// V8 gives each field of these objects the representation of the first value stored in it: an integer (w0 = -1,
+// Omega_k = 0) fixes the field as a small integer, and the first fractional value met later (another model, a
+// draw of a spread) moves every model object to a new shape, so the optimised code of every engine function that
+// reads models is thrown away and compiled again (several times per run: --trace-deopt, "wrong map"). Two models
+// made here, at load, give every field its final representation (a double, or either a double or null) before
+// any code is optimised. Their values are arbitrary and the objects are dropped.
+makeBackgroundModel({
+  H0_km_s_Mpc: 67.5,
+  Omega_m: 0.3,
+  curvature: { kind: "Omega_k", Omega_k: 0.01 },
+  w0: -0.9,
+  wa: 0.1,
+  radiation: null,
+});
+makeBackgroundModel({
+  H0_km_s_Mpc: 67.5,
+  Omega_m: 0.3,
+  curvature: { kind: "Omega_k", Omega_k: 0.01 },
+  w0: -0.9,
+  wa: 0.1,
+  radiation: { T_cmb_K: 2.5, N_eff: 3.5 },
+  baryons: { Omega_b: 0.05 },
+  m_nu_eV: [0.5],
+});

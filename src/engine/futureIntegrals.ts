@@ -92,12 +92,16 @@ function futureIntegralsWith(
       [model.Omega_k, 2],
       [model.Omega_de, 3 * (1 + model.w0)],
     ];
-    const live = terms.filter(([c]) => c !== 0).map(([c, pi]) => [c, (pi - p) * k] as [number, number]);
+    const live = nonzeroTerms(terms, (pi) => (pi - p) * k);
     one.integrate(
       (v, out) => {
         const lnv = Math.log(v);
         let S = 0;
-        for (const [c, q] of live) S += q === 0 ? c : c * Math.exp(q * lnv);
+        for (let i = 0; i < live.c.length; i++) {
+          const c = live.c[i];
+          const q = live.power[i];
+          S += q === 0 ? c : c * Math.exp(q * lnv);
+        }
         // Massive neutrinos: Omega_rel u^(4-p) R(y0/u), summed in logarithms.
         for (const nu of model.massiveNeutrinos)
           S += nu.Omega_rel * Math.exp((4 - p) * k * lnv + lnEnergyRatio(nu.lnY0 - k * lnv));
@@ -115,12 +119,16 @@ function futureIntegralsWith(
     // Big rip with a power law (constant w < -1): time int_0^1 du / (u E(1/u)) = int u^(-1 - p/2) du / sqrt(S); with
     // u = v^m, m = -2/p, the integrand m / sqrt(S(v^m)) dv is bounded at v = 0 (Caldwell et al. 2003 for the idea).
     const m = -2 / p;
-    const liveT = terms.filter(([c]) => c !== 0).map(([c, pi]) => [c, (pi - p) * m] as [number, number]);
+    const liveT = nonzeroTerms(terms, (pi) => (pi - p) * m);
     one.integrate(
       (v, out) => {
         const lnv = Math.log(v);
         let S = 0;
-        for (const [c, q] of liveT) S += q === 0 ? c : c * Math.exp(q * lnv);
+        for (let i = 0; i < liveT.c.length; i++) {
+          const c = liveT.c[i];
+          const q = liveT.power[i];
+          S += q === 0 ? c : c * Math.exp(q * lnv);
+        }
         for (const nu of model.massiveNeutrinos)
           S += nu.Omega_rel * Math.exp((4 - p) * m * lnv + lnEnergyRatio(nu.lnY0 - m * lnv));
         out[0] = m / Math.sqrt(S);
@@ -192,13 +200,13 @@ function expansionRateSquaredBelowTurnaround(model: BackgroundModel, aMax: numbe
     const x = n.lnY0 + lnAMax;
     return { x, atMax: n.Omega_rel * Math.exp(lnEnergyRatio(x) - 4 * lnAMax) };
   });
-  const live = powers.filter(([c]) => c !== 0).map(([c, p]) => [c * aMax ** -p, p] as [number, number]);
+  const live = nonzeroTerms(powers, (p) => p, (c, p) => c * aMax ** -p);
   const fMax = Omega_de === 0 ? 0 : Omega_de * Math.exp(-3 * (1 + w0 + wa) * Math.log(aMax) - 3 * wa * (1 - aMax));
   return (v) => {
     const v2 = v * v;
     const L = Math.log1p(-v2 / aMax); // ln(a / a_max)
     let sum = 0;
-    for (const [c, p] of live) sum += c * Math.expm1(-p * L);
+    for (let i = 0; i < live.c.length; i++) sum += live.c[i] * Math.expm1(-live.power[i] * L);
     if (fMax !== 0) sum += fMax * Math.expm1(-3 * (1 + w0 + wa) * L - 3 * wa * v2);
     for (const n of nus) {
       // ln R(x + L) - ln R(x); for tiny L the midpoint slope avoids the cancellation (error O(L^3)).
@@ -206,5 +214,22 @@ function expansionRateSquaredBelowTurnaround(model: BackgroundModel, aMax: numbe
       sum += n.atMax * Math.expm1(-4 * L + dLnR);
     }
     return sum;
+  };
+}
+
+/**
+ * The terms [coefficient, power] with a nonzero coefficient, as two typed arrays (coefficient and power mapped):
+ * arrays of pairs took the shape of their numbers (small integers or doubles), and each new shape met by optimised
+ * code threw that code away.
+ */
+function nonzeroTerms(
+  terms: readonly (readonly [number, number])[],
+  power: (p: number) => number,
+  coefficient: (c: number, p: number) => number = (c) => c,
+): { c: Float64Array; power: Float64Array } {
+  const kept = terms.filter(([c]) => c !== 0);
+  return {
+    c: Float64Array.from(kept, ([c, p]) => coefficient(c, p)),
+    power: Float64Array.from(kept, ([, p]) => power(p)),
   };
 }

@@ -82,16 +82,23 @@ export function pastIntegrals(
 ): PastIntegrals {
   const vec = borrowIntegrator(2);
   try {
-    return pastIntegralsWith(vec, model, redshifts, options);
+    // Always a Float64Array inside: callers pass arrays, typed arrays and views, and each new kind of array met by
+    // already optimised code would throw that code away.
+    return pastIntegralsWith(vec, model, asFloat64Array(redshifts), options);
   } finally {
     releaseIntegrator(vec);
   }
 }
 
+/** The same numbers as a Float64Array (itself when it is one). */
+export function asFloat64Array(values: ArrayLike<number>): Float64Array {
+  return values instanceof Float64Array ? values : Float64Array.from(values as ArrayLike<number>);
+}
+
 function pastIntegralsWith(
   vec: GaussKronrodIntegrator,
   model: BackgroundModel,
-  redshifts: ArrayLike<number>,
+  redshifts: Float64Array,
   options: PastIntegralOptions,
 ): PastIntegrals {
   const n = redshifts.length;

@@ -3,7 +3,7 @@ import { ARCSEC_RAD } from "./constants.js";
 import { hubbleDistanceMpc, hubbleTimeGyr } from "./hubbleScales.js";
 import { curvatureRadiusMpc } from "./curvatureRadius.js";
 import { expansionRateSquared } from "./expansionRateSquared.js";
-import { pastIntegrals, type PastIntegralOptions, type PastIntegrals } from "./pastIntegrals.js";
+import { asFloat64Array, pastIntegrals, type PastIntegralOptions, type PastIntegrals } from "./pastIntegrals.js";
 import { transverseComovingDistance } from "./transverseComovingDistance.js";
 import { comovingVolumeWithin } from "./comovingVolume.js";
 import { massiveNeutrinoParts } from "./massiveNeutrinoDensity.js";
@@ -71,6 +71,7 @@ export function redshiftTable(
     into?: RedshiftColumns;
   } = {},
 ): RedshiftColumns {
+  redshifts = asFloat64Array(redshifts); // one kind of array for the optimised code (see pastIntegrals)
   const n = redshifts.length;
   const DH = hubbleDistanceMpc(model.H0_km_s_Mpc);
   const tH = hubbleTimeGyr(model.H0_km_s_Mpc);
