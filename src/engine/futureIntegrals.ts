@@ -200,7 +200,11 @@ function expansionRateSquaredBelowTurnaround(model: BackgroundModel, aMax: numbe
     const x = n.lnY0 + lnAMax;
     return { x, atMax: n.Omega_rel * Math.exp(lnEnergyRatio(x) - 4 * lnAMax) };
   });
-  const live = nonzeroTerms(powers, (p) => p, (c, p) => c * aMax ** -p);
+  const live = nonzeroTerms(
+    powers,
+    (p) => p,
+    (c, p) => c * aMax ** -p,
+  );
   const fMax = Omega_de === 0 ? 0 : Omega_de * Math.exp(-3 * (1 + w0 + wa) * Math.log(aMax) - 3 * wa * (1 - aMax));
   return (v) => {
     const v2 = v * v;

@@ -29,7 +29,8 @@ import { targetRows } from "./targetRows.js";
 import { surveyRows } from "./surveyRows.js";
 import { differencesFromBaseline } from "./differences.js";
 import { cautions } from "./cautions.js";
-import { spreadBands, spreadDraws } from "./spreadBands.js";
+import { primeSpreadHelper, spreadBands, spreadDraws } from "./spreadBands.js";
+import type { DrawContext } from "./drawEvaluation.js";
 import { GENERATOR_NAME, SPREAD_PERCENTILES } from "../statistics/index.js";
 import type { ModelTables, Num, RedshiftGrid, RedshiftRow, TablesDocument } from "../contract/tablesDocument.js";
 import { TABLES_FORMAT } from "../contract/formats.js";
@@ -174,11 +175,35 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
   // `quote` needs no chart curves: without them its document is not a complete contract document, never written.
   const grid = options.chartGrid === false ? [] : gridRedshifts(s.grid);
   const inputs = frozenInputs(s);
-  const models = s.models.map((m, i) => {
-    let tables: ModelTables;
+  // Every model's own tables first, then the spreads: the draws' hot code is then optimised after the engine has
+  // met every kind of model in the scenario, and is not thrown away and compiled again at each new kind (the same
+  // numbers either way). A model that cannot be computed is still reported in model order.
+  const central: ({ tables: ModelTables } | { error: unknown })[] = s.models.map((m) => {
     try {
-      tables = modelTables(m, s, grid);
+      return { tables: modelTables(m, s, grid) };
     } catch (e) {
+      return { error: e };
+    }
+  });
+  // Spreads go with the chart grid: `quote` (no grid) answers with the central values only.
+  const where: DrawContext = { redshifts: s.redshifts, grid, targets: s.targets, surveys: s.surveys };
+  const drawsOf = s.models.map((m, i) =>
+    m.spread && s.draws && options.chartGrid !== false && "tables" in central[i]
+      ? spreadDraws(m.spread, m.id, s.draws.count, s.draws.seed, s.samples?.[m.id])
+      : null,
+  );
+  primeSpreadHelper(
+    s.models.flatMap((model, i) => {
+      const draws = drawsOf[i];
+      const computed = central[i];
+      return draws && "tables" in computed ? [{ model, nominal: computed.tables, draws }] : [];
+    }),
+    where,
+  );
+  const models = s.models.map((m, i) => {
+    const computed = central[i];
+    if ("error" in computed) {
+      const e = computed.error;
       // The engine throws rather than return an unconverged number; the model is then refused where it is written.
       if (
         e instanceof QuadratureError ||
@@ -190,16 +215,11 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
       }
       throw e;
     }
+    const tables: ModelTables = computed.tables;
     if (m.published) tables.published = m.published;
-    // Spreads go with the chart grid: `quote` (no grid) answers with the central values only.
-    if (m.spread && s.draws && options.chartGrid !== false) {
-      const draws = spreadDraws(m.spread, m.id, s.draws.count, s.draws.seed, s.samples?.[m.id]);
-      tables.spread = spreadBands(m, tables, draws, {
-        redshifts: s.redshifts,
-        grid,
-        targets: s.targets,
-        surveys: s.surveys,
-      });
+    const draws = drawsOf[i];
+    if (draws) {
+      tables.spread = spreadBands(m, tables, draws, where);
       if (tables.spread.accepted === 0)
         throw new ModelComputeError(
           i,

@@ -33,6 +33,22 @@ function helper(): Worker | null {
   return worker;
 }
 
+/**
+ * Lets the helper thread meet every kind of model of a scenario before its code is optimised: it evaluates the first
+ * draw of each job that it will share and drops the result. Without this the helper optimised its draw code for the
+ * first model's kind and threw it away again at each new kind (--trace-deopt: insufficient type feedback), some
+ * 50 compilations per run of the spread benchmark. Nothing waits for it; the numbers do not depend on it.
+ */
+export function primeHelper(jobs: Omit<DrawJob, "out" | "status" | "next">[], pointsPerDraw: number): void {
+  const shared = jobs.filter((j) => j.count * pointsPerDraw >= PARALLEL_WORK && j.count > 0);
+  const thread = shared.length > 0 ? helper() : null;
+  if (!thread) return;
+  thread.postMessage({
+    kind: "prime",
+    jobs: shared.map((j) => ({ ...j, values: j.values.slice(0, j.keys.length), weights: null, count: 1 })),
+  });
+}
+
 let spare: ArrayBuffer | SharedArrayBuffer | null = null;
 
 /**

@@ -13,9 +13,27 @@ const FAILED = 4;
 
 type Message =
   | { kind: "draws"; job: DrawJob; tally: Int32Array; state: Int32Array }
-  | { kind: "bands"; job: BandJob; state: Int32Array };
+  | { kind: "bands"; job: BandJob; state: Int32Array }
+  | { kind: "prime"; jobs: Omit<DrawJob, "out" | "status" | "next">[] };
 
 parentPort?.on("message", (message: Message) => {
+  if (message.kind === "prime") {
+    // One draw of each kind of model, evaluated and dropped, so that this thread's code is optimised for all of
+    // them (drawPool.primeHelper).
+    for (const job of message.jobs) {
+      try {
+        evaluateClaimedDraws({
+          ...job,
+          out: new Float64Array(job.layout.size),
+          status: new Int8Array(1),
+          next: new Int32Array(1),
+        });
+      } catch {
+        // a draw that fails fails again where it counts, on the thread that reports it
+      }
+    }
+    return;
+  }
   const { state } = message;
   if (Atomics.compareExchange(state, 0, WAITING, RUNNING) !== WAITING) return; // the main thread finished alone
   let final = DONE;

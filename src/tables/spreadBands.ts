@@ -1,5 +1,5 @@
 import { ACCEPTED, REJECTIONS, layoutKeysOf, type DrawContext } from "./drawEvaluation.js";
-import { computeBands, evaluateDraws } from "./drawPool.js";
+import { computeBands, evaluateDraws, primeHelper } from "./drawPool.js";
 import type { ResolvedModel, ResolvedSpread, SamplesTable, SpreadKey } from "../scenario/resolvedScenario.js";
 import {
   SPREAD_PERCENTILES,
@@ -72,6 +72,25 @@ export function spreadDescription(spread: ResolvedSpread): string {
   const kind = spread.correlation ? "correlated normal" : "independent normal";
   const origin = spread.from === "published" ? ", the published marginal 68 % uncertainties" : "";
   return `${kind} (${sigmas}${origin})`;
+}
+
+/** Before the spreads of a scenario are computed: the helper thread meets one draw of each (drawPool.primeHelper). */
+export function primeSpreadHelper(
+  spreads: { model: ResolvedModel; nominal: ModelTables; draws: SpreadDraws }[],
+  where: DrawContext,
+): void {
+  primeHelper(
+    spreads.map(({ model, nominal, draws }) => ({
+      inputs: model.inputs,
+      keys: draws.keys,
+      values: draws.values,
+      weights: draws.weights,
+      count: draws.count,
+      where,
+      layout: layoutKeysOf(nominal, where.grid.length),
+    })),
+    where.redshifts.length + where.grid.length,
+  );
 }
 
 /**
