@@ -112,6 +112,16 @@ describe("bad spreads are located input errors", () => {
       /s\.yaml:5:5: models\[0\]: model m: every one of the 1000 draws of its spread was rejected \(1000 outside the accepted range\)/,
     ));
 
+  it("models' errors are reported in model order, whether a spread or the model itself fails", () => {
+    // Every model's own tables are computed before any spread (so that the draws' code is optimised once); the
+    // first model in the file that fails is still the one reported. The second model sits next to a loitering model
+    // (Omega_Lambda = 1.35 for Omega_m = 0.1 is critical; closed form, common practice), which the engine refuses.
+    const spreadFails = "  - { id: m, H0: 70, Omega_m: 0.3, spread: { normal: { H0: 1e308 } } }\n";
+    const modelFails = "  - { id: l, H0: 70, Omega_m: 0.1, Omega_Lambda: 1.34999999, radiation: none }\n";
+    refused(`${HEAD}${spreadFails}${modelFails}`, {}, /s\.yaml:5:5: models\[0\]: model m: every one of the 1000 draws/);
+    refused(`${HEAD}${modelFails}${spreadFails}`, {}, /s\.yaml:5:5: models\[0\]: model l: .*cannot compute this model/);
+  });
+
   it("spreads too large for the document are refused with the limit named", () =>
     refused(
       "title: big\nredshifts: [1]\ngrid: { points: 5000 }\ndraws: { count: 20 }\nmodels:\n  - { id: a, H0: 70, Omega_m: 0.3, spread: { normal: { H0: 1 } } }\n  - { id: b, extends: a }\n  - { id: c, extends: a }\n",
