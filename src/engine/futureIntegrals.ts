@@ -231,9 +231,14 @@ function nonzeroTerms(
   power: (p: number) => number,
   coefficient: (c: number, p: number) => number = (c) => c,
 ): { c: Float64Array; power: Float64Array } {
-  const kept = terms.filter(([c]) => c !== 0);
-  return {
-    c: Float64Array.from(kept, ([c, p]) => coefficient(c, p)),
-    power: Float64Array.from(kept, ([, p]) => power(p)),
-  };
+  let n = 0;
+  for (const [c] of terms) if (c !== 0) n++;
+  const out = { c: new Float64Array(n), power: new Float64Array(n) };
+  let i = 0;
+  for (const [c, p] of terms)
+    if (c !== 0) {
+      out.c[i] = coefficient(c, p);
+      out.power[i++] = power(p);
+    }
+  return out;
 }
