@@ -181,20 +181,17 @@ export function makeBackgroundModel(input: BackgroundModelInput): BackgroundMode
 // reads models is thrown away and compiled again (several times per run: --trace-deopt, "wrong map"). Two models
 // made here, at load, give every field its final representation (a double, or either a double or null) before
 // any code is optimised. Their values are arbitrary and the objects are dropped.
-makeBackgroundModel({
+const FRACTIONAL: BackgroundModelInput = {
   H0_km_s_Mpc: 67.5,
   Omega_m: 0.3,
   curvature: { kind: "Omega_k", Omega_k: 0.01 },
   w0: -0.9,
   wa: 0.1,
   radiation: null,
-});
+};
+makeBackgroundModel(FRACTIONAL);
 makeBackgroundModel({
-  H0_km_s_Mpc: 67.5,
-  Omega_m: 0.3,
-  curvature: { kind: "Omega_k", Omega_k: 0.01 },
-  w0: -0.9,
-  wa: 0.1,
+  ...FRACTIONAL,
   radiation: { T_cmb_K: 2.5, N_eff: 3.5 },
   baryons: { Omega_b: 0.05 },
   m_nu_eV: [0.5],

@@ -46,11 +46,6 @@ function pastIntegrand(model: BackgroundModel): (s: number, out: Float64Array) =
 }
 
 /**
- * Lookback time, comoving distance, age and conformal age at many redshifts, integrated cumulatively panel to panel
- * between consecutive sorted redshifts (O(N) integrand work). Each panel is adaptive Gauss-Kronrod to PANEL_REL_TOL;
- * the panels are summed with Neumaier compensation. Redshifts must be finite and >= 0; any order.
- */
-/**
  * A panel at most this wide relative to its lower end (in s = sqrt(a)) is one Gauss rule when asked for: the
  * integrands are analytic with no singularity closer than s = 0, so an m-point rule's error is of order
  * (width / 2s)^(2m): below 1e-18 for the 7-point rule here, far below PANEL_REL_TOL.
@@ -75,6 +70,12 @@ export interface PastIntegralOptions {
   ascending?: ArrayLike<number>;
 }
 
+/**
+ * Lookback time, comoving distance, age and conformal age at many redshifts, integrated cumulatively panel to panel
+ * between consecutive sorted redshifts (O(N) integrand work). Each panel is adaptive Gauss-Kronrod to PANEL_REL_TOL
+ * (or, when asked, one Gauss rule on a narrow panel); the panels are summed with Neumaier compensation. Redshifts
+ * must be finite and >= 0; any order.
+ */
 export function pastIntegrals(
   model: BackgroundModel,
   redshifts: ArrayLike<number>,
@@ -92,7 +93,7 @@ export function pastIntegrals(
 
 /** The same numbers as a Float64Array (itself when it is one). */
 export function asFloat64Array(values: ArrayLike<number>): Float64Array {
-  return values instanceof Float64Array ? values : Float64Array.from(values as ArrayLike<number>);
+  return values instanceof Float64Array ? values : Float64Array.from(values);
 }
 
 function pastIntegralsWith(

@@ -1,4 +1,4 @@
-import { ACCEPTED, REJECTIONS, layoutKeysOf, type DrawContext } from "./drawEvaluation.js";
+import { ACCEPTED, REJECTIONS, layoutKeysOf, type DrawContext, type LayoutKeys } from "./drawEvaluation.js";
 import { computeBands, evaluateDraws, primeHelper } from "./drawPool.js";
 import type { ResolvedModel, ResolvedSpread, SamplesTable, SpreadKey } from "../scenario/resolvedScenario.js";
 import {
@@ -80,17 +80,24 @@ export function primeSpreadHelper(
   where: DrawContext,
 ): void {
   primeHelper(
-    spreads.map(({ model, nominal, draws }) => ({
-      inputs: model.inputs,
-      keys: draws.keys,
-      values: draws.values,
-      weights: draws.weights,
-      count: draws.count,
-      where,
-      layout: layoutKeysOf(nominal, where.grid.length),
-    })),
+    spreads.map(({ model, nominal, draws }) =>
+      drawJobOf(model, draws, where, layoutKeysOf(nominal, where.grid.length)),
+    ),
     where.redshifts.length + where.grid.length,
   );
+}
+
+/** The draws of one model's spread as a job for the draw pool. */
+function drawJobOf(model: ResolvedModel, draws: SpreadDraws, where: DrawContext, layout: LayoutKeys) {
+  return {
+    inputs: model.inputs,
+    keys: draws.keys,
+    values: draws.values,
+    weights: draws.weights,
+    count: draws.count,
+    where,
+    layout,
+  };
 }
 
 /**
@@ -108,15 +115,7 @@ export function spreadBands(
   const L = layoutKeysOf(nominal, where.grid.length);
   const Q = L.size;
   const { out: values, status } = evaluateDraws(
-    {
-      inputs: model.inputs,
-      keys: draws.keys,
-      values: draws.values,
-      weights: draws.weights,
-      count: draws.count,
-      where,
-      layout: L,
-    },
+    drawJobOf(model, draws, where, L),
     where.redshifts.length + where.grid.length,
   );
   const acceptedIndex: number[] = [];
