@@ -8,6 +8,7 @@ const LAYERS = [
   "scenario",
   "contract",
   "tables",
+  "presentation",
   "archive",
   "exports",
   "site",
@@ -39,6 +40,30 @@ module.exports = {
       severity: "error",
       from: { path: "^src/(engine|statistics)/" },
       to: { dependencyTypes: ["npm", "npm-dev", "npm-optional", "npm-peer", "npm-no-pkg", "npm-unknown"] },
+    },
+    {
+      name: "presentation-reads-the-contract-only",
+      comment:
+        "src/presentation turns stored tables documents into what every output shows: it reads the contract (and common), never the scenario, the engine or the compute step.",
+      severity: "error",
+      from: { path: "^src/presentation/" },
+      to: { path: "^src/(schema|engine|statistics|scenario|tables)/" },
+    },
+    {
+      name: "renderers-do-not-compute",
+      comment:
+        "Pages and exports render presented documents: they never import the scenario resolution, the engine, the statistics or the compute step (src/tables).",
+      severity: "error",
+      from: { path: "^src/(exports|site)/" },
+      to: { path: "^src/(engine|statistics|scenario|tables)/" },
+    },
+    {
+      name: "one-presentation",
+      comment:
+        "Units are converted and numbers formatted in src/presentation only: renderers do not read h-unit rules or format numbers on their own.",
+      severity: "error",
+      from: { path: "^src/(exports|site|cli)/", pathNot: "^src/cli/(computeTables|runCommand)\\.ts$" },
+      to: { path: "^src/contract/littleHUnitNames\\.ts$" },
     },
     { name: "no-circular", severity: "error", from: {}, to: { circular: true } },
     { name: "not-to-unresolvable", severity: "error", from: {}, to: { couldNotResolve: true } },

@@ -9,7 +9,7 @@ import { formatIssue } from "./dist/scenario/scenarioIssue.js";
 import { ENGINE_VERSION } from "./dist/engine/engineVersion.js";
 import { SITE_MARKER } from "./dist/cli/siteMarker.js";
 import { writeExportFiles } from "./dist/exports/exportFiles.js";
-import { CHART_STYLE } from "./dist/exports/chartStyle.js";
+import { CHART_STYLE } from "./dist/presentation/chartStyle.js";
 import { mkdirSync, writeFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 

@@ -12,7 +12,7 @@ const lap = (name) => {
 };
 const { loadScenarioFiles } = await import("../dist/cli/readScenarioFile.js");
 const { computeTables } = await import("../dist/cli/computeTables.js");
-const { tablesCsv } = await import("../dist/tables/tablesCsv.js");
+const { tablesCsv } = await import("../dist/contract/tablesCsv.js");
 const { writeOutputsAtomically } = await import("../dist/cli/writeOutputsAtomically.js");
 lap("load modules (unbundled)");
 const { scenarios } = loadScenarioFiles([file]);

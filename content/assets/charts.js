@@ -10,7 +10,7 @@
   }
   if (typeof Chart === "undefined") return;
   // Our palette, with a line pattern per model so that greyscale prints still tell models apart. One source for the
-  // pages and the exported images: src/exports/chartStyle.ts, placed in the page as inline data.
+  // pages and the exported images: src/presentation/chartStyle.ts, placed in the page as inline data.
   var style = JSON.parse(document.getElementById("chart-style").textContent);
   var COLOURS = style.colours;
   var DASHES = style.dashes;
@@ -44,7 +44,7 @@
           maintainAspectRatio: false,
           scales: {
             x: { type: "linear", title: { display: true, text: "z" } },
-            y: { title: { display: true, text: "D_L [Mpc]" } },
+            y: { title: { display: true, text: scenario.yTitle } },
           },
           plugins: { legend: { display: false } },
         },

@@ -88,12 +88,13 @@ export function compareWithRecomputed(
       shape.push(`model ${m.id} is no longer computed`);
       continue;
     }
-    // id and the derived differences are not quantities of the model; everything else is compared. The fate is
+    // id, the derived differences and the warnings about inputs (which follow from the hashed inputs) are not
+    // quantities of the model; everything else is compared. The fate is
     // compared in the stored format's own vocabulary (formats 1 and 2 say only expands_forever or recollapses).
     const storedFormat = tablesFormatOf(stored);
     const nowInStoredTerms =
       storedFormat >= 3 ? n : { ...n, summary: { ...n.summary, fate: fateInFormat(n.summary.fate, storedFormat) } };
-    consider(m.id, m.parameters, m, nowInStoredTerms, ["id"]);
+    consider(m.id, m.parameters, m, nowInStoredTerms, ["id", "input_warnings"]);
   }
   for (const n of now.models)
     if (!stored.models.some((m) => m.id === n.id)) shape.push(`model ${n.id} is computed now but was not stored`);

@@ -8,6 +8,7 @@ import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { readScenarioArchive } from "../archive/readArchive.js";
 import type { ArchiveIssue } from "../archive/checkVersionChain.js";
 import { holdsSameInputs, type StoredVersionRecord } from "../contract/versionRecord.js";
+import { presentDocument } from "../presentation/presentDocument.js";
 import { EXPORT_FORMATS, exportFiles, writeExportFiles, type ExportFormat } from "../exports/exportFiles.js";
 
 const fail = (message: string) => {
@@ -79,7 +80,7 @@ export async function exportCommand(
     inputs_sha256: doc.scenario.inputs_sha256,
     engine_version: doc.engine.version,
   };
-  const made = exportFiles(doc, base, page, formats as ExportFormat[]);
+  const made = exportFiles(presentDocument(doc), base, page, formats as ExportFormat[]);
   const dir = join(options.out ?? join("out", "exports"), scenario.id, record ? `v${record.version}` : "draft");
   try {
     const contents: Record<string, string | Buffer> = {};

@@ -26,6 +26,8 @@ import {
 } from "./quoteRequest.js";
 import { QUOTE_HELP } from "./quoteHelp.js";
 import { quoteSections, quoteTable, quoteTerminal, type QuoteSources } from "./quoteOutput.js";
+import { reportWarnings, scenarioWarnings } from "./scenarioWarnings.js";
+import { choicesOf, presentDocument } from "../presentation/presentDocument.js";
 
 const FORMATS = ["table", "csv", "json", "md", "tex"] as const;
 
@@ -150,7 +152,10 @@ export async function quoteCommand(argv: string[]): Promise<number> {
       shown = scenario.models.map((m) => m.id);
     }
     const doc = computeQuoted(scenario, models, placements, extras);
-    const sources: QuoteSources = { doc, solvedRows: solvedRows(scenario, doc, placements) };
+    // The same warnings, in the same words, as check prints for this scenario; under --strict they stop the quote.
+    if (reportWarnings(scenarioWarnings(scenario, doc), o.strict ?? false)) return 2;
+    const presented = presentDocument(doc);
+    const sources: QuoteSources = { presented, solvedRows: solvedRows(scenario, doc, placements) };
     const everyPlacementIsATarget = Object.keys(extras).length > 0;
     const sections = quoteSections(sources, shown, placements, quantities, everyPlacementIsATarget);
     const columns = shown.map((id, i) => {
@@ -168,7 +173,7 @@ export async function quoteCommand(argv: string[]): Promise<number> {
       engine_version: doc.engine.version,
       page: "(cosmoledger quote; not on a site)",
     };
-    const table = quoteTable(sections, columns);
+    const table = quoteTable(sections, columns, presented);
     const out =
       format === "csv"
         ? tableCsv(table, provenance)
@@ -178,7 +183,7 @@ export async function quoteCommand(argv: string[]): Promise<number> {
             ? tableMarkdown(table, provenance)
             : format === "tex"
               ? tableLatex(table, provenance)
-              : quoteTerminal(sections, columns, provenance);
+              : quoteTerminal(sections, columns, provenance, presented);
     if (o.save) {
       try {
         writeFileSync(o.save, text, { flag: "wx" });
@@ -258,7 +263,11 @@ function solvedRows(s: ResolvedScenario, doc: TablesDocument, placements: Placem
   for (const m of doc.models) for (const t of m.targets) if (t.z !== null) zs.add(t.z);
   if (zs.size === 0) return out;
   const list = [...zs].sort((a, b) => a - b);
-  const again = computeTables({ ...s, redshifts: list, targets: [], surveys: [] }, { chartGrid: false });
+  // Presented as the quote's own document is, so that a solved row shows the same units.
+  const again = presentDocument(
+    computeTables({ ...s, redshifts: list, targets: [], surveys: [] }, { chartGrid: false }),
+    choicesOf(doc),
+  ).doc;
   for (const m of doc.models) {
     const rows = again.models.find((x) => x.id === m.id)!.redshifts;
     let t = 0;
@@ -293,6 +302,7 @@ function parseQuoteArgs(argv: string[]) {
       quantities: { type: "string", multiple: true },
       format: { type: "string" },
       save: { type: "string" },
+      strict: { type: "boolean" },
       help: { type: "boolean", short: "h" },
     },
   });

@@ -6,7 +6,7 @@ export const DEFAULT_QUOTE_QUANTITIES = ["z", "D_C", "D_A", "D_L", "mu", "scale"
 export const QUOTE_HELP = `Usage: cosmoledger quote (--model "KEY=VALUE ..."... | FILE [--models ID,...])
                         (--z LIST | --lookback-Gyr LIST | --age-Gyr LIST | --distance-Mpc LIST)...
                         [--size-kpc X] [--abs-mag M] [--luminosity-erg-s L]
-                        [--quantities NAME,...] [--format table|csv|json|md|tex] [--save FILE.yaml]
+                        [--quantities NAME,...] [--format table|csv|json|md|tex] [--save FILE.yaml] [--strict]
 
 Prints numbers at a few redshifts (or lookback times, ages, comoving distances) for one or more models, as compute
 would give them for the equivalent scenario: quantities as rows, models as columns, with units and the digits the
@@ -34,5 +34,8 @@ Options:
   --quantities LIST which rows, in order
   --format F        table (default), csv, json, md or tex
   --save FILE.yaml  also write the equivalent scenario (never overwrites an existing file)
+  --strict          warnings (printed to standard error as check prints them) are errors: exit 2, nothing printed
+
+A scenario file with h_units: true is quoted in h units (h^-1 Mpc, each model's own h), as its pages show it.
 
 Exit status: 0 success, 2 a bad argument or model (named, with what would be valid), 4 the file system refused.`;

@@ -1,21 +1,23 @@
-import type { ModelTables, TablesDocument } from "../contract/tablesDocument.js";
-import { numberParts, partsText, unitText } from "../contract/formatNumber.js";
-import type { ExportCell, ExportTable } from "../exports/exportTables.js";
+import type { StoredModelTables } from "../contract/tablesDocument.js";
+import { numberParts, partsText, unitText } from "../presentation/formatNumber.js";
+import { displayUnit, presentationNotes, unitNotes, type PresentedDocument } from "../presentation/presentDocument.js";
+import type { PresentationCell, PresentationTable } from "../presentation/presentTables.js";
 import type { ExportProvenance } from "../exports/exportProvenance.js";
 import type { QuoteQuantity } from "./quoteQuantities.js";
 import { targetName, type Placement } from "./quoteRequest.js";
 
 /** Where each number of a quote comes from, per model: a redshift row, a target row or today's summary. */
 export interface QuoteSources {
-  /** The tables document of the equivalent scenario. */
-  doc: TablesDocument;
-  /** For placements that are not redshifts: each model's row at the redshift its target was solved to (or null). */
-  solvedRows: Map<string, (ModelTables["redshifts"][number] | null)[]>;
+  /** The tables document of the equivalent scenario, as presented (in h units when the scenario asks for them). */
+  presented: PresentedDocument;
+  /** For placements that are not redshifts: each model's row at the redshift its target was solved to (or null), presented alike. */
+  solvedRows: Map<string, (StoredModelTables["redshifts"][number] | null)[]>;
 }
 
 export interface QuoteSection {
   heading: string;
-  rows: { quantity: QuoteQuantity; values: (number | null)[] }[];
+  /** unit: the quantity's unit as presented (h^-1 Mpc for Mpc in h units). */
+  rows: { quantity: QuoteQuantity; unit: string; values: (number | null)[] }[];
   /** Per model, why a placement has no numbers there (not reached), or null. */
   notes: (string | null)[];
 }
@@ -31,7 +33,8 @@ export function quoteSections(
   quantities: QuoteQuantity[],
   everyPlacementIsATarget: boolean,
 ): QuoteSection[] {
-  const models = modelIds.map((id) => src.doc.models.find((m) => m.id === id)!);
+  const models = modelIds.map((id) => src.presented.doc.models.find((m) => m.id === id)!);
+  const unit = (q: QuoteQuantity) => displayUnit(src.presented, q.unit);
   const sections: QuoteSection[] = [];
   const perPlacement = quantities.filter((q) => q.row || q.target);
   let zIndex = 0;
@@ -45,12 +48,16 @@ export function quoteSections(
       .filter((q) => !(isZ && q.short === "z"))
       .map((q) => ({
         quantity: q,
+        unit: unit(q),
         values: models.map((m) => {
-          const target = targetAt >= 0 ? m.targets[targetAt] : null;
-          if (q.target && target && (!isZ || !q.row)) return (target[q.target] as number | null) ?? null;
+          const target = targetAt >= 0 ? (m.targets[targetAt] as unknown as Record<string, number | null>) : null;
+          if (q.target && target && (!isZ || !q.row)) return target[q.target] ?? null;
           if (!q.row) return null;
-          const row = isZ ? m.redshifts[rowAt] : (src.solvedRows.get(m.id)?.[pi] ?? null);
-          return row ? ((row[q.row] as number | null) ?? null) : null;
+          const row = (isZ ? m.redshifts[rowAt] : (src.solvedRows.get(m.id)?.[pi] ?? null)) as unknown as Record<
+            string,
+            number | null
+          > | null;
+          return row ? (row[q.row] ?? null) : null;
         }),
       }));
     const notes = models.map((m) => (targetAt >= 0 ? (m.targets[targetAt]?.note ?? null) : null));
@@ -62,20 +69,27 @@ export function quoteSections(
       heading: "today",
       rows: today.map((q) => ({
         quantity: q,
-        values: models.map((m) => (m.summary[q.summary!] as number | null) ?? null),
+        unit: unit(q),
+        values: models.map(
+          (m) => ((m.summary as unknown as Record<string, number | null>)[q.summary!] as number | null) ?? null,
+        ),
       })),
       notes: models.map(() => null),
     });
   return sections;
 }
 
-const cell = (x: number | null): ExportCell => {
+const cell = (x: number | null): PresentationCell => {
   const parts = numberParts(x);
   return { kind: "number", value: x, parts, text: partsText(parts) };
 };
 
 /** The quote as one export table (rows "z = 2: D_A", columns the models), for the CSV, JSON, Markdown and LaTeX writers. */
-export function quoteTable(sections: QuoteSection[], columns: { id: string; label: string }[]): ExportTable {
+export function quoteTable(
+  sections: QuoteSection[],
+  columns: { id: string; label: string }[],
+  presented: PresentedDocument,
+): PresentationTable {
   return {
     id: "quote",
     title: "Quick quote",
@@ -86,10 +100,11 @@ export function quoteTable(sections: QuoteSection[], columns: { id: string; labe
     rows: sections.flatMap((s) =>
       s.rows.map((r) => ({
         label: `${s.heading}: ${r.quantity.label}`,
-        unit: r.quantity.unit,
+        unit: r.unit,
         cells: r.values.map(cell),
       })),
     ),
+    notes: presentationNotes(presented),
   };
 }
 
@@ -101,9 +116,10 @@ export function quoteTerminal(
   sections: QuoteSection[],
   columns: { id: string; label: string; cites?: string[] }[],
   provenance: ExportProvenance,
+  presented: PresentedDocument,
 ): string {
   const nameWidth = Math.max(8, ...sections.flatMap((s) => s.rows.map((r) => r.quantity.short.length)));
-  const unitWidth = Math.max(4, ...sections.flatMap((s) => s.rows.map((r) => unitText(r.quantity.unit).length)));
+  const unitWidth = Math.max(4, ...sections.flatMap((s) => s.rows.map((r) => unitText(r.unit).length)));
   const texts = sections.map((s) =>
     s.rows.map((r) => r.values.map((v) => (v === null ? "—" : partsText(numberParts(v))))),
   );
@@ -117,7 +133,7 @@ export function quoteTerminal(
   sections.forEach((s, si) => {
     lines.push(s.heading);
     s.rows.forEach((r, ri) => {
-      const unit = unitText(r.quantity.unit);
+      const unit = unitText(r.unit);
       lines.push(
         `  ${pad(r.quantity.short, nameWidth)} ${pad(unit ? `[${unit}]` : "", unitWidth + 2)}${texts[si][ri].map((t, i) => left(t, widths[i])).join("  ")}`,
       );
@@ -130,6 +146,8 @@ export function quoteTerminal(
   if (legend.length > 0) lines.push("models:", ...legend);
   const cited = columns.flatMap((c) => (c.cites ?? []).map((line) => `  ${c.id}: ${line}`));
   if (cited.length > 0) lines.push("published sets:", ...cited);
+  // Warnings go to standard error (as check prints them); how the numbers are shown stays with them.
+  for (const n of unitNotes(presented)) lines.push(`note: ${n}`);
   lines.push(
     `${provenance.tool} ${provenance.tool_version}, engine ${provenance.engine_version}; inputs SHA-256 ${provenance.inputs_sha256.slice(0, 12)}; background FLRW only (see the README's cautions)`,
   );

@@ -43,7 +43,7 @@ export function readLedger(
     TOOL_VERSION,
   );
   return {
-    ledger: { ...pages, docs: pages.live.map((p) => p.doc), archive: displayPath(archiveDir) },
+    ledger: { ...pages, docs: pages.live.map((p) => p.presented), archive: displayPath(archiveDir) },
     issues: [],
     warnings,
   };

@@ -1,7 +1,7 @@
 import { join, sep } from "node:path";
 import { ScenarioInputError, issueLine, issueSummary, type ScenarioIssue } from "../scenario/scenarioIssue.js";
 import { computeTables } from "./computeTables.js";
-import { tablesCsv } from "../tables/tablesCsv.js";
+import { tablesCsv } from "../contract/tablesCsv.js";
 import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
 import { loadScenarioFiles } from "./readScenarioFile.js";
 import { expandFolders } from "./scenarioFiles.js";

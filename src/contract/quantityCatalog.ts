@@ -1,5 +1,5 @@
 import type { ModelParameters, RowKey, SummaryKey, TargetKey } from "./tablesDocument.js";
-import { littleHUnit, wantsLittleHUnits } from "./littleHUnitNames.js";
+import { littleHUnit } from "./littleHUnitNames.js";
 
 /**
  * How each quantity of the tables document is named, grouped and united on pages, exports and diffs (display only;
@@ -250,15 +250,18 @@ export const hasEarlyUniverse = (doc: { models: readonly { parameters: { Omega_b
 const RIP_KEYS: string[] = ["time_to_rip_Gyr", "rip_time_Gyr"];
 const ANGLE_KEYS: string[] = ["size_arcsec", "proper_size_kpc", "comoving_size_kpc"];
 
-export function catalogFor(doc: {
-  models: readonly {
-    parameters: { Omega_b: number | null };
-    summary: object;
-    redshifts: readonly object[];
-    grid: object;
-    targets: readonly object[];
-  }[];
-}): DocumentCatalog {
+export function catalogFor(
+  doc: {
+    models: readonly {
+      parameters: { Omega_b: number | null };
+      summary: object;
+      redshifts: readonly object[];
+      grid: object;
+      targets: readonly object[];
+    }[];
+  },
+  hUnits = false,
+): DocumentCatalog {
   const m = doc.models[0];
   const rowKeys = new Set(Object.keys(m.grid));
   const notComputed: string[] = [];
@@ -272,9 +275,9 @@ export function catalogFor(doc: {
   const groups = REDSHIFT_GROUPS.map((g) => ({ ...g, quantities: keep(g.quantities, row) })).filter(
     (g) => g.quantities.length > 0,
   );
-  // A scenario that asks for h units shows every length, volume and wavenumber in them (the values are converted
-  // by the page, tables/littleHUnits.ts); the labels say so here.
-  const h = wantsLittleHUnits(doc);
+  // Shown in h units (the presentation converted the values, src/presentation/presentDocument.ts), every length,
+  // volume and wavenumber is labelled so here.
+  const h = hUnits;
   const u = <Q extends QuantityInfo>(list: Q[]): Q[] =>
     h ? list.map((q) => ({ ...q, unit: littleHUnit(q.unit) })) : list;
   return {

@@ -7,17 +7,25 @@ import type { TablesDocumentFormat1 } from "./generated/tablesFormat1.js";
 import type { TablesDocumentFormat2 } from "./generated/tablesFormat2.js";
 import type { TablesDocumentFormat3 } from "./generated/tablesFormat3.js";
 import type { TablesDocumentFormat4 } from "./generated/tablesFormat4.js";
+import type { TablesDocumentFormat5 } from "./generated/tablesFormat5.js";
 
-export type { TablesDocumentFormat1, TablesDocumentFormat2, TablesDocumentFormat3, TablesDocumentFormat4 };
+export type {
+  TablesDocumentFormat1,
+  TablesDocumentFormat2,
+  TablesDocumentFormat3,
+  TablesDocumentFormat4,
+  TablesDocumentFormat5,
+};
 
 /** The format this release writes. */
-export type TablesDocument = TablesDocumentFormat4;
+export type TablesDocument = TablesDocumentFormat5;
 /** Every format this release reads (pages, exports, diffs and verify take any of them). */
 export type StoredTablesDocument =
   | TablesDocumentFormat1
   | TablesDocumentFormat2
   | TablesDocumentFormat3
-  | TablesDocumentFormat4;
+  | TablesDocumentFormat4
+  | TablesDocumentFormat5;
 
 export type Num = number | null;
 export type ModelTables = TablesDocument["models"][number];

@@ -3,13 +3,13 @@ import { readFileSync } from "node:fs";
 import { createCanvas, GlobalFonts, SvgExportFlag, type SKRSContext2D } from "@napi-rs/canvas";
 import { Chart, registerables, type ChartConfiguration, type Plugin } from "chart.js";
 import * as helpers from "chart.js/helpers";
-import type { StoredTablesDocument } from "../contract/tablesDocument.js";
-import { catalogFor, hasEarlyUniverse } from "../contract/quantityCatalog.js";
-import { formatNumber } from "../contract/formatNumber.js";
+import type { PresentedDocument } from "../presentation/presentDocument.js";
+import { chartData } from "../presentation/chartData.js";
+import { formatNumber } from "../presentation/formatNumber.js";
 import { escapeHtml, unitText } from "./exportFormats.js";
 import { provenanceLine, type ExportProvenance } from "./exportProvenance.js";
 import { withPngResolution, withPngText } from "./pngText.js";
-import { CHART_STYLE, MARKERS_PER_CURVE, plottedRedshiftRange, spansMoreThanADecade } from "./chartStyle.js";
+import { CHART_STYLE, MARKERS_PER_CURVE } from "../presentation/chartStyle.js";
 
 Chart.register(...registerables);
 
@@ -50,6 +50,8 @@ export interface ChartSpec {
   /** The plotted redshift range when the scenario left its grid to the default; null for the whole grid. */
   xRange: [number, number] | null;
   datasets: { label: string; points: { x: number; y: number | null }[] }[];
+  /** The 68 % bands of models with a spread (model: its index in datasets), in the units of the curves. */
+  bands: { model: number; lo: { x: number; y: number | null }[]; hi: { x: number; y: number | null }[] }[];
 }
 
 /** A redshift as a reader gives it: at most six significant figures, no padding (20, not 20.0000). */
@@ -58,55 +60,46 @@ const zText = (z: number) => String(Number(z.toPrecision(6)));
 /**
  * Every exportable chart of a page, as the page offers them: one per chart and series, and the same as a ratio to
  * the baseline; log redshift axis (the page's default), the redshift range the page plots, and a log y axis where
- * the quantity spans more than a decade (chartStyle.ts decides both, for the page and the images alike).
+ * the quantity spans more than a decade. Built from the presentation's chart data, which the page draws too, so an
+ * image and the page plot the same numbers in the same units; a model's 68 % band is shaded as on the page.
  */
-export function chartSpecs(doc: StoredTablesDocument): ChartSpec[] {
-  const early = hasEarlyUniverse(doc);
-  const z = doc.models[0].grid.z as number[];
-  const range = plottedRedshiftRange(doc);
+export function chartSpecs(presented: PresentedDocument): ChartSpec[] {
+  const data = chartData(presented);
+  const z = data.z as number[];
+  const range = data.xRange;
   const specs: ChartSpec[] = [];
-  const { CHARTS, CHART_SERIES } = catalogFor(doc); // only the series this document's format holds
-  const baseline = doc.models.find((m) => m.id === doc.scenario.baseline) ?? doc.models[0];
-  for (const c of CHARTS) {
-    if (c.id === "bao" && !early) continue;
+  const baseline = data.models.find((m) => m.id === data.baseline) ?? data.models[0];
+  for (const c of data.charts) {
     for (const key of c.keys) {
-      const s = CHART_SERIES.find((x) => x.key === key)!;
-      const column = (m: (typeof doc.models)[number]) => (m.grid as unknown as Record<string, (number | null)[]>)[key];
+      const s = data.series.find((x) => x.key === key)!;
       const keep = z.map((x) => x > 0 && (!range || (x >= range[0] && x <= range[1])));
       const zs = z.filter((_, i) => keep[i]);
       const title = c.keys.length > 1 || c.title !== s.label ? `${c.title}: ${s.label}` : s.label;
       for (const variant of ["values", "ratio"] as const) {
-        const base = column(baseline);
-        const datasets = doc.models.map((m) => ({
-          label: m.label,
-          points: z.flatMap((x, i) => {
-            if (!keep[i]) return [];
-            const y = column(m)[i];
-            if (variant === "values") return [{ x, y }];
-            return [{ x, y: y === null || !base[i] ? null : y / (base[i] as number) }];
-          }),
-        }));
+        const base = baseline.values[key];
+        const shown = (y: number | null, i: number) =>
+          variant === "values" ? y : y === null || !base[i] ? null : y / (base[i] as number);
+        const curve = (ys: (number | null)[]) => z.flatMap((x, i) => (keep[i] ? [{ x, y: shown(ys[i], i) }] : []));
+        const datasets = data.models.map((m) => ({ label: m.label, points: curve(m.values[key]) }));
+        const bands = data.models.flatMap((m, model) => {
+          const b = m.bands?.[key];
+          return b ? [{ model, lo: curve(b.lo), hi: curve(b.hi) }] : [];
+        });
         const unit = variant === "ratio" ? "" : s.unit;
         const yLabel =
           variant === "ratio"
             ? `${s.label} / baseline (${baseline.label})`
             : s.unit
-              ? `${s.label} [${unitText(s.unit)}]`
+              ? `${s.label} [${s.unitText}]`
               : s.label;
         const last = datasets.map((d) => d.points.at(-1)?.y).filter((y): y is number => typeof y === "number");
         const at = zs.length ? zText(zs.at(-1)!) : "";
         const rangeText = last.length
           ? `At z = ${at} the values run from ${formatNumber(Math.min(...last))} to ${formatNumber(Math.max(...last))}${unit ? ` ${unitText(unit)}` : ""}.`
           : "";
-        const logY =
-          variant === "values" &&
-          spansMoreThanADecade(
-            z,
-            doc.models.map((m) => column(m)),
-            range,
-          );
+        const logY = variant === "values" && s.logY;
         const alt =
-          `Line chart of ${yLabel} against redshift z from ${zs.length ? zText(zs[0]) : ""} to ${at} (logarithmic axis${logY ? "; logarithmic y axis" : ""}) for ${doc.models.length} model${doc.models.length === 1 ? "" : "s"}: ${doc.models.map((m) => m.label).join(", ")}. ${rangeText}`.trim();
+          `Line chart of ${yLabel} against redshift z from ${zs.length ? zText(zs[0]) : ""} to ${at} (logarithmic axis${logY ? "; logarithmic y axis" : ""}) for ${data.models.length} model${data.models.length === 1 ? "" : "s"}: ${data.models.map((m) => m.label).join(", ")}. ${rangeText}`.trim();
         specs.push({
           id: c.id,
           key,
@@ -118,6 +111,7 @@ export function chartSpecs(doc: StoredTablesDocument): ChartSpec[] {
           logY,
           xRange: range,
           datasets,
+          bands,
         });
       }
     }
@@ -209,6 +203,29 @@ function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfi
         spanGaps: false,
         fill: false,
       })),
+      // Each band after every curve (so that dataset i is still model i): its 16th-percentile curve, then its
+      // 84th-percentile curve filled down to it, as on the page.
+      ...spec.bands.flatMap((b) => [
+        {
+          label: "",
+          data: b.lo,
+          borderWidth: 0,
+          pointRadius: 0,
+          borderColor: "transparent",
+          spanGaps: false,
+          fill: false,
+        },
+        {
+          label: "",
+          data: b.hi,
+          borderWidth: 0,
+          pointRadius: 0,
+          borderColor: "transparent",
+          backgroundColor: `${COLOURS[b.model % COLOURS.length]}33`,
+          spanGaps: false,
+          fill: "-1",
+        },
+      ]),
     },
     options: {
       parsing: false,
@@ -249,7 +266,7 @@ function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfi
             font: { family: FONT, size: 9 },
             // Chart.js's own labels take a point style's (undashed) look; these carry each line's dash pattern.
             generateLabels: (chart) =>
-              chart.data.datasets.map((d, i) => ({
+              chart.data.datasets.slice(0, spec.datasets.length).map((d, i) => ({
                 text: String(d.label),
                 datasetIndex: i,
                 pointStyle: "line",

@@ -1,6 +1,6 @@
 import pLimit from "p-limit";
-import type { StoredTablesDocument } from "../contract/tablesDocument.js";
-import { exportTables, type ExportTable } from "./exportTables.js";
+import type { PresentedDocument } from "../presentation/presentDocument.js";
+import { presentationTables, type PresentationTable } from "../presentation/presentTables.js";
 import { tableCsv, tableHtml, tableJson, tableLatex, tableMarkdown, tablePlainText } from "./exportFormats.js";
 import { assumptionsSentence } from "./assumptionsSentence.js";
 import { chartPng, chartSpecs, chartSvg, type ChartSpec } from "./chartImage.js";
@@ -25,10 +25,6 @@ export interface ExportIndex {
 }
 
 /**
- * Every export of one page (names relative to the page's exports folder): each table in each table format, each
- * chart series as PNG and SVG, and the assumptions paragraph as text and LaTeX. `pageAddress` is the page relative to
- * the site root; each table's provenance points at its section.
- */
 /** How chart images are made; the site passes a cached version of the same functions. */
 export interface ChartRenderers {
   png: (spec: ChartSpec, p: ExportProvenance) => Promise<Buffer>;
@@ -38,8 +34,14 @@ export interface ChartRenderers {
 /** A file's content, or for an image a function that draws it when the file is written (see writeExportFiles). */
 export type ExportContent = string | Buffer | (() => Promise<Buffer>);
 
+/**
+ * Every export of one page (names relative to the page's exports folder): each table in each table format, each
+ * chart series as PNG and SVG, and the assumptions paragraph as text and LaTeX, all rendered from one presented
+ * document (the site and `cosmoledger export` alike). `pageAddress` is the page relative to the site root; each
+ * table's provenance points at its section.
+ */
 export function exportFiles(
-  doc: StoredTablesDocument,
+  presented: PresentedDocument,
   base: Omit<ExportProvenance, "page">,
   pageAddress: string,
   formats: readonly ExportFormat[] = EXPORT_FORMATS,
@@ -53,7 +55,7 @@ export function exportFiles(
     assumptions: { txt: "assumptions.txt", tex: "assumptions.tex", plain: "", latex: "" },
     copy: {},
   };
-  const tables: ExportTable[] = exportTables(doc);
+  const tables: PresentationTable[] = presentationTables(presented);
   for (const t of tables) {
     const p = provenance(t.anchor);
     const entry: ExportIndex["tables"][number] = { id: t.id, title: t.title, files: {} };
@@ -71,7 +73,7 @@ export function exportFiles(
   }
   const wantCharts = CHART_FORMATS.filter((f) => formats.includes(f));
   if (wantCharts.length > 0) {
-    for (const spec of chartSpecs(doc)) {
+    for (const spec of chartSpecs(presented)) {
       const p = provenance("charts");
       const entry: ExportIndex["charts"][number] = {
         id: spec.id,
@@ -114,7 +116,7 @@ export function exportFiles(
       ].join("\n"),
     });
   }
-  const sentence = assumptionsSentence(doc, provenance("assumptions"));
+  const sentence = assumptionsSentence(presented.stored, provenance("assumptions"));
   files.push({ name: "assumptions.txt", content: sentence.plain }, { name: "assumptions.tex", content: sentence.tex });
   index.assumptions.plain = sentence.plain;
   index.assumptions.latex = sentence.tex;

@@ -1,7 +1,7 @@
 import escapeHtmlText from "escape-html";
 import { stringify } from "csv-stringify/sync";
-import { type NumberParts, unitText } from "../contract/formatNumber.js";
-import type { ExportCell, ExportTable } from "./exportTables.js";
+import { type NumberParts, unitText } from "../presentation/formatNumber.js";
+import type { PresentationCell, PresentationTable } from "../presentation/presentTables.js";
 import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
 import { csvText, latexText, oneLine } from "../common/userText.js";
 
@@ -13,7 +13,7 @@ export const EXPORT_FORMAT = "cosmoledger.export/1";
 export { unitText };
 const labelWithUnit = (label: string, unit: string) => (unit ? `${label} [${unitText(unit)}]` : label);
 /** Which span each column sits under (null when the table has no spans). */
-const spanOf = (t: ExportTable, column: number) => {
+const spanOf = (t: PresentationTable, column: number) => {
   if (!t.spans) return null;
   let end = 0;
   for (const s of t.spans) {
@@ -26,7 +26,7 @@ const spanOf = (t: ExportTable, column: number) => {
  * The header as one row of cells: the stub, then each column; under several spans a column is named after its
  * quantity too ("Comoving distance D_C [Mpc]: Flat"), since CSV and Markdown have a single header row.
  */
-const header = (t: ExportTable) => [
+const header = (t: PresentationTable) => [
   t.stub,
   ...t.columns.map((c, i) => {
     const own = labelWithUnit(c.label, c.unit);
@@ -35,27 +35,28 @@ const header = (t: ExportTable) => [
   }),
 ];
 /** The table's heading: its title, with the quantity's unit for a table of one quantity. */
-const heading = (t: ExportTable) =>
+const heading = (t: PresentationTable) =>
   t.spans?.length === 1 && t.spans[0].unit ? `${t.title} [${unitText(t.spans[0].unit)}]` : t.title;
 
 /** Columns that hold a 68 % interval in some row (their CSV gets median and interval columns after the rest). */
-const intervalColumns = (t: ExportTable) =>
+const intervalColumns = (t: PresentationTable) =>
   t.columns.map((_, i) => i).filter((i) => t.rows.some((r) => r.cells[i]?.interval !== undefined));
 /** A cell as text with its interval: "13.7958 (68 %: 13.797 +0.023 −0.023)". */
-const withInterval = (c: ExportCell, text: string) => (c.interval ? `${text} (68 %: ${c.interval.text})` : text);
+const withInterval = (c: PresentationCell, text: string) => (c.interval ? `${text} (68 %: ${c.interval.text})` : text);
 
 /**
  * RFC 4180 CSV (csv-stringify) at full precision, empty cell = null; provenance in leading "#" comment lines.
  * Any field holding "#" is quoted, so that readers that treat "#" as a comment anywhere on a line keep it.
  */
-export function tableCsv(t: ExportTable, p: ExportProvenance): string {
+export function tableCsv(t: PresentationTable, p: ExportProvenance): string {
   const comments = [
     `# ${oneLine(heading(t))}`,
     `# source: ${oneLine(provenanceLine(p))}`,
+    ...t.notes.map((n) => `# note: ${oneLine(n)}`),
     "# numbers at full precision; an empty cell is an infinite or undefined quantity",
   ];
   // Numbers stay numbers; text (labels, names, notes) is neutralised against formula injection.
-  const value = (c: ExportCell) =>
+  const value = (c: PresentationCell) =>
     c.value === null ? "" : c.kind === "number" ? String(c.value) : csvText(String(c.value));
   // A model with a spread adds, per column, the median and the 16th and 84th percentiles of its draws.
   const banded = intervalColumns(t);
@@ -65,10 +66,10 @@ export function tableCsv(t: ExportTable, p: ExportProvenance): string {
     `${head[i + 1]}: 16th percentile`,
     `${head[i + 1]}: 84th percentile`,
   ]);
-  const bands = (r: ExportTable["rows"][number]) =>
+  const bands = (r: PresentationTable["rows"][number]) =>
     banded.flatMap((i) => {
       const iv = r.cells[i]?.interval;
-      return iv ? [String(iv.median), String(iv.median - iv.minus), String(iv.median + iv.plus)] : ["", "", ""];
+      return iv ? [String(iv.median), String(iv.p16), String(iv.p84)] : ["", "", ""];
     });
   const rows = [
     [...head, ...extra].map(csvText),
@@ -79,7 +80,7 @@ export function tableCsv(t: ExportTable, p: ExportProvenance): string {
 }
 
 /** JSON: provenance, then the table with raw values (full precision) and the page's text for every cell. */
-export function tableJson(t: ExportTable, p: ExportProvenance): string {
+export function tableJson(t: PresentationTable, p: ExportProvenance): string {
   return `${JSON.stringify(
     {
       format: EXPORT_FORMAT,
@@ -90,6 +91,7 @@ export function tableJson(t: ExportTable, p: ExportProvenance): string {
         spans: t.spans,
         stub: t.stub,
         columns: t.columns,
+        notes: t.notes,
         rows: t.rows.map((r) => ({
           label: r.label,
           unit: r.unit,
@@ -101,9 +103,10 @@ export function tableJson(t: ExportTable, p: ExportProvenance): string {
                   c.interval
                     ? {
                         median: c.interval.median,
-                        p16: c.interval.median - c.interval.minus,
-                        p84: c.interval.median + c.interval.plus,
+                        p16: c.interval.p16,
+                        p84: c.interval.p84,
                         text: c.interval.text,
+                        fixed: c.interval.fixed,
                       }
                     : null,
                 ),
@@ -122,7 +125,7 @@ const MARKDOWN_SPECIAL = /[\\`*_[\]<>|~&!#$^{}]/g;
 export const escapeMarkdown = (s: string) => oneLine(s).replace(MARKDOWN_SPECIAL, (c) => `\\${c}`);
 
 /** A GFM pipe table as wiki engines read it, cells as the page prints them, with a title line and a source line. */
-export function tableMarkdown(t: ExportTable, p: ExportProvenance): string {
+export function tableMarkdown(t: PresentationTable, p: ExportProvenance): string {
   const row = (cells: string[]) => `| ${cells.map(escapeMarkdown).join(" | ")} |`;
   const align = `| ${["---", ...t.columns.map(() => "---:")].join(" | ")} |`;
   const lines = [
@@ -133,6 +136,7 @@ export function tableMarkdown(t: ExportTable, p: ExportProvenance): string {
     ...t.rows.map((r) => row([labelWithUnit(r.label, r.unit), ...r.cells.map((c) => withInterval(c, c.text))])),
     "",
     `Source: ${escapeMarkdown(provenanceLine(p))}`,
+    ...t.notes.flatMap((n) => ["", `Note: ${escapeMarkdown(n)}`]),
     "",
   ];
   return lines.join("\n");
@@ -142,7 +146,7 @@ export function tableMarkdown(t: ExportTable, p: ExportProvenance): string {
  * Plain text for pasting into an e-mail or a document: aligned columns (spaces), the printed digits and units, a
  * title line and a source line. One line per row; user text is kept on one line.
  */
-export function tablePlainText(t: ExportTable, p: ExportProvenance): string {
+export function tablePlainText(t: PresentationTable, p: ExportProvenance): string {
   const head = header(t).map(oneLine);
   const body = t.rows.map((r) => [
     oneLine(labelWithUnit(r.label, r.unit)),
@@ -154,9 +158,16 @@ export function tablePlainText(t: ExportTable, p: ExportProvenance): string {
       .map((c, i) => (i === 0 ? c.padEnd(widths[i]) : c.padStart(widths[i])))
       .join("  ")
       .trimEnd();
-  return [oneLine(heading(t)), "", line(head), ...body.map(line), "", `Source: ${oneLine(provenanceLine(p))}`, ""].join(
-    "\n",
-  );
+  return [
+    oneLine(heading(t)),
+    "",
+    line(head),
+    ...body.map(line),
+    "",
+    `Source: ${oneLine(provenanceLine(p))}`,
+    ...t.notes.map((n) => `Note: ${oneLine(n)}`),
+    "",
+  ].join("\n");
 }
 
 /** Text for LaTeX (userText.ts): compiles with pdflatex and never reaches TeX as a command. */
@@ -173,16 +184,17 @@ const latexLabel = (label: string, unit: string) =>
   unit ? `${escapeLatex(label)} [${latexUnit(unit)}]` : escapeLatex(label);
 
 /** A tabular with booktabs rules (\usepackage{booktabs}); units in the header; provenance in % comments above it. */
-export function tableLatex(t: ExportTable, p: ExportProvenance): string {
+export function tableLatex(t: PresentationTable, p: ExportProvenance): string {
   const n = t.columns.length;
   // A spread adds the median and its 68 % interval as X^{+a}_{-b} after the value.
-  const cell = (c: ExportCell) =>
+  const cell = (c: PresentationCell) =>
     (c.kind === "number" ? latexNumber(c.parts) : escapeLatex(c.text)) +
     (c.interval ? ` ($${c.interval.tex.replace(/\u2212/g, "-")}$)` : "");
   const lines = [
     // A comment ends only at a line break, and oneLine leaves none (TeX skips the rest of a comment line unread).
     `% ${oneLine(heading(t))}`,
     `% source: ${oneLine(provenanceLine(p))}`,
+    ...t.notes.map((n) => `% note: ${oneLine(n)}`),
     "% needs \\usepackage{booktabs}",
     `\\begin{tabular}{l${"r".repeat(n)}}`,
     "\\toprule",
@@ -212,7 +224,7 @@ export function tableLatex(t: ExportTable, p: ExportProvenance): string {
 export const escapeHtml = (s: string) => escapeHtmlText(s);
 
 /** A self-contained HTML fragment for a wiki: one figure with the table, inline styles only, the source as its caption. */
-export function tableHtml(t: ExportTable, p: ExportProvenance): string {
+export function tableHtml(t: PresentationTable, p: ExportProvenance): string {
   const th = "padding:2px 8px;border-bottom:1px solid #888;text-align:left";
   const td = "padding:2px 8px;text-align:right;font-variant-numeric:tabular-nums";
   const out = [
@@ -239,7 +251,7 @@ export function tableHtml(t: ExportTable, p: ExportProvenance): string {
   out.push(
     "</tbody>",
     "</table>",
-    `<figcaption style="font-size:smaller">Source: ${escapeHtml(provenanceLine(p))}</figcaption>`,
+    `<figcaption style="font-size:smaller">Source: ${escapeHtml(provenanceLine(p))}${t.notes.map((n) => `<br>Note: ${escapeHtml(n)}`).join("")}</figcaption>`,
     "</figure>",
     "",
   );

@@ -1,53 +1,29 @@
 import serialize from "serialize-javascript";
-import type { StoredTablesDocument } from "../contract/tablesDocument.js";
-import { catalogFor } from "../contract/quantityCatalog.js";
-import { unitText } from "../contract/formatNumber.js";
-import { P16, P84 } from "../contract/formatInterval.js";
-import { plottedRedshiftRange, spansMoreThanADecade } from "../exports/chartStyle.js";
+import { chartData } from "../presentation/chartData.js";
+import { displayUnit, type PresentedDocument } from "../presentation/presentDocument.js";
+import { unitText } from "../presentation/formatNumber.js";
 
 /** Plot points are drawn, not read: six significant figures are more than a screen resolves. */
 const round = (x: number | null) => (x === null ? null : Number(x.toPrecision(6)));
+const rounded = (xs: (number | null)[]) => xs.map(round);
 
-/** The data the page's charts draw, taken from the grid of the tables document and rounded for size. */
-export function chartPayload(doc: StoredTablesDocument) {
-  const z = doc.models[0].grid.z.map(round);
-  const { CHART_SERIES } = catalogFor(doc); // only the series this document's format holds
-  const grid = (m: (typeof doc.models)[number], key: string) =>
-    (m.grid as unknown as Record<string, (number | null)[]>)[key];
-  const xRange = plottedRedshiftRange(doc);
+/** The data the page's charts draw (the presentation's chart data, the same the exported images draw), rounded for size. */
+export function chartPayload(p: PresentedDocument) {
+  const data = chartData(p);
   return {
-    baseline: doc.scenario.baseline,
-    z,
-    xRange,
-    series: CHART_SERIES.map((s) => ({
-      ...s,
-      unitText: unitText(s.unit),
-      logY: spansMoreThanADecade(
-        doc.models[0].grid.z,
-        doc.models.map((m) => grid(m, s.key)),
-        xRange,
-      ),
+    ...data,
+    z: rounded(data.z),
+    models: data.models.map((m) => ({
+      ...m,
+      values: Object.fromEntries(Object.entries(m.values).map(([k, v]) => [k, rounded(v)])),
+      ...(m.bands
+        ? {
+            bands: Object.fromEntries(
+              Object.entries(m.bands).map(([k, b]) => [k, { lo: rounded(b.lo), hi: rounded(b.hi) }]),
+            ),
+          }
+        : {}),
     })),
-    models: doc.models.map((m) => {
-      // A model with a spread brings its 68 % band (16th and 84th percentiles of its draws) for each series.
-      const grid = "spread" in m && m.spread ? m.spread.grid : null;
-      const bands = grid
-        ? Object.fromEntries(
-            CHART_SERIES.flatMap((s) => {
-              const g = grid[s.key];
-              return g ? [[s.key, { lo: g.q[P16].map(round), hi: g.q[P84].map(round) }]] : [];
-            }),
-          )
-        : null;
-      return {
-        id: m.id,
-        label: m.label,
-        values: Object.fromEntries(
-          CHART_SERIES.map((s) => [s.key, (m.grid as unknown as Record<string, (number | null)[]>)[s.key].map(round)]),
-        ),
-        ...(bands ? { bands } : {}),
-      };
-    }),
   };
 }
 
@@ -60,14 +36,16 @@ export function jsonForScriptElement(value: unknown): string {
 }
 
 /** The small overview chart of each scenario on the index: D_L against z, at most about 60 grid points. */
-export function indexChartPayload(docs: StoredTablesDocument[]) {
-  return docs.map((doc) => {
+export function indexChartPayload(presented: PresentedDocument[]) {
+  return presented.map((p) => {
+    const doc = p.doc;
     const n = doc.models[0].grid.z.length;
     const step = Math.max(1, Math.ceil(n / 60));
     const pick = (xs: (number | null)[]) => xs.filter((_, i) => i % step === 0 || i === n - 1).map(round);
     return {
       id: doc.scenario.id,
       z: pick(doc.models[0].grid.z),
+      yTitle: `D_L [${unitText(displayUnit(p, "Mpc"))}]`,
       models: doc.models.map((m) => ({ label: m.label, values: pick(m.grid.luminosity_distance_Mpc) })),
     };
   });

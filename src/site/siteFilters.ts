@@ -1,40 +1,14 @@
-import { littleHUnit, wantsLittleHUnits } from "../contract/littleHUnitNames.js";
-import { keyNumbersTable } from "../exports/exportTables.js";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { fateText } from "../contract/quantityCatalog.js";
-import {
-  columnIsScientific,
-  formatExact,
-  formatNumber,
-  formatPercent,
-  numberPartsIn,
-  partsText,
-  unitText,
-} from "../contract/formatNumber.js";
-import { intervalOf } from "../contract/formatInterval.js";
+import { formatExact, formatNumber, formatPercent, unitText } from "../presentation/formatNumber.js";
 import { renderMarkdown } from "./renderMarkdown.js";
 import { renderMath } from "./renderMath.js";
 import { chartPayload, indexChartPayload, jsonForScriptElement } from "./chartPayload.js";
 
 /** The Nunjucks filters of the site: formatting only. Filters marked html return markup (marked safe by the config). */
 export const TEXT_FILTERS = {
-  /** Whether the page shows h units (the scenario's h_units). */
-  hUnits: (doc: object) => wantsLittleHUnits(doc),
-  /** A unit as the page shows it: in h units when the scenario asks for them. */
-  hUnit: (unit: string, doc: object) => (wantsLittleHUnits(doc) ? littleHUnit(unit) : unit),
   /** Whether any model of a document has a massive neutrino (the page then shows the neutrino terms). */
   hasMassiveNeutrinos: (doc: StoredTablesDocument) => doc.models.some((m) => m.parameters.m_nu_eV.length > 0),
-  /** A number in its column's style (scientific when any value of the column is): see columnIsScientific. */
-  numIn: (x: number | null | undefined, scientific: boolean) =>
-    x === undefined ? "not computed" : partsText(numberPartsIn(x, scientific)),
-  /** For each model, whether its column of a per-redshift quantity prints in scientific notation. */
-  redshiftColumnStyles: (models: { redshifts: Record<string, unknown>[] }[], key: string) =>
-    models.map((m) => columnIsScientific(m.redshifts.map((r) => r[key] as number | null))),
-  /** For each model, whether its column of a survey quantity prints in scientific notation. */
-  surveyColumnStyles: (models: { surveys: Record<string, number | null>[] }[], key: string) =>
-    models.map((m) => columnIsScientific(m.surveys.map((s) => s[key]))),
-  /** The key-number sheet of a tables document (the same table its exports and copy buttons carry). */
-  keyNumbers: (doc: StoredTablesDocument) => keyNumbersTable(doc),
   /** A model's fate in words, in the vocabulary of any format. */
   fate: (fate: string) => fateText(fate),
   /**
@@ -59,17 +33,6 @@ export const TEXT_FILTERS = {
     /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(iso) ? `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC` : iso,
   /** A version message, or a placeholder when it was frozen without one. */
   message: (m: string) => (m?.trim() ? m : "(no message)"),
-  /**
-   * A model's 68 % interval of one quantity ("13.797 +0.023 −0.023"), or "" when the model has no spread or the
-   * quantity no band: `where` is "summary", "redshifts", "targets" or "surveys", `i` the row (null for summary).
-   */
-  band: (m: { spread?: Record<string, unknown> }, where: string, i: number | null, key: string) => {
-    const section = m.spread?.[where] as Record<string, unknown> | Record<string, unknown>[] | undefined;
-    const holder = (i === null ? section : (section as Record<string, unknown>[] | undefined)?.[i]) as
-      | Record<string, Parameters<typeof intervalOf>[0]>
-      | undefined;
-    return intervalOf(holder?.[key])?.text ?? "";
-  },
   /** Whether any model extends a published set (the models table then cites it). */
   hasPublished: (doc: StoredTablesDocument) =>
     doc.models.some((m) => "published" in m && (m.published?.length ?? 0) > 0),

@@ -1,10 +1,10 @@
-import type { StoredTablesDocument } from "../contract/tablesDocument.js";
+import type { PresentedDocument } from "../presentation/presentDocument.js";
 import type { SitePages } from "./sitePages.js";
 
 /** What the site is built from: every page's tables document (live or frozen), the archive's pages and the downloads. */
 export interface SiteLedger extends SitePages {
-  /** Tables documents of the live pages, in id order (the index's overview charts). */
-  docs: StoredTablesDocument[];
+  /** The presented documents of the live pages, in id order (the index's overview charts). */
+  docs: PresentedDocument[];
   /** The archive folder, as shown to users. */
   archive: string;
 }

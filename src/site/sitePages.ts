@@ -9,16 +9,23 @@ import { versionDiff, type VersionDiff } from "../archive/versionDiff.js";
 import type { ScenarioArchive } from "../archive/readArchive.js";
 import type { StoredTablesDocument, TablesDocument } from "../contract/tablesDocument.js";
 import { catalogFor, type DocumentCatalog } from "../contract/quantityCatalog.js";
-import { tablesCsv } from "../tables/tablesCsv.js";
-import { inLittleHUnits, wantsLittleHUnits } from "../tables/littleHUnits.js";
+import { tablesCsv } from "../contract/tablesCsv.js";
+import { presentDocument, type PresentedDocument } from "../presentation/presentDocument.js";
+import {
+  geometryCards,
+  presentationTables,
+  type GeometryCard,
+  type PresentationTable,
+} from "../presentation/presentTables.js";
+import { presentationNotes } from "../presentation/presentDocument.js";
 import type { ExportContent, ExportIndex } from "../exports/exportFiles.js";
-import { formatPercent } from "../contract/formatNumber.js";
+import { formatPercent } from "../presentation/formatNumber.js";
 import { jsonForScriptElement } from "./chartPayload.js";
 import type { ExportProvenance } from "../exports/exportProvenance.js";
 
 /** Makes the exports of one page (the site passes exportFiles with cached chart renderers). */
 export type PageExporter = (
-  doc: StoredTablesDocument,
+  presented: PresentedDocument,
   base: Omit<ExportProvenance, "page">,
   pageAddress: string,
 ) => { files: { name: string; content: ExportContent }[]; index: ExportIndex };
@@ -50,7 +57,18 @@ export interface ScenarioPage {
   path: string;
   root: string;
   status: PageStatus;
+  /** The page's document as presented: every number in the units the page shows (src/presentation/). */
+  presented: PresentedDocument;
+  /** presented.doc, for the page's text (titles, labels, ids, hashes). */
   doc: StoredTablesDocument;
+  /** Every table of the page, by id, built once by the presentation layer (the exports render the same objects). */
+  tables: Record<string, PresentationTable>;
+  /** The tables of the page in page order (each redshift quantity's table among them). */
+  tableList: PresentationTable[];
+  /** "Geometry of space": one card per model. */
+  geometry: GeometryCard[];
+  /** What the numbers cannot say (h units with each model's H0, warnings), shown above the tables. */
+  notes: string[];
   source: string;
   /** The catalogue filtered to the quantities this page's document holds, and the labels of those it lacks. */
   catalog: DocumentCatalog;
@@ -166,8 +184,20 @@ function summarise(d: VersionDiff): string {
   return parts.join("; ");
 }
 
-/** The document as its page shows it: in h units when the scenario asks for them (downloads keep the contract's Mpc). */
-const shown = <D extends StoredTablesDocument>(doc: D): D => (wantsLittleHUnits(doc) ? inLittleHUnits(doc) : doc);
+/** What a page shows of a stored document: the presented document and its tables (downloads keep the contract's Mpc). */
+function shown(stored: StoredTablesDocument) {
+  const presented = presentDocument(stored);
+  const tableList = presentationTables(presented);
+  return {
+    presented,
+    doc: presented.doc,
+    tableList,
+    tables: Object.fromEntries(tableList.map((t) => [t.id, t])),
+    geometry: geometryCards(presented),
+    catalog: catalogFor(stored, presented.hUnits),
+    notes: presentationNotes(presented),
+  };
+}
 
 function downloadsOf(
   path: string,
@@ -207,7 +237,7 @@ export function sitePages(
       inputs_sha256: page.doc.scenario.inputs_sha256,
       engine_version: page.doc.engine.version,
     };
-    const made = exporter(page.doc, base, `${page.path}index.html`);
+    const made = exporter(page.presented, base, `${page.path}index.html`);
     page.exports = made.index;
     exportFiles.push(...made.files.map((f) => ({ path: `${page.path}exports/${f.name}`, content: f.content })));
     exportFiles.push({ path: `${page.path}exports/copy.js`, content: copyScript(made.index) });
@@ -232,9 +262,8 @@ export function sitePages(
         path: `${id}/v${r.version}/`,
         root: "../../",
         status: "frozen",
-        doc: shown(r.tables),
+        ...shown(r.tables),
         source: r.source.text,
-        catalog: catalogFor(r.tables),
         format: r.tables.format,
         version: info(r),
         latest: info(latest!),
@@ -256,9 +285,8 @@ export function sitePages(
       path: `${id}/`,
       root: "../",
       status,
-      doc: shown(doc),
+      ...shown(doc),
       source: file ? file.scenario.source_text : latest!.source.text,
-      catalog: catalogFor(doc),
       format: doc.format,
       version: status === "latest" || status === "archived-only" ? info(latest!) : null,
       latest: latest ? info(latest) : null,

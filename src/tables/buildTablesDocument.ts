@@ -27,7 +27,7 @@ import { gridRedshifts } from "./gridRedshifts.js";
 import { ModelComputeError, nullNonFinite } from "./modelComputeError.js";
 import { targetRows } from "./targetRows.js";
 import { surveyRows } from "./surveyRows.js";
-import { differencesFromBaseline } from "./differences.js";
+import { differencesFromBaseline } from "../contract/differences.js";
 import { cautions } from "./cautions.js";
 import { primeSpreadHelper, spreadBands, spreadDraws } from "./spreadBands.js";
 import type { DrawContext } from "./drawEvaluation.js";
@@ -73,7 +73,11 @@ function gridColumns(columns: Columns): RedshiftGrid {
   return out satisfies RedshiftGrid;
 }
 
-function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[]): ModelTables {
+/** The plausibility warnings of model i's own inputs (written at its keys), in the words `check` prints. */
+const inputWarnings = (s: ResolvedScenario, i: number): string[] =>
+  s.plausibility.filter((w) => w.path.startsWith(`models[${i}].`)).map((w) => w.message);
+
+function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[], index: number): ModelTables {
   const bg = m.background;
   const { summary, warnings } = backgroundSummary(bg);
   const allWarnings = [...m.warnings, ...warnings];
@@ -125,6 +129,7 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
     extends: m.extends,
     notes: m.notes,
     warnings: allWarnings,
+    input_warnings: inputWarnings(scenario, index),
     parameters: {
       H0: bg.H0_km_s_Mpc,
       Omega_m: bg.Omega_m,
@@ -178,9 +183,9 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
   // Every model's own tables first, then the spreads: the draws' hot code is then optimised after the engine has
   // met every kind of model in the scenario, and is not thrown away and compiled again at each new kind (the same
   // numbers either way). A model that cannot be computed is still reported in model order.
-  const central: ({ tables: ModelTables } | { error: unknown })[] = s.models.map((m) => {
+  const central: ({ tables: ModelTables } | { error: unknown })[] = s.models.map((m, i) => {
     try {
-      return { tables: modelTables(m, s, grid) };
+      return { tables: modelTables(m, s, grid, i) };
     } catch (e) {
       return { error: e };
     }
@@ -219,7 +224,7 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
     if (m.published) tables.published = m.published;
     const draws = drawsOf[i];
     if (draws) {
-      tables.spread = spreadBands(m, tables, draws, where);
+      tables.spread = spreadBands(m, tables, draws, where, s.h_units === true);
       if (tables.spread.accepted === 0)
         throw new ModelComputeError(
           i,

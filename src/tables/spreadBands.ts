@@ -10,6 +10,7 @@ import {
   normalQuantile,
 } from "../statistics/index.js";
 import type { Band, ModelSpread, ModelTables } from "../contract/tablesDocument.js";
+import { hPowerOfKey } from "../contract/littleHUnitNames.js";
 
 /** The parameter values of every draw of a spread (row-major: draw by parameter), and their weights. */
 export interface SpreadDraws {
@@ -100,16 +101,132 @@ function drawJobOf(model: ResolvedModel, draws: SpreadDraws, where: DrawContext,
   };
 }
 
+/** One quantity of a draw vector: its section, the row (redshift, target, shell) or grid point, and its key. */
+interface LayoutEntry {
+  section: "summary" | "redshifts" | "targets" | "surveys" | "grid";
+  index: number;
+  key: string;
+}
+
+/** Every quantity of a layout in the order of the draw vectors (see evaluateInto). */
+function layoutEntries(L: LayoutKeys, rows: number, gridPoints: number): LayoutEntry[] {
+  const out: LayoutEntry[] = [];
+  for (const key of L.summary) out.push({ section: "summary", index: 0, key });
+  for (let i = 0; i < rows; i++) for (const key of L.rowKeys) out.push({ section: "redshifts", index: i, key });
+  L.targetKeys.forEach((keys, i) => {
+    for (const key of keys) out.push({ section: "targets", index: i, key });
+  });
+  L.surveyKeys.forEach((keys, i) => {
+    for (const key of keys) out.push({ section: "surveys", index: i, key });
+  });
+  for (const key of L.gridKeys) for (let i = 0; i < gridPoints; i++) out.push({ section: "grid", index: i, key });
+  return out;
+}
+
+type BandMaps = Pick<ModelSpread, "summary" | "redshifts" | "targets" | "surveys" | "grid">;
+
+/**
+ * The band maps of the quantities `entries` lists, entry j's percentiles being stats' quantity j. A quantity that some
+ * accepted draws leave undefined has no band (counted in `undefinedIn`); a grid column with such a point has none.
+ */
+function bandMaps(
+  entries: readonly LayoutEntry[],
+  stats: { q_: Float64Array; e_: Float64Array; missing: Int32Array },
+  n: number,
+  shape: { rows: number; targets: number; surveys: number; gridPoints: number },
+  undefinedIn: Record<string, number>,
+): BandMaps {
+  const P = SPREAD_PERCENTILES.length;
+  /** The band of quantity q; null when some draw leaves it undefined ("all" when every draw does). */
+  const band = (q: number, name: string): Band | "all" | null => {
+    const missing = stats.missing[q];
+    if (n === 0 || missing === n) return "all";
+    if (missing > 0) {
+      undefinedIn[name] = missing;
+      return null;
+    }
+    return {
+      q: Array.from(stats.q_.subarray(q * P, q * P + P)),
+      mc_error: Array.from(stats.e_.subarray(q * P, q * P + P)),
+    };
+  };
+  const summary: Record<string, Band | null> = {};
+  const redshifts = Array.from({ length: shape.rows }, () => ({}) as Record<string, Band | null>);
+  const targets = Array.from({ length: shape.targets }, () => ({}) as Record<string, Band | null>);
+  const surveys = Array.from({ length: shape.surveys }, () => ({}) as Record<string, Band | null>);
+  const grid: ModelSpread["grid"] = {};
+  const gridColumns = new Map<string, { qs: (number | null)[][]; es: (number | null)[][]; whole: boolean }>();
+  entries.forEach((e, q) => {
+    if (e.section === "grid") {
+      // A point where no draw has a value (D_L's distance modulus at z = 0) stays null; a point where only some
+      // draws have one leaves the whole column without a band.
+      let column = gridColumns.get(e.key);
+      if (!column) {
+        column = {
+          qs: SPREAD_PERCENTILES.map(() => new Array<number | null>(shape.gridPoints)),
+          es: SPREAD_PERCENTILES.map(() => new Array<number | null>(shape.gridPoints)),
+          whole: true,
+        };
+        gridColumns.set(e.key, column);
+      }
+      const b = band(q, `grid.${e.key}`);
+      if (b === null) column.whole = false;
+      for (let j = 0; j < P; j++) {
+        column.qs[j][e.index] = b === null || b === "all" ? null : b.q[j];
+        column.es[j][e.index] = b === null || b === "all" ? null : b.mc_error[j];
+      }
+      return;
+    }
+    const name = e.section === "summary" ? `summary.${e.key}` : `${e.section}[${e.index}].${e.key}`;
+    const b = band(q, name);
+    const value = b === "all" ? null : b;
+    if (e.section === "summary") summary[e.key] = value;
+    else if (e.section === "redshifts") redshifts[e.index][e.key] = value;
+    else if (e.section === "targets") targets[e.index][e.key] = value;
+    else surveys[e.index][e.key] = value;
+  });
+  for (const [key, c] of gridColumns) grid[key] = c.whole ? { q: c.qs, mc_error: c.es } : null;
+  return { summary, redshifts, targets, surveys, grid };
+}
+
+/**
+ * Each draw's quantities that scale with h, converted with that draw's own h = H0/100 (the drawn H0 when the spread
+ * varies it, else the model's): the vectors of the h-unit bands, quantity j being entries[picked[j]].
+ */
+function inLittleHUnitsPerDraw(
+  values: Float64Array,
+  Q: number,
+  picked: readonly number[],
+  powers: readonly number[],
+  draws: SpreadDraws,
+  modelH0: number,
+): Float64Array {
+  const k = draws.keys.length;
+  const at = draws.keys.indexOf("H0");
+  const bytes = draws.count * picked.length * 8;
+  const out = new Float64Array(
+    values.buffer instanceof SharedArrayBuffer ? new SharedArrayBuffer(bytes) : new ArrayBuffer(bytes),
+  );
+  for (let i = 0; i < draws.count; i++) {
+    const h = (at >= 0 ? draws.values[i * k + at] : modelH0) / 100;
+    for (let j = 0; j < picked.length; j++) out[i * picked.length + j] = values[i * Q + picked[j]] * h ** powers[j];
+  }
+  return out;
+}
+
 /**
  * The spread of every numeric quantity of a model: each draw is resolved and computed exactly as the model itself
  * (`evaluate`), draws the resolver or the engine refuses are counted by reason, and each quantity gets the
- * percentiles SPREAD_PERCENTILES of the accepted draws with their Monte Carlo errors.
+ * percentiles SPREAD_PERCENTILES of the accepted draws with their Monte Carlo errors. With `hUnits`, the quantities
+ * that scale with h get a second set of bands in h units (`h_scaled`), each draw converted with its own h before
+ * the percentiles are taken: with H0 varied, the h^-1 Mpc interval is not the Mpc interval times one h.
  */
 export function spreadBands(
   model: ResolvedModel,
   nominal: ModelTables,
   draws: SpreadDraws,
   where: DrawContext,
+  hUnits = false,
 ): ModelSpread {
   const spread = model.spread!;
   const L = layoutKeysOf(nominal, where.grid.length);
@@ -131,66 +248,36 @@ export function spreadBands(
   const weights = draws.weights === null ? null : Float64Array.from(acceptedIndex, (i) => draws.weights![i]);
   const effective = effectiveSampleSize(weights, n);
   const undefinedIn: Record<string, number> = {};
-  const stats = computeBands({
-    values,
-    Q,
-    accepted: Int32Array.from(acceptedIndex),
-    weights,
-    effective,
-  });
-  const P = SPREAD_PERCENTILES.length;
-  /** The band of quantity q; null when some draw leaves it undefined ("all" when every draw does). */
-  const band = (q: number, name: string): Band | "all" | null => {
-    const missing = stats.missing[q];
-    if (n === 0 || missing === n) return "all";
-    if (missing > 0) {
-      undefinedIn[name] = missing;
-      return null;
-    }
-    return {
-      q: Array.from(stats.q_.subarray(q * P, q * P + P)),
-      mc_error: Array.from(stats.e_.subarray(q * P, q * P + P)),
-    };
+  const accepted = Int32Array.from(acceptedIndex);
+  const stats = computeBands({ values, Q, accepted, weights, effective });
+  const shape = {
+    rows: nominal.redshifts.length,
+    targets: L.targetKeys.length,
+    surveys: L.surveyKeys.length,
+    gridPoints: where.grid.length,
   };
-  const scalar = (q: number, name: string): Band | null => {
-    const b = band(q, name);
-    return b === "all" ? null : b;
-  };
-  let q = 0;
-  const summary: Record<string, Band | null> = {};
-  const gridPoints = where.grid.length;
-  for (const key of L.summary) summary[key] = scalar(q++, `summary.${key}`);
-  const redshifts = nominal.redshifts.map((_, i) => {
-    const out: Record<string, Band | null> = {};
-    for (const key of L.rowKeys) out[key] = scalar(q++, `redshifts[${i}].${key}`);
-    return out;
-  });
-  const targets = L.targetKeys.map((keys, i) => {
-    const out: Record<string, Band | null> = {};
-    for (const key of keys) out[key] = scalar(q++, `targets[${i}].${key}`);
-    return out;
-  });
-  const surveys = L.surveyKeys.map((keys, i) => {
-    const out: Record<string, Band | null> = {};
-    for (const key of keys) out[key] = scalar(q++, `surveys[${i}].${key}`);
-    return out;
-  });
-  const grid: ModelSpread["grid"] = {};
-  for (const key of L.gridKeys) {
-    // A point where no draw has a value (D_L's distance modulus at z = 0) stays null; a point where only some
-    // draws have one leaves the whole column without a band.
-    const qs = SPREAD_PERCENTILES.map(() => new Array<number | null>(gridPoints));
-    const es = SPREAD_PERCENTILES.map(() => new Array<number | null>(gridPoints));
-    let whole = true;
-    for (let i = 0; i < gridPoints; i++) {
-      const b = band(q++, `grid.${key}`);
-      if (b === null) whole = false;
-      for (let j = 0; j < SPREAD_PERCENTILES.length; j++) {
-        qs[j][i] = b === null || b === "all" ? null : b.q[j];
-        es[j][i] = b === null || b === "all" ? null : b.mc_error[j];
+  const entries = layoutEntries(L, shape.rows, shape.gridPoints);
+  const maps = bandMaps(entries, stats, n, shape, undefinedIn);
+  let hScaled: BandMaps | null = null;
+  if (hUnits) {
+    const picked: number[] = [];
+    const powers: number[] = [];
+    entries.forEach((e, q) => {
+      const p = hPowerOfKey(e.key);
+      if (p !== 0) {
+        picked.push(q);
+        powers.push(p);
       }
-    }
-    grid[key] = whole ? { q: qs, mc_error: es } : null;
+    });
+    const hValues = inLittleHUnitsPerDraw(values, Q, picked, powers, draws, model.inputs.H0);
+    const hStats = computeBands({ values: hValues, Q: picked.length, accepted, weights, effective });
+    hScaled = bandMaps(
+      picked.map((q) => entries[q]),
+      hStats,
+      n,
+      shape,
+      {},
+    );
   }
   const form = spread.form === "samples" ? "samples" : spread.correlation ? "multivariate_normal" : "normal";
   return {
@@ -203,10 +290,7 @@ export function spreadBands(
     rejected_because: rejected,
     effective_draws: effective,
     undefined_in: undefinedIn,
-    summary,
-    redshifts,
-    targets,
-    surveys,
-    grid,
+    ...maps,
+    ...(hScaled ? { h_scaled: hScaled } : {}),
   };
 }

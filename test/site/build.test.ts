@@ -3,7 +3,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { existsSync, readFileSync, readdirSync, statSync, writeFileSync, mkdirSync, copyFileSync } from "node:fs";
 import { dirname, join, resolve } from "node:path";
 import { parseHTML } from "linkedom";
-import { formatNumber } from "../../src/contract/formatNumber.js";
+import { formatNumber } from "../../src/presentation/formatNumber.js";
 import { REDSHIFT_GROUPS } from "../../src/contract/quantityCatalog.js";
 import { HOSTILE_SCENARIO, ROOT, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
 

@@ -6,7 +6,7 @@ import {
   formatPercent,
   numberPartsIn,
   partsText,
-} from "../../src/contract/formatNumber.js";
+} from "../../src/presentation/formatNumber.js";
 
 // Rounding to significant figures as defined by ECMAScript Number.prototype.toPrecision (ECMA-262).
 describe("number formatting on the pages", () => {

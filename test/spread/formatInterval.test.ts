@@ -2,7 +2,7 @@
 // the median to the same decimal place (the Review of Particle Physics rounding in its simplest form; common
 // practice). Expected strings are worked out by hand from the percentiles given.
 import { describe, expect, it } from "vitest";
-import { intervalOf } from "../../src/contract/formatInterval.js";
+import { intervalOf } from "../../src/presentation/formatInterval.js";
 
 const band = (p16: number, p50: number, p84: number) => ({
   q: [p16 - 1, p16, p50, p84, p84 + 1],
@@ -24,7 +24,10 @@ describe("intervals as the page prints them", () => {
     expect(intervalOf(band(3.82e10, 3.864e10, 3.9e10))?.tex).toBe("3.864^{+0.036}_{-0.044}\\times 10^{10}");
   });
   it("no interval for a quantity the draws do not move, or without a band", () => {
-    expect(intervalOf(band(5000, 5000, 5000))).toBeNull();
+    // Percentiles that print alike say that the quantity has no spread, never an interval of rounding noise.
+    expect(intervalOf(band(5000, 5000, 5000))!.fixed).toBe(true);
+    expect(intervalOf(band(5000, 5000, 5000))!.text).toBe("no spread at the digits shown");
+    expect(intervalOf(band(11 - 7e-15, 11 + 2e-15, 11 + 9e-15))!.text).toBe("no spread at the digits shown");
     expect(intervalOf(null)).toBeNull();
     expect(intervalOf(undefined)).toBeNull();
   });

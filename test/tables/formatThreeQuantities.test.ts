@@ -6,7 +6,8 @@ import { loadScenario } from "../../src/scenario/loadScenario.js";
 import { ScenarioInputError } from "../../src/scenario/scenarioIssue.js";
 import { buildTablesDocument } from "../../src/tables/buildTablesDocument.js";
 import { tablesDocumentProblem } from "../../src/contract/validateContract.js";
-import { exportTables } from "../../src/exports/exportTables.js";
+import { presentationTables } from "../../src/presentation/presentTables.js";
+import { presentDocument } from "../../src/presentation/presentDocument.js";
 import { tableLatex } from "../../src/exports/exportFormats.js";
 import { relErr } from "../helpers/modelOf.js";
 
@@ -46,7 +47,7 @@ describe("tables format 3 quantities", () => {
     );
     expect(d.models[0].label_tex).toBe("\\Lambda\\mathrm{CDM}");
     expect(d.models[1].label_tex).toBeNull(); // not inherited, like label
-    const models = exportTables(d).find((t) => t.id === "models")!;
+    const models = presentationTables(presentDocument(d)).find((t) => t.id === "models")!;
     const provenance = {
       tool: "cosmoledger",
       tool_version: "0",

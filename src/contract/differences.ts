@@ -1,4 +1,4 @@
-import type { Difference, ModelDifferences, ModelTables, Num, RedshiftRow } from "../contract/tablesDocument.js";
+import type { Difference, ModelDifferences, ModelTables, Num, RedshiftRow } from "./tablesDocument.js";
 
 function relative(x: Num | string, base: Num | string): Num {
   if (typeof x !== "number" || typeof base !== "number" || base === 0) return null;

@@ -1,4 +1,8 @@
-import type { Band } from "./tablesDocument.js";
+import type { Band } from "../contract/tablesDocument.js";
+import { formatNumber } from "./formatNumber.js";
+
+/** What an interval says when every draw gives the same printed value. */
+export const NO_SPREAD = "no spread at the digits shown";
 
 /** Index of each reported percentile in a band's `q` (the document's draws.percentiles: 2.5, 16, 50, 84, 97.5). */
 export const P16 = 1;
@@ -10,6 +14,14 @@ export interface IntervalText {
   median: number;
   plus: number;
   minus: number;
+  /** The 16th and 84th percentiles themselves (full precision, as stored). */
+  p16: number;
+  p84: number;
+  /**
+   * Every draw gives the same value to the digits a page prints (a target's placement quantity, a length in h^-1 Mpc
+   * that does not depend on the varied H0): no interval is printed, only that it has no spread.
+   */
+  fixed: boolean;
   /** "13.797 +0.023 −0.023" (or "(1.23 +0.04 −0.05) × 10^9"). */
   text: string;
   /** LaTeX, for a math environment: "13.797^{+0.023}_{-0.023}". */
@@ -19,13 +31,20 @@ export interface IntervalText {
 /**
  * The median of a band and its 68 % interval (16th to 84th percentile) as +upper -lower. Digits: two significant
  * figures of the smaller half-width, the median rounded to the same decimal place (the rounding rule of the Review
- * of Particle Physics in its simplest form; common practice). Null when the band is null or has no width.
+ * of Particle Physics in its simplest form; common practice). Null when the band is null; `fixed` when the 16th and
+ * 84th percentiles print alike at the pages' six significant figures.
  */
 export function intervalOf(band: Band | null | undefined): IntervalText | null {
   if (!band) return null;
   const median = band.q[P50];
-  const plus = band.q[P84] - median;
-  const minus = median - band.q[P16];
+  const p16 = band.q[P16];
+  const p84 = band.q[P84];
+  const plus = p84 - median;
+  const minus = median - p16;
+  if (!Number.isFinite(median) || !Number.isFinite(p16) || !Number.isFinite(p84)) return null;
+  // Percentiles that print alike at the pages' digits carry no information, only rounding noise: say so instead.
+  if (formatNumber(p16) === formatNumber(p84))
+    return { median, plus, minus, p16, p84, fixed: true, text: NO_SPREAD, tex: `\\mbox{${NO_SPREAD}}` };
   const smaller = Math.min(plus, minus) > 0 ? Math.min(plus, minus) : Math.max(plus, minus);
   if (!(smaller > 0) || !Number.isFinite(median)) return null;
   const scale = Math.abs(median);
@@ -37,6 +56,15 @@ export function intervalOf(band: Band | null | undefined): IntervalText | null {
   const core = `${fix(median)} +${fix(plus)} \u2212${fix(minus)}`;
   const texCore = `${fix(median)}^{+${fix(plus)}}_{-${fix(minus)}}`;
   return exponent === 0
-    ? { median, plus, minus, text: core, tex: texCore }
-    : { median, plus, minus, text: `(${core}) \u00d7 10^${exponent}`, tex: `${texCore}\\times 10^{${exponent}}` };
+    ? { median, plus, minus, p16, p84, fixed: false, text: core, tex: texCore }
+    : {
+        median,
+        plus,
+        minus,
+        p16,
+        p84,
+        fixed: false,
+        text: `(${core}) \u00d7 10^${exponent}`,
+        tex: `${texCore}\\times 10^{${exponent}}`,
+      };
 }

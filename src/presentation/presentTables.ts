@@ -1,33 +1,39 @@
 import { quantityValue, type StoredModelTables, type StoredTablesDocument } from "../contract/tablesDocument.js";
 import { catalogFor, fateText } from "../contract/quantityCatalog.js";
-import { littleHUnit, wantsLittleHUnits } from "../contract/littleHUnitNames.js";
-import { intervalOf, type IntervalText } from "../contract/formatInterval.js";
+import { intervalOf, type IntervalText } from "./formatInterval.js";
 import {
   columnIsScientific,
   exactParts,
+  formatNumber,
+  formatPercent,
   numberParts,
   numberPartsIn,
   partsText,
   type NumberParts,
-} from "../contract/formatNumber.js";
+} from "./formatNumber.js";
+import { displayUnit, presentationNotes, type PresentedDocument } from "./presentDocument.js";
 
 /** One cell: the raw value (full precision, for CSV and JSON) and what the page prints (number parts or text). */
-export interface ExportCell {
+export interface PresentationCell {
   kind: "number" | "text";
   value: number | string | null;
   parts: NumberParts | null;
   text: string;
   /** For a model with a spread: the median of its draws and the central 68 % interval (absent otherwise). */
   interval?: IntervalText;
+  /** Pages only: the difference from the baseline model ("+12.3 (+1.23 %)" or "+1.23 %"), notable above 1 %. */
+  difference?: { text: string; notable: boolean };
+  /** Pages only: how the value came to be (set, inherited, default, derived), for the models table. */
+  provenance?: string;
 }
-export interface ExportRow {
+export interface PresentationRow {
   label: string;
   unit: string;
-  cells: ExportCell[];
+  cells: PresentationCell[];
 }
 
 /** A table as the page shows it, ready for every export format. Units sit in the row labels or in `spans`. */
-export interface ExportTable {
+export interface PresentationTable {
   id: string;
   title: string;
   /** The page section the table sits in (for the provenance address). */
@@ -40,22 +46,27 @@ export interface ExportTable {
   stub: string;
   /** tex: the model's LaTeX label (label_tex), used by the LaTeX export instead of the escaped plain label. */
   columns: { label: string; unit: string; tex?: string }[];
-  rows: ExportRow[];
+  rows: PresentationRow[];
+  /** What the numbers cannot say (h units and each model's H0, warnings), printed with the table in every format. */
+  notes: string[];
 }
 
-const num = (x: number | null | undefined): ExportCell => {
+/** Whether a relative difference is above 1 % (such cells stand out on pages). */
+const notable = (x: number | null | undefined) => typeof x === "number" && Math.abs(x) > 0.01;
+
+const num = (x: number | null | undefined): PresentationCell => {
   const parts = numberParts(x);
   return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
 };
-const inStyle = (x: number | null | undefined, scientific: boolean): ExportCell => {
+const inStyle = (x: number | null | undefined, scientific: boolean): PresentationCell => {
   const parts = numberPartsIn(x, scientific);
   return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
 };
-const exact = (x: number | null | undefined): ExportCell => {
+const exact = (x: number | null | undefined): PresentationCell => {
   const parts = exactParts(x);
   return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
 };
-const text = (s: string | null | undefined): ExportCell => ({
+const text = (s: string | null | undefined): PresentationCell => ({
   kind: "text",
   value: s ?? null,
   parts: null,
@@ -65,12 +76,12 @@ const text = (s: string | null | undefined): ExportCell => ({
 type BandSection = "summary" | "redshifts" | "targets" | "surveys";
 /** A cell with the model's 68 % interval of the same quantity, when the model has a spread and the quantity a band. */
 const banded = (
-  cell: ExportCell,
+  cell: PresentationCell,
   m: StoredModelTables,
   where: BandSection,
   row: number | null,
   key: string,
-): ExportCell => {
+): PresentationCell => {
   if (!("spread" in m) || !m.spread) return cell;
   const section = m.spread[where] as unknown;
   const holder = (row === null ? section : (section as unknown[])[row]) as Record<string, never> | undefined;
@@ -93,21 +104,21 @@ const SHEET_ROWS = [
  * headline quantities at each table redshift, then the age today. Read from the document, never recomputed.
  */
 /** The key-number sheet alone (the page renders it; its exports come with the other tables). */
-export function keyNumbersTable(doc: StoredTablesDocument): ExportTable {
-  return keyNumbers(doc, modelColumns(doc));
+export function keyNumbersTable(p: PresentedDocument): PresentationTable {
+  return keyNumbers(p, modelColumns(p.doc));
 }
 
-function modelColumns(doc: StoredTablesDocument): ExportTable["columns"] {
+function modelColumns(doc: StoredTablesDocument): PresentationTable["columns"] {
   return doc.models.map((m) => {
     const tex = "label_tex" in m ? m.label_tex : null; // format 3 on
     return tex ? { label: m.label, unit: "", tex } : { label: m.label, unit: "" };
   });
 }
 
-function keyNumbers(doc: StoredTablesDocument, columns: ExportTable["columns"]): ExportTable {
+function keyNumbers(p: PresentedDocument, columns: PresentationTable["columns"]): PresentationTable {
+  const doc = p.doc;
   const models = doc.models;
-  const rows: ExportRow[] = [];
-  const h = wantsLittleHUnits(doc);
+  const rows: PresentationRow[] = [];
   // Each number with its 68 % interval when the model has a spread (where: the band's section, row and key).
   const row = (
     label: string,
@@ -117,7 +128,7 @@ function keyNumbers(doc: StoredTablesDocument, columns: ExportTable["columns"]):
   ) =>
     rows.push({
       label,
-      unit: h ? littleHUnit(unit) : unit,
+      unit: displayUnit(p, unit),
       cells: models.map((m) => banded(num(value(m)), m, ...where)),
     });
   models[0].targets.forEach((t, ti) => {
@@ -157,22 +168,51 @@ function keyNumbers(doc: StoredTablesDocument, columns: ExportTable["columns"]):
     stub: "Quantity",
     columns,
     rows,
+    notes: presentationNotes(p),
   };
 }
 
 /** Every table of a scenario page in page order: models, at a glance, each redshift table, early universe, targets, surveys. */
-export function exportTables(doc: StoredTablesDocument): ExportTable[] {
+export function presentationTables(p: PresentedDocument): PresentationTable[] {
+  const doc = p.doc;
   // Only the quantities this document's format holds: a quantity added by a later format is left out, never blank.
   const { EARLY_QUANTITIES, PARAMETERS, REDSHIFT_GROUPS, SUMMARY_QUANTITIES, TARGET_QUANTITIES, hasEarlyUniverse } =
-    catalogFor(doc);
+    catalogFor(doc, p.hUnits);
   const models = doc.models;
   const columns = modelColumns(doc);
-  const perModel = (label: string, unit: string, f: (m: StoredModelTables) => ExportCell): ExportRow => ({
+  const perModel = (label: string, unit: string, f: (m: StoredModelTables) => PresentationCell): PresentationRow => ({
     label,
     unit,
     cells: models.map(f),
   });
-  const tables: ExportTable[] = [keyNumbers(doc, columns)];
+  const tables: Omit<PresentationTable, "notes">[] = [keyNumbers(p, columns)];
+  const baseId = doc.scenario.baseline;
+  /** A summary cell of model m with its difference from the baseline (absolute and relative). */
+  const summaryDiff = (cell: PresentationCell, m: StoredModelTables, key: string): PresentationCell => {
+    const d =
+      m.id === baseId
+        ? undefined
+        : (
+            doc.differences[m.id]?.summary as
+              | Record<string, { absolute: number | null; relative: number | null }>
+              | undefined
+          )?.[key];
+    if (!d || d.absolute === null) return cell;
+    const sign = d.absolute > 0 ? "+" : "";
+    return {
+      ...cell,
+      difference: {
+        text: `${sign}${formatNumber(d.absolute)} (${formatPercent(d.relative)})`,
+        notable: notable(d.relative),
+      },
+    };
+  };
+  /** A per-redshift cell of model m with its relative difference from the baseline. */
+  const rowDiff = (cell: PresentationCell, m: StoredModelTables, i: number, key: string): PresentationCell => {
+    if (m.id === baseId) return cell;
+    const rel = (doc.differences[m.id]?.redshifts[i] as Record<string, number | null> | undefined)?.[key] ?? null;
+    return { ...cell, difference: { text: formatPercent(rel), notable: notable(rel) } };
+  };
   tables.push({
     id: "models",
     title: "Models side by side",
@@ -181,10 +221,11 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
     stub: "Parameter",
     columns,
     rows: [
-      ...PARAMETERS.map((p) =>
-        perModel(p.label, p.unit, (m) => {
-          const v = (m.parameters as unknown as Record<string, number | null>)[p.key];
-          return ((m.provenance as Record<string, string>)[p.key] ?? "derived") === "derived" ? num(v) : exact(v);
+      ...PARAMETERS.map((q) =>
+        perModel(q.label, q.unit, (m) => {
+          const v = (m.parameters as unknown as Record<string, number | null>)[q.key];
+          const how = (m.provenance as Record<string, string>)[q.key] ?? "derived";
+          return { ...(how === "derived" ? num(v) : exact(v)), provenance: how };
         }),
       ),
       perModel("Massive neutrinos", "eV", (m) =>
@@ -207,7 +248,11 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
       perModel("Fate", "", (m) => text(fateText(m.summary.fate))),
       ...SUMMARY_QUANTITIES.map((q) =>
         perModel(q.label, q.unit, (m) =>
-          banded(num(quantityValue(m.summary, q.key) as number | null), m, "summary", null, q.key),
+          summaryDiff(
+            banded(num(quantityValue(m.summary, q.key) as number | null), m, "summary", null, q.key),
+            m,
+            q.key,
+          ),
         ),
       ),
     ],
@@ -254,7 +299,12 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
           label: exact(r.z).text,
           unit: "",
           cells: models.map((m, mi) =>
-            banded(inStyle(zValue(m, i, q.key), zScientific(q.key)[mi]), m, "redshifts", i, q.key),
+            rowDiff(
+              banded(inStyle(zValue(m, i, q.key), zScientific(q.key)[mi]), m, "redshifts", i, q.key),
+              m,
+              i,
+              q.key,
+            ),
           ),
         })),
       });
@@ -275,7 +325,11 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
           cells: [
             text(q.method),
             ...models.map((m) =>
-              banded(num(quantityValue(m.summary, q.key) as number | null), m, "summary", null, q.key),
+              summaryDiff(
+                banded(num(quantityValue(m.summary, q.key) as number | null), m, "summary", null, q.key),
+                m,
+                q.key,
+              ),
             ),
           ],
         })),
@@ -306,49 +360,93 @@ export function exportTables(doc: StoredTablesDocument): ExportTable[] {
     });
   });
   if (models[0].surveys.length > 0) {
+    // Models as columns, as in every other table (so that eight models fit a printed page): for each shell, its
+    // volume, volume per square degree and expected count, the shell named with its area and redshift range.
     const perDeg2 = "volume_per_deg2_Mpc3" in models[0].surveys[0];
-    const hUnit = (unit: string) => (wantsLittleHUnits(doc) ? littleHUnit(unit) : unit);
-    // One column, one style (as on the page): a model's column is scientific when any of its shells needs it.
-    const columnOf = (key: string) =>
-      models.map((m) => columnIsScientific(m.surveys.map((s) => (s as Record<string, unknown>)[key] as number | null)));
-    const styles = {
-      volume: columnOf("volume_Gpc3"),
-      perDeg2: columnOf("volume_per_deg2_Mpc3"),
-      count: columnOf("expected_count"),
-    };
+    const rows: PresentationRow[] = [];
+    models[0].surveys.forEach((s, si) => {
+      const name = `${s.name} (${exact(s.area_deg2).text} deg², z ${exact(s.z_min).text} to ${exact(s.z_max).text})`;
+      const value = (m: StoredModelTables, key: string) =>
+        quantityValue(m.surveys[si], key as never) as number | null | undefined;
+      rows.push(
+        perModel(`${name}: volume`, displayUnit(p, "Gpc^3"), (m) =>
+          banded(num(value(m, "volume_Gpc3")), m, "surveys", si, "volume_Gpc3"),
+        ),
+      );
+      if (perDeg2)
+        rows.push(
+          perModel(`${name}: volume per deg²`, displayUnit(p, "Mpc^3"), (m) =>
+            banded(num(value(m, "volume_per_deg2_Mpc3")), m, "surveys", si, "volume_per_deg2_Mpc3"),
+          ),
+        );
+      rows.push(
+        perModel(`${name}: expected count`, "", (m) =>
+          banded(num(value(m, "expected_count")), m, "surveys", si, "expected_count"),
+        ),
+      );
+    });
     tables.push({
       id: "surveys",
       title: "Survey shells",
       anchor: "surveys",
       spans: null,
       stub: "Shell",
-      columns: [
-        { label: "Area", unit: "deg^2" },
-        { label: "z min", unit: "" },
-        { label: "z max", unit: "" },
-        ...models.flatMap((m) => [
-          { label: `${m.label}: volume`, unit: hUnit("Gpc^3") },
-          ...(perDeg2 ? [{ label: `${m.label}: volume per deg^2`, unit: hUnit("Mpc^3") }] : []),
-          { label: `${m.label}: expected count`, unit: "" },
-        ]),
-      ],
-      rows: models[0].surveys.map((s, si) => ({
-        label: s.name,
-        unit: "",
-        cells: [
-          exact(s.area_deg2),
-          exact(s.z_min),
-          exact(s.z_max),
-          ...models.flatMap((m, mi) => [
-            banded(inStyle(m.surveys[si].volume_Gpc3, styles.volume[mi]), m, "surveys", si, "volume_Gpc3"),
-            ...(perDeg2
-              ? [inStyle(quantityValue(m.surveys[si], "volume_per_deg2_Mpc3") as number | null, styles.perDeg2[mi])]
-              : []),
-            banded(inStyle(m.surveys[si].expected_count, styles.count[mi]), m, "surveys", si, "expected_count"),
-          ]),
-        ],
-      })),
+      columns,
+      rows,
     });
   }
-  return tables;
+  const notes = presentationNotes(p);
+  return tables.map((table) => ({ ...table, notes }));
+}
+
+/** One model's "Geometry of space" card: its geometry in words, the sizes curvature implies, and its warnings. */
+export interface GeometryCard {
+  id: string;
+  label: string;
+  geometry: string;
+  /** "finite 3-sphere", "infinite, hyperbolic" or "infinite, Euclidean". */
+  kind: string;
+  entries: { label: string; unit: string; text: string }[];
+  warnings: string[];
+}
+
+const GEOMETRY_KIND: Record<string, string> = {
+  closed: "finite 3-sphere",
+  open: "infinite, hyperbolic",
+  flat: "infinite, Euclidean",
+};
+
+/**
+ * "Geometry of space", a card per model: the curvature and the sizes it implies (a closed model's total volume,
+ * antipode and the share of it inside the particle horizon), in the units the page shows, with the model's warnings.
+ */
+export function geometryCards(p: PresentedDocument): GeometryCard[] {
+  return p.doc.models.map((m) => {
+    const s = m.summary as unknown as Record<string, number | null | undefined> & { geometry: string };
+    const entry = (label: string, unit: string, x: number | null | undefined) => ({
+      label,
+      unit: displayUnit(p, unit),
+      text: x === undefined ? "not computed" : num(x).text,
+    });
+    const entries = [
+      entry("Omega_k", "", m.parameters.Omega_k),
+      entry("Curvature radius", "Mpc", s.curvature_radius_Mpc),
+    ];
+    if (s.geometry === "closed")
+      entries.push(
+        entry("Total comoving volume 2π²R³", "Gpc^3", s.closed_volume_Gpc3),
+        entry("Antipode at πR", "Mpc", s.antipode_distance_Mpc),
+        entry("Volume with antipodes identified", "Gpc^3", s.identified_antipodes_volume_Gpc3),
+        entry("Fraction of the 3-sphere inside the particle horizon", "", s.observable_fraction),
+      );
+    entries.push(entry("Particle horizon", "Mpc", s.particle_horizon_Mpc));
+    return {
+      id: m.id,
+      label: m.label,
+      geometry: s.geometry,
+      kind: GEOMETRY_KIND[s.geometry] ?? s.geometry,
+      entries,
+      warnings: p.warnings[m.id] ?? [],
+    };
+  });
 }

@@ -1,6 +1,6 @@
 import { csvText } from "../common/userText.js";
 import { stringify } from "csv-stringify/sync";
-import type { StoredTablesDocument } from "../contract/tablesDocument.js";
+import type { StoredTablesDocument } from "./tablesDocument.js";
 
 /** Empty for null; numbers as numbers; text neutralised against spreadsheet formula injection (OWASP). */
 const cell = (v: unknown): string =>
