@@ -5,8 +5,15 @@ import type { StoredTablesDocument } from "./tablesDocument.js";
 /** Empty for null; numbers as numbers; text neutralised against spreadsheet formula injection (OWASP). */
 const cell = (v: unknown): string =>
   v === null || v === undefined ? "" : typeof v === "string" ? csvText(v) : String(v);
-/** Always quote a field holding "#" or a line break (a lone CR too, RFC 4180). */
-const QUOTED = /[#\r\n]/;
+/**
+ * Fields that are always quoted: those holding "#" (some readers take it as a comment anywhere) or a line break (a
+ * lone CR too, RFC 4180). One rule for the contract's CSVs and every CSV export.
+ */
+export const CSV_QUOTED = /[#\r\n]/;
+
+/** RFC 4180 CSV text of rows of fields (csv-stringify): CRLF line ends, CSV_QUOTED fields quoted. */
+export const csvRows = (rows: string[][]): string =>
+  stringify(rows, { record_delimiter: "\r\n", quoted_match: CSV_QUOTED });
 
 /**
  * One RFC 4180 CSV per table shown on the page (the chart grid stays in tables.json) of the document (csv-stringify),
@@ -15,8 +22,7 @@ const QUOTED = /[#\r\n]/;
  */
 export function tablesCsv(doc: StoredTablesDocument): Record<string, string> {
   const ids = doc.models.map((m) => m.id);
-  const table = (header: string[], body: unknown[][]) =>
-    stringify([header.map(cell), ...body.map((r) => r.map(cell))], { record_delimiter: "\r\n", quoted_match: QUOTED });
+  const table = (header: string[], body: unknown[][]) => csvRows([header.map(cell), ...body.map((r) => r.map(cell))]);
   const cellOf = (v: unknown) => (Array.isArray(v) ? v.join(" ") : v);
   const rec = (x: object) => x as Record<string, unknown>;
   const paramKeys = Object.keys(doc.models[0].parameters);

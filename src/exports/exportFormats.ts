@@ -1,12 +1,11 @@
 import escapeHtmlText from "escape-html";
-import { stringify } from "csv-stringify/sync";
+import { csvRows } from "../contract/tablesCsv.js";
 import { type NumberParts, unitText } from "../presentation/formatNumber.js";
 import type { PresentationCell, PresentationTable } from "../presentation/presentTables.js";
 import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
 import { csvText, latexText, oneLine } from "../common/userText.js";
 
-/** CSV fields that are always quoted: those holding "#" (some readers take it as a comment anywhere) or a line break. */
-export const CSV_QUOTED = /[#\r\n]/;
+export { CSV_QUOTED } from "../contract/tablesCsv.js";
 
 export const EXPORT_FORMAT = "cosmoledger.export/1";
 
@@ -75,7 +74,7 @@ export function tableCsv(t: PresentationTable, p: ExportProvenance): string {
     [...head, ...extra].map(csvText),
     ...t.rows.map((r) => [csvText(labelWithUnit(r.label, r.unit)), ...r.cells.map(value), ...bands(r)]),
   ];
-  const body = stringify(rows, { record_delimiter: "\r\n", quoted_match: CSV_QUOTED });
+  const body = csvRows(rows);
   return `${comments.join("\r\n")}\r\n${body}`;
 }
 
