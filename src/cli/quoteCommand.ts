@@ -11,7 +11,7 @@ import { displayPath } from "../common/displayPath.js";
 import { tableCsv, tableJson, tableLatex, tableMarkdown } from "../exports/exportFormats.js";
 import type { ExportProvenance } from "../exports/exportProvenance.js";
 import { computeTables } from "./computeTables.js";
-import { loadScenarioFile } from "./readScenarioFile.js";
+import { attachmentReader, loadScenarioFile } from "./readScenarioFile.js";
 import { DEFAULT_QUOTE_QUANTITIES, UnknownQuantityError, resolveQuantities } from "./quoteQuantities.js";
 import {
   PLACEMENT_OPTIONS,
@@ -144,7 +144,16 @@ export async function quoteCommand(argv: string[]): Promise<number> {
             `${displayPath(file)} has no model "${id}" (did you mean ${closest(id, ids)}?); its models: ${ids.join(", ")}`,
           );
       text = derivedFromFile(loaded.scenario.source.text, placements, extras);
-      scenario = loadInline(text, loaded.scenario.source.path, models, placements, extras);
+      // Samples files are read beside the scenario file, as compute reads them.
+      scenario = loadInline(
+        text,
+        loaded.scenario.source.path,
+        models,
+        placements,
+        extras,
+        undefined,
+        attachmentReader(file),
+      );
     } else {
       const quoted = quoteScenario(models, placements, extras, command);
       text = quoted.text;
@@ -229,9 +238,12 @@ function loadInline(
   placements: Placement[],
   extras: TargetExtras,
   data?: unknown,
+  readAttachment?: (relative: string) => string,
 ): ResolvedScenario {
   try {
-    return data === undefined ? loadScenario(text, name) : loadScenarioData(data, text, name);
+    return data === undefined
+      ? loadScenario(text, name, readAttachment ? { readAttachment } : {})
+      : loadScenarioData(data, text, name);
   } catch (e) {
     if (e instanceof ScenarioInputError) throw mapIssues(e, models, placements, extras);
     throw e;

@@ -12,6 +12,7 @@ import {
   type NumberParts,
 } from "./formatNumber.js";
 import { displayUnit, presentationNotes, type PresentedDocument } from "./presentDocument.js";
+import { chartData } from "./chartData.js";
 
 /** One cell: the raw value (full precision, for CSV and JSON) and what the page prints (number parts or text). */
 export interface PresentationCell {
@@ -44,8 +45,16 @@ export interface PresentationTable {
    */
   spans: { label: string; unit: string; columns: number }[] | null;
   stub: string;
-  /** tex: the model's LaTeX label (label_tex), used by the LaTeX export instead of the escaped plain label. */
-  columns: { label: string; unit: string; tex?: string }[];
+  /**
+   * tex: the model's LaTeX label (label_tex), used by the LaTeX export instead of the escaped plain label; model: for
+   * a model's column, its id, whether it is the baseline and the models it extends (the page's models header).
+   */
+  columns: {
+    label: string;
+    unit: string;
+    tex?: string;
+    model?: { id: string; baseline: boolean; parents: string[] };
+  }[];
   rows: PresentationRow[];
   /** What the numbers cannot say (h units and each model's H0, warnings), printed with the table in every format. */
   notes: string[];
@@ -111,7 +120,12 @@ export function keyNumbersTable(p: PresentedDocument): PresentationTable {
 function modelColumns(doc: StoredTablesDocument): PresentationTable["columns"] {
   return doc.models.map((m) => {
     const tex = "label_tex" in m ? m.label_tex : null; // format 3 on
-    return tex ? { label: m.label, unit: "", tex } : { label: m.label, unit: "" };
+    const model = {
+      id: m.id,
+      baseline: m.id === doc.scenario.baseline,
+      parents: m.extends === null || m.extends === undefined ? [] : Array.isArray(m.extends) ? m.extends : [m.extends],
+    };
+    return tex ? { label: m.label, unit: "", tex, model } : { label: m.label, unit: "", model };
   });
 }
 
@@ -449,4 +463,34 @@ export function geometryCards(p: PresentedDocument): GeometryCard[] {
       warnings: p.warnings[m.id] ?? [],
     };
   });
+}
+
+/**
+ * The data table under each chart (every few grid points, about twenty rows): z, then each model's value of each of
+ * the chart's series, in the units the chart shows. Page only; the grid itself is in tables.json.
+ */
+export function chartDataTables(p: PresentedDocument): Record<string, PresentationTable> {
+  const data = chartData(p);
+  const n = data.z.length;
+  const step = Math.max(1, Math.ceil(n / 20));
+  const points = Array.from({ length: Math.ceil(n / step) }, (_, i) => i * step);
+  const out: Record<string, PresentationTable> = {};
+  for (const c of data.charts) {
+    const series = c.keys.map((k) => data.series.find((s) => s.key === k)!);
+    out[c.id] = {
+      id: `chart-${c.id}`,
+      title: c.title,
+      anchor: "charts",
+      spans: null,
+      stub: "z",
+      columns: data.models.flatMap((m) => series.map((s) => ({ label: `${m.label}: ${s.label}`, unit: s.unit }))),
+      rows: points.map((i) => ({
+        label: num(data.z[i]).text,
+        unit: "",
+        cells: data.models.flatMap((m) => series.map((s) => num(m.values[s.key][i]))),
+      })),
+      notes: [],
+    };
+  }
+  return out;
 }

@@ -12,6 +12,7 @@ import { catalogFor, type DocumentCatalog } from "../contract/quantityCatalog.js
 import { tablesCsv } from "../contract/tablesCsv.js";
 import { presentDocument, type PresentedDocument } from "../presentation/presentDocument.js";
 import {
+  chartDataTables,
   geometryCards,
   presentationTables,
   type GeometryCard,
@@ -65,6 +66,8 @@ export interface ScenarioPage {
   tables: Record<string, PresentationTable>;
   /** The tables of the page in page order (each redshift quantity's table among them). */
   tableList: PresentationTable[];
+  /** The data table under each chart, by chart id. */
+  chartTables: Record<string, PresentationTable>;
   /** "Geometry of space": one card per model. */
   geometry: GeometryCard[];
   /** What the numbers cannot say (h units with each model's H0, warnings), shown above the tables. */
@@ -194,6 +197,7 @@ function shown(stored: StoredTablesDocument) {
     tableList,
     tables: Object.fromEntries(tableList.map((t) => [t.id, t])),
     geometry: geometryCards(presented),
+    chartTables: chartDataTables(presented),
     catalog: catalogFor(stored, presented.hUnits),
     notes: presentationNotes(presented),
   };

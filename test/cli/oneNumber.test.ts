@@ -5,10 +5,10 @@
 // one another (and test/presentation/ checks the conversions against closed forms).
 import { describe, expect, it, beforeAll } from "vitest";
 import fc from "fast-check";
-import { mkdirSync, readFileSync, readdirSync, writeFileSync } from "node:fs";
+import { cpSync, mkdirSync, readFileSync, readdirSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { parseHTML } from "linkedom";
-import { compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
+import { ROOT, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
 
 // A fixed seed, printed, so that a failure can be replayed exactly (fast-check's documented configureGlobal).
 const SEED = 240_117;
@@ -19,21 +19,24 @@ const scenario = fc.record({
   H0: fc.double({ min: 55, max: 85, noNaN: true }),
   Omega_m: fc.double({ min: 0.15, max: 0.45, noNaN: true }),
   Omega_k: fc.constantFrom(0, 0.04, -0.03),
-  spread: fc.constantFrom("none", "H0", "Omega_m", "asymmetric"),
+  spread: fc.constantFrom("none", "H0", "Omega_m", "asymmetric", "correlated", "samples", "published"),
   placement: fc.constantFrom("z: 1.5", "lookback_Gyr: 8", "comoving_distance_Mpc: 3000"),
 });
 
 type Generated = { hUnits: boolean; H0: number; Omega_m: number; Omega_k: number; spread: string; placement: string };
 
 function yamlOf(s: Generated): string {
-  const spread =
-    s.spread === "none"
-      ? ""
-      : s.spread === "H0"
-        ? "\n    spread: { normal: { H0: 2.5 } }"
-        : s.spread === "Omega_m"
-          ? "\n    spread: { normal: { Omega_m: 0.02 } }"
-          : "\n    spread: { normal: { H0: { plus: 1.5, minus: 3 } } }";
+  const spreads: Record<string, string> = {
+    none: "",
+    H0: "\n    spread: { normal: { H0: 2.5 } }",
+    Omega_m: "\n    spread: { normal: { Omega_m: 0.02 } }",
+    asymmetric: "\n    spread: { normal: { H0: { plus: 1.5, minus: 3 } } }",
+    correlated: "\n    spread: { normal: { H0: 1.2, Omega_m: 0.015 }, correlation: [[1, -0.85], [-0.85, 1]] }",
+    samples: "\n    spread: { samples: chain.csv }",
+    // A published set brings its marginal 68 % uncertainties as an independent normal spread.
+    published: "\n    extends: published/planck2018-ttteee-lowe-lensing-bao",
+  };
+  const spread = spreads[s.spread];
   return `title: Agreement
 id: agree
 ${s.hUnits ? "h_units: true\n" : ""}${s.spread === "none" ? "" : "draws: { count: 120, seed: 5 }\n"}redshifts: [0.5, 2]
@@ -60,6 +63,13 @@ describe("every output renders one presentation", { timeout: 900_000 }, () => {
         const dir = tempDir("cosmoledger-agree-");
         mkdirSync(join(dir, "scenarios"));
         writeFileSync(join(dir, "scenarios/agree.yaml"), yamlOf(s));
+        // A small weighted chain around the model (rows and weights made up for the test, not data).
+        const chain = Array.from(
+          { length: 40 },
+          (_, i) =>
+            `${(s.H0 + ((i % 7) - 3) * 0.4).toFixed(3)},${(s.Omega_m + ((i % 5) - 2) * 0.004).toFixed(4)},${1 + (i % 3)}`,
+        );
+        writeFileSync(join(dir, "scenarios/chain.csv"), `H0,Omega_m,weight\n${chain.join("\n")}\n`);
         const built = runCli(["build", "--scenarios", "scenarios", "--out", "site", "--skip-images", "--quiet"], dir);
         expect(built.code, built.stderr).toBe(0);
         const exported = runCli(
@@ -139,8 +149,60 @@ describe("every output renders one presentation", { timeout: 900_000 }, () => {
           s.hUnits ? "h^-1 Mpc" : "Mpc",
         );
       }),
-      { numRuns: 4, seed: SEED },
+      { numRuns: 7, seed: SEED },
     );
+  });
+
+  it("documents of every released format: a frozen version's page cells and its `export --version` agree", () => {
+    // The format-1 fixture archive (frozen by 0.1.0) and the demo archive (formats 2 to 4) as stored.
+    for (const [source, versions] of [
+      ["test/fixtures/archive-format-1", { "cinder-vault": [1, 3], "ember-relay": [1] }],
+      [".", { "lantern-deep-field": [1, 4], "harbor-lights-census": [2], "saltmarsh-forecast": [1] }],
+    ] as const) {
+      const dir = tempDir("cosmoledger-formats-");
+      cpSync(join(ROOT, source, "scenarios"), join(dir, "scenarios"), { recursive: true });
+      const built = runCli(["build", "--scenarios", "scenarios", "--out", "site", "--skip-images", "--quiet"], dir);
+      expect(built.code, built.stderr).toBe(0);
+      for (const [id, ns] of Object.entries(versions))
+        for (const n of ns) {
+          const r = runCli(
+            [
+              "export",
+              `scenarios/${id}.yaml`,
+              "--version",
+              String(n),
+              "--format",
+              "csv,json,md,tex,html",
+              "--out",
+              "exp",
+            ],
+            dir,
+          );
+          expect(r.code, r.stderr).toBe(0);
+          const siteExports = join(dir, `site/${id}/v${n}/exports`);
+          const cliExports = join(dir, `exp/${id}/v${n}`);
+          for (const f of readdirSync(cliExports).filter(
+            (x) => /\.(csv|json|md|tex|html)$/.test(x) && x !== "charts.md",
+          ))
+            expect(readFileSync(join(cliExports, f), "utf8"), `${id} v${n} ${f}`).toBe(
+              readFileSync(join(siteExports, f), "utf8"),
+            );
+          const page = parseHTML(readFileSync(join(dir, `site/${id}/v${n}/index.html`), "utf8")).document;
+          const key = JSON.parse(readFileSync(join(siteExports, "key-numbers.json"), "utf8")).table;
+          const rows = page.querySelectorAll('table[data-export-table="key-numbers"] tbody tr');
+          key.rows.forEach((row: { text: string[] }, i: number) =>
+            row.text.forEach((text, j) => {
+              const td = rows[i].querySelectorAll("td")[j];
+              expect(
+                [...td.childNodes]
+                  .filter((x) => x.nodeType === 3)
+                  .map((x) => x.textContent)
+                  .join(""),
+              ).toBe(text);
+            }),
+          );
+        }
+    }
   });
 
   it("quote prints check's warnings on standard error, and --strict refuses", () => {

@@ -57,7 +57,7 @@ describe("quote", { timeout: 180_000 }, () => {
       expect(value(q, "z = 0.3: Hubble rate H(z)", i)).toBe(m.redshifts[0].H_km_s_Mpc);
       // Every placement is a target here (a size was given): the target rows of the saved scenario.
       const target = (name: string) => m.targets.find((t) => String(t.name) === name)!;
-      expect(value(q, "z = 2: Angular size of size_kpc", i)).toBe(target("z = 2").angular_size_arcsec);
+      expect(value(q, "z = 2: Angular size", i)).toBe(target("z = 2").angular_size_arcsec);
       expect(value(q, "age = 1.5 Gyr: Redshift", i)).toBe(target("age = 1.5 Gyr").z);
       expect(value(q, "age = 1.5 Gyr: Luminosity distance D_L", i)).toBe(
         target("age = 1.5 Gyr").luminosity_distance_Mpc,
