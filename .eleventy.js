@@ -9,7 +9,6 @@ import { formatIssue } from "./dist/scenario/scenarioIssue.js";
 import { ENGINE_VERSION } from "./dist/engine/engineVersion.js";
 import { SITE_MARKER } from "./dist/cli/siteMarker.js";
 import { writeExportFiles } from "./dist/exports/exportFiles.js";
-import { CHART_STYLE } from "./dist/presentation/chartStyle.js";
 import { mkdirSync, writeFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 
@@ -35,7 +34,6 @@ export default function (eleventyConfig) {
     process.env.ELEVENTY_RUN_MODE === "serve" ? "'self' ws: wss:" : "'none'",
   );
   eleventyConfig.addGlobalData("catalog", { ...catalog });
-  eleventyConfig.addGlobalData("chartStyle", CHART_STYLE);
   eleventyConfig.addGlobalData("tex", {
     friedmann: FRIEDMANN_TEX,
     closure: CLOSURE_TEX,
@@ -59,6 +57,9 @@ export default function (eleventyConfig) {
 
   eleventyConfig.addPassthroughCopy({ "content/assets": "assets" });
   eleventyConfig.addPassthroughCopy({ "node_modules/chart.js/dist/chart.umd.min.js": "assets/chart.umd.min.js" });
+  // The page's charts: src/site/browser/charts.ts, bundled by `npm run build:ts` with the configuration builder that
+  // the exported images use.
+  eleventyConfig.addPassthroughCopy({ "dist/bundle/charts.js": "assets/charts.js" });
 
   // Under `cosmoledger build` (which reports the build itself), Eleventy's timing notes ("[11ty] Benchmark ...") are
   // silenced: a slow machine must not add lines to a command's output.

@@ -41,3 +41,18 @@ await build({
     js: 'import { createRequire as __cosmoledgerRequire } from "node:module"; const require = __cosmoledgerRequire(import.meta.url);',
   },
 });
+
+// The page's chart script: the browser side of the one chart-configuration builder (src/site/browser/charts.ts),
+// one classic script (works from file:// and under the pages' content security policy: no eval, no modules).
+await build({
+  entryPoints: [join(ROOT, "dist/site/browser/charts.js")],
+  outfile: join(out, "charts.js"),
+  bundle: true,
+  format: "iife",
+  platform: "browser",
+  target: "es2020",
+  logLevel: "warning",
+  legalComments: "none",
+  minifyWhitespace: true,
+  minifySyntax: true,
+});

@@ -1,6 +1,6 @@
 /**
- * The one palette and set of line patterns of every chart: drawn on the pages (content/assets/charts.js reads them
- * from the page's inline `chart-style` data) and in exported images (chartImage.ts). Eight models stay apart in
+ * The one palette and set of line patterns of every chart, on the pages and in exported images alike (both through
+ * chartConfiguration.ts; the page's script is bundled from src/site/browser/charts.ts). Eight models stay apart in
  * greyscale by their patterns; the ink is the text colour.
  */
 export const CHART_STYLE = {

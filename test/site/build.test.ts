@@ -117,7 +117,6 @@ describe("hostile strings from a scenario are shown as text and run nothing", { 
     );
     expect(scripts).toEqual([
       "application/json#chart-data",
-      "application/json#chart-style",
       "../assets/chart.umd.min.js",
       "../assets/charts.js",
       "exports/copy.js",
