@@ -1,12 +1,17 @@
 /**
  * The pseudo-random generator behind every draw: xoshiro128** 1.1 (Blackman & Vigna, "Scrambled linear pseudorandom
- * number generators", ACM TOMS 47, 36, 2021), its 128-bit state filled by splitmix32 from a 32-bit seed (the seeding
- * the same authors recommend). Pure 32-bit integer arithmetic, so a seed gives the same stream on every machine.
+ * number generators", ACM TOMS 47, 36, 2021), its 128-bit state filled from a 32-bit seed by four terms of a Weyl
+ * sequence passed through MurmurHash3's 32-bit finalizer (weylFmix32 below). Pure 32-bit integer arithmetic, so a
+ * seed gives the same stream on every machine. Known-answer vectors: test/fixtures/xoshiro/ (an independent script).
  */
-export const GENERATOR_NAME = "xoshiro128** 1.1, seeded by splitmix32";
+export const GENERATOR_NAME = "xoshiro128** 1.1, seeded by a golden-ratio Weyl sequence through MurmurHash3's fmix32";
 
-/** splitmix32 (the 32-bit form of Steele, Lea & Flood 2014's splitmix): one step of a seeding stream. */
-function splitmix32(state: { s: number }): number {
+/**
+ * One seeding step: a Weyl sequence with the golden-ratio increment 0x9E3779B9, each term mixed by MurmurHash3's
+ * 32-bit finalizer fmix32 (Appleby; shifts 16, 13, 16 and multipliers 0x85EBCA6B, 0xC2B2AE35), the 32-bit analogue
+ * of SplitMix64's construction (Steele, Lea & Flood 2014), which Blackman & Vigna recommend for seeding.
+ */
+function weylFmix32(state: { s: number }): number {
   state.s = (state.s + 0x9e3779b9) | 0;
   let z = state.s;
   z = Math.imul(z ^ (z >>> 16), 0x85ebca6b);
@@ -29,10 +34,10 @@ export class Xoshiro128StarStar {
 
   constructor(seed: number) {
     const st = { s: seed | 0 };
-    this.a = splitmix32(st);
-    this.b = splitmix32(st);
-    this.c = splitmix32(st);
-    this.d = splitmix32(st);
+    this.a = weylFmix32(st);
+    this.b = weylFmix32(st);
+    this.c = weylFmix32(st);
+    this.d = weylFmix32(st);
   }
 
   /** The next 32-bit output, as an unsigned integer. */

@@ -31,6 +31,24 @@ describe("the fate of every model is one of a complete set, decided from the dom
     expect(fateOf({ Om: 0.3, Ode: 0.7, w0: -1.2 }).fate).toBe("big_rip");
     expect(fateOf({ Om: 0.3, Ode: 0.7, w0: -1, wa: 0.3 }).fate).toBe("big_rip");
   });
+  it("the rip boundary is w = -1 exactly: w = -1.05 and -1.01 rip, w = -0.95 and -0.99 do not", () => {
+    // Constant w: rho_de ~ a^(-3(1+w)) grows without bound for any w < -1 (common practice; Caldwell, Kamionkowski &
+    // Weinberg 2003, recalled from memory), so the boundary is -1 itself, not some w further below it.
+    for (const w0 of [-1.05, -1.01]) {
+      const s = fateOf({ Om: 0.3, Ode: 0.7, w0 });
+      expect(s.fate, `w0 = ${w0}`).toBe("big_rip");
+      expect(s.time_to_rip_Gyr, `w0 = ${w0}`).toBeGreaterThan(0);
+    }
+    for (const w0 of [-0.95, -0.99]) {
+      const s = fateOf({ Om: 0.3, Ode: 0.7, w0 });
+      expect(s.fate, `w0 = ${w0}`).toBe("expands_accelerating");
+      expect(s.time_to_rip_Gyr, `w0 = ${w0}`).toBeNull();
+    }
+    // CPL: w(a) = w0 + wa (1 - a) tends to -infinity for wa > 0 however small (a rip, late), and to +infinity for
+    // wa < 0 (no rip, even from a phantom w0).
+    expect(fateOf({ Om: 0.3, Ode: 0.7, w0: -0.9, wa: 0.02 }).fate).toBe("big_rip");
+    expect(fateOf({ Om: 0.3, Ode: 0.7, w0: -1.05, wa: -0.02 }).fate).not.toBe("big_rip");
+  });
   it("recollapses: closed with matter only, and negative dark energy; a crunch at a finite time", () => {
     const closed = fateOf({ Om: 2, Ode: 0 });
     expect(closed.fate).toBe("recollapses");
@@ -50,6 +68,8 @@ describe("the time to a big rip", () => {
     for (const [Om, w] of [
       [0.3, -1.5],
       [0.3, -1.15],
+      [0.3, -1.05],
+      [0.3, -1.01],
       [0.25, -2],
     ]) {
       const Ode = 1 - Om;
