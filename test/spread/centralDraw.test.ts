@@ -28,14 +28,14 @@ const model = fc.record({
 const fmt = (x: number) => String(x);
 
 /** The quantity `key` of a record, as a number or NaN (null, or absent). */
-const valueOf = (record: object, key: string) => {
+const quantityOf = (record: object, key: string) => {
   const v = (record as Record<string, unknown>)[key];
   return typeof v === "number" ? v : Number.NaN;
 };
 
 function expectBandsEqual(bands: Record<string, Band | null>, record: object, where: string, h = 1) {
   for (const [key, band] of Object.entries(bands)) {
-    const v = valueOf(record, key) * h ** hPowerOfKey(key);
+    const v = quantityOf(record, key) * h ** hPowerOfKey(key);
     if (band === null) {
       expect(Number.isNaN(v), `${where}.${key}: no band but a value ${v}`).toBe(true);
       continue;
