@@ -1,5 +1,6 @@
 // The layers of src/, lowest first. A folder may import its own layer and those below it, never one above it
-// (DEVELOPERS.md, "Layers"). `npx depcruise src` checks this in .ci/run.
+// (DEVELOPERS.md, "Layers"). `npm run lint:deps` checks src/, bin/, content/assets/ and .eleventy.js in .ci/run, and
+// test/rules/dependencyRules.test.ts proves that every rule fails on a forbidden import.
 const LAYERS = [
   "common",
   "schema",
@@ -64,6 +65,37 @@ module.exports = {
       severity: "error",
       from: { path: "^src/(exports|site|cli)/", pathNot: "^src/cli/(computeTables|runCommand)\\.ts$" },
       to: { path: "^src/contract/littleHUnitNames\\.ts$" },
+    },
+    {
+      name: "site-config-does-not-compute",
+      comment:
+        "The Eleventy configuration composes (filters, the ledger, the export writer): it never imports the compute step, the statistics or the engine's physics.",
+      severity: "error",
+      from: { path: "^\\.eleventy\\.js$" },
+      to: { path: "^(src|dist)/(tables|statistics|engine/(?!engineVersion))" },
+    },
+    {
+      name: "browser-assets-import-nothing",
+      comment:
+        "Files in content/assets are served as they are to browsers (also from file://): they import no module; the page's chart script is bundled from src/site/browser.",
+      severity: "error",
+      from: { path: "^content/assets/" },
+      to: {},
+    },
+    {
+      name: "browser-code-is-pure",
+      comment:
+        "src/site/browser is bundled for the page: it may use the presentation only, never Node built-ins, packages or the compute layers.",
+      severity: "error",
+      from: { path: "^src/site/browser/" },
+      to: { pathNot: "^src/(presentation|site/browser)/" },
+    },
+    {
+      name: "cli-entry-runs-the-bundle",
+      comment: "bin/cosmoledger.js starts the bundled command line (dist/bundle) or dist/cli itself, nothing deeper.",
+      severity: "error",
+      from: { path: "^bin/cosmoledger\\.js$" },
+      to: { path: "^(src|dist)/", pathNot: "^dist/(bundle|cli)/" },
     },
     { name: "no-circular", severity: "error", from: {}, to: { circular: true } },
     { name: "not-to-unresolvable", severity: "error", from: {}, to: { couldNotResolve: true } },

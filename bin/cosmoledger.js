@@ -19,7 +19,9 @@ main(process.argv.slice(2)).then(
     process.exitCode = code;
   },
   (error) => {
-    process.stderr.write(`cosmoledger: unexpected failure: ${error?.stack ? error.stack : error}\n`);
+    // A fault of ours that names itself (the helper thread of spreads) needs no stack to be reported.
+    const text = error?.name === "HelperThreadFault" ? error.message : error?.stack ? error.stack : error;
+    process.stderr.write(`cosmoledger: unexpected failure: ${text}\n`);
     process.exitCode = 1;
   },
 );

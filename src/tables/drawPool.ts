@@ -3,11 +3,21 @@ import { availableParallelism } from "node:os";
 import { evaluateClaimedDraws, type DrawJob } from "./drawEvaluation.js";
 import { computeClaimedBands, type BandJob } from "./bandStatistics.js";
 import { SPREAD_PERCENTILES } from "../statistics/index.js";
+import { JOB_STATE } from "./drawPoolStates.js";
 
-const WAITING = 0;
-const RUNNING = 1;
-const CLOSED = 3;
-const FAILED = 4;
+const { WAITING, RUNNING, CLOSED, FAILED } = JOB_STATE;
+
+/**
+ * How long the main thread waits for the helper's last claimed chunk once it has done its own share: a chunk is 8
+ * draws or 64 quantities, milliseconds of work, so a minute means the helper died or stopped answering
+ * (COSMOLEDGER_HELPER_STALL_MS overrides it).
+ */
+const stallMs = () => Number(process.env.COSMOLEDGER_HELPER_STALL_MS) || 60_000;
+
+/** The helper thread died or stopped answering: a fault of cosmoledger, never of the user's input (exit 1). */
+export class HelperThreadFault extends Error {
+  override name = "HelperThreadFault";
+}
 
 /** Below this many model-redshift evaluations a second thread costs more to start than it saves. */
 const PARALLEL_WORK = 40_000;
@@ -116,7 +126,19 @@ function runShared(
   helperThread.postMessage({ kind, ...payload, state });
   work();
   if (Atomics.compareExchange(state, 0, WAITING, CLOSED) !== WAITING) {
-    while (Atomics.load(state, 0) === RUNNING) Atomics.wait(state, 0, RUNNING);
+    // The helper holds at most one claimed chunk now; a bounded wait for it, never a hang.
+    const deadline = Date.now() + stallMs();
+    while (Atomics.load(state, 0) === RUNNING) {
+      const left = deadline - Date.now();
+      if (left <= 0) {
+        void helperThread.terminate();
+        worker = null;
+        throw new HelperThreadFault(
+          `the helper thread of spreads stopped answering during the ${kind === "draws" ? "draws" : "percentile bands"} (no result within ${Math.round(stallMs() / 1000)} s); this is a fault of cosmoledger, not of the scenario: please report it (COSMOLEDGER_DRAW_THREADS=1 computes on one thread meanwhile)`,
+        );
+      }
+      Atomics.wait(state, 0, RUNNING, Math.min(left, 1000));
+    }
   }
   if (Atomics.load(state, 0) === FAILED) redo();
 }

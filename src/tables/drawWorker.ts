@@ -4,12 +4,11 @@
 import { parentPort } from "node:worker_threads";
 import { evaluateClaimedDraws, type DrawJob } from "./drawEvaluation.js";
 import { computeClaimedBands, type BandJob } from "./bandStatistics.js";
+import { FAULT_INJECTION, JOB_STATE } from "./drawPoolStates.js";
 
-/** Job states in the shared `state` cell (see drawPool.ts). */
-const WAITING = 0;
-const RUNNING = 1;
-const DONE = 2;
-const FAILED = 4;
+const { WAITING, RUNNING, DONE, FAILED } = JOB_STATE;
+/** Tests only (test/spread/drawPoolFaults.test.ts): die, or stop answering, after taking a job. */
+const fault = process.env[FAULT_INJECTION];
 
 type Message =
   | { kind: "draws"; job: DrawJob; tally: Int32Array; state: Int32Array }
@@ -36,7 +35,9 @@ parentPort?.on("message", (message: Message) => {
   }
   const { state } = message;
   if (Atomics.compareExchange(state, 0, WAITING, RUNNING) !== WAITING) return; // the main thread finished alone
-  let final = DONE;
+  if (fault === "helper-exit") process.exit(70);
+  if (fault === "helper-hang") for (;;) Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0);
+  let final: number = DONE;
   try {
     if (message.kind === "draws") evaluateClaimedDraws(message.job, message.tally);
     else computeClaimedBands(message.job);
