@@ -3,6 +3,11 @@ import { displayPath } from "../common/displayPath.js";
 import { TOOL_VERSION } from "../common/toolVersion.js";
 import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
 import { readScenarioFile } from "./readScenarioFile.js";
+import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
+import { parse } from "yaml";
+import { readRegularFile } from "../common/readRegularFile.js";
+import { decodeScenarioText } from "../scenario/decodeScenarioText.js";
+import { idFromFileName } from "../scenario/resolveScenario.js";
 import { computeTables } from "./computeTables.js";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { readScenarioArchive } from "../archive/readArchive.js";
@@ -10,6 +15,19 @@ import type { ArchiveIssue } from "../archive/checkVersionChain.js";
 import { holdsSameInputs, type StoredVersionRecord } from "../contract/versionRecord.js";
 import { presentDocument } from "../presentation/presentDocument.js";
 import { EXPORT_FORMATS, exportFiles, writeExportFiles, type ExportFormat } from "../exports/exportFiles.js";
+
+/** The scenario id a file declares (its `id`, or its file name), read without resolving the scenario; null if unknown. */
+function scenarioIdOnly(file: string): { id: string } | null {
+  const read = readRegularFile(file);
+  if ("why" in read) return null;
+  try {
+    const value = parse(decodeScenarioText(read.bytes, displayPath(file))) as { id?: unknown } | null;
+    const id = typeof value?.id === "string" ? value.id : idFromFileName(file);
+    return id ? { id } : null;
+  } catch {
+    return null; // not YAML: the full reading reports it with its location
+  }
+}
 
 const fail = (message: string) => {
   process.stderr.write(`error: ${message}\n`);
@@ -43,7 +61,12 @@ export async function exportCommand(
     wanted = Number(options.version);
   }
   const file = files[0];
-  const scenario = readScenarioFile(file, "nothing was written");
+  // A frozen version is exported from its record alone: the file only names the scenario (its id), so a samples
+  // file moved or deleted since, or a file that no longer validates, does not stop it.
+  const scenario =
+    wanted !== null
+      ? (scenarioIdOnly(file) ?? readScenarioFile(file, "nothing was written"))
+      : readScenarioFile(file, "nothing was written");
   if (!scenario) return 2;
   const archive = options.archive ?? join(dirname(file), "archive");
   const issues: ArchiveIssue[] = [];
@@ -64,7 +87,7 @@ export async function exportCommand(
     doc = record.tables;
     page = `${scenario.id}/v${wanted}/index.html`;
   } else {
-    const current = computeTables(scenario);
+    const current = computeTables(scenario as ResolvedScenario); // without --version, the scenario was resolved
     doc = current;
     const latest = versions.at(-1);
     record = latest && holdsSameInputs(latest, current) ? latest : null;

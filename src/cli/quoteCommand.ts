@@ -1,4 +1,6 @@
-import { writeFileSync } from "node:fs";
+import { linkSync, rmSync, writeFileSync } from "node:fs";
+import { basename, dirname, join } from "node:path";
+import { FILE_SYSTEM_EXIT, fileSystemRefusal } from "./fileSystemRefusal.js";
 import { parseArgs } from "node:util";
 import { closest } from "fastest-levenshtein";
 import { parseDocument } from "yaml";
@@ -18,6 +20,7 @@ import {
   QuoteArgumentError,
   parseInlineModel,
   parseNumberList,
+  parseNumberTexts,
   quoteScenario,
   quoteTargets,
   type InlineModel,
@@ -95,8 +98,9 @@ export async function quoteCommand(argv: string[]): Promise<number> {
     const placements: Placement[] = [];
     for (const [option, { by }] of Object.entries(PLACEMENT_OPTIONS)) {
       const texts = (o as Record<string, string[] | undefined>)[option] ?? [];
-      for (const x of parseNumberList(option, texts))
-        placements.push({ by, value: x, argument: `--${option} ${texts.join(",")}` });
+      // Each placement keeps only its own value's text (never the whole list: cost linear in the values given).
+      for (const x of parseNumberTexts(option, texts))
+        placements.push({ by, value: x.value, argument: `--${option} ${x.text}` });
     }
     const extras: TargetExtras = {};
     const extraOptions = [
@@ -194,15 +198,12 @@ export async function quoteCommand(argv: string[]): Promise<number> {
               ? tableLatex(table, provenance)
               : quoteTerminal(sections, columns, provenance, presented);
     if (o.save) {
-      try {
-        writeFileSync(o.save, text, { flag: "wx" });
-      } catch (e) {
-        if ((e as NodeJS.ErrnoException).code === "EEXIST")
-          throw new QuoteArgumentError(
-            `--save ${o.save}`,
-            "the file exists; quote never overwrites: choose a new name",
-          );
-        throw e;
+      const refused = saveNew(o.save, text);
+      if (refused === "exists")
+        throw new QuoteArgumentError(`--save ${o.save}`, "the file exists; quote never overwrites: choose a new name");
+      if (refused) {
+        process.stderr.write(`cosmoledger quote: --save ${o.save}: ${refused}; nothing was written\n`);
+        return FILE_SYSTEM_EXIT;
       }
     }
     process.stdout.write(out.endsWith("\n") ? out : `${out}\r\n`);
@@ -216,6 +217,31 @@ export async function quoteCommand(argv: string[]): Promise<number> {
       return 2;
     }
     throw e;
+  }
+}
+
+/**
+ * Writes a new file whole or not at all: the text goes to a temporary file beside it, which is then linked to the
+ * name (link fails if the name exists, so nothing is overwritten) and removed. A full disk leaves no empty file
+ * behind, so the same command can be run again. Returns "exists", why the system refused, or null when written.
+ */
+function saveNew(path: string, text: string): "exists" | string | null {
+  const temporary = join(dirname(path), `.${basename(path)}.${process.pid}.tmp`);
+  try {
+    writeFileSync(temporary, text, { flag: "wx" });
+    linkSync(temporary, path);
+    return null;
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    if (code === "EEXIST" && (e as NodeJS.ErrnoException).syscall === "link") return "exists";
+    if (fileSystemRefusal(e) === null) throw e;
+    return `the file system refused to write it (${code}${code === "ENOSPC" || code === "EDQUOT" ? ": no space left; free some space or save elsewhere" : ": check the folder's permissions or save elsewhere"})`;
+  } finally {
+    try {
+      rmSync(temporary, { force: true });
+    } catch {
+      // nothing to remove where nothing could be written (a file in the way of the folder)
+    }
   }
 }
 

@@ -34,14 +34,25 @@ export const PLACEMENT_OPTIONS: Record<string, { by: PlacementKey; what: string 
 
 /** "0.5,1,2" (also repeated options) -> numbers, each finite; names the option on a bad entry. */
 export function parseNumberList(option: string, texts: string[]): number[] {
-  const out: number[] = [];
+  return parseNumberTexts(option, texts).map((n) => n.value);
+}
+
+/** A decimal number as people write one: 70, -0.5, .3, 1e-4, 2.5E+3; never hexadecimal, binary, octal or Infinity. */
+export const DECIMAL_NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+/** Each number of a comma-separated option with its own text (so that a message quotes only the value at fault). */
+export function parseNumberTexts(option: string, texts: string[]): { value: number; text: string }[] {
+  const out: { value: number; text: string }[] = [];
   for (const text of texts) {
     for (const part of text.split(",")) {
       const t = part.trim();
-      const x = t === "" ? Number.NaN : Number(t);
+      const x = DECIMAL_NUMBER.test(t) ? Number(t) : Number.NaN;
       if (!Number.isFinite(x))
-        throw new QuoteArgumentError(`--${option} ${text}`, `"${t}" is not a number; give numbers separated by commas`);
-      out.push(x);
+        throw new QuoteArgumentError(
+          `--${option} ${t.length > 40 ? `${t.slice(0, 40)}...` : t}`,
+          `"${t.length > 40 ? `${t.slice(0, 40)}...` : t}" is not a decimal number; give decimal numbers separated by commas (e.g. 0.5,1,2)`,
+        );
+      out.push({ value: x, text: t });
     }
   }
   return out;
@@ -151,7 +162,12 @@ export function quoteScenario(
   command: string,
 ): { data: Record<string, unknown>; text: string } {
   const redshifts = placements.filter((p) => p.by === "z").map((p) => p.value);
-  const description = `Made by \`${command}\`.`;
+  // The command as typed, shortened so that no number of models or placements can outgrow the description field.
+  const shown =
+    command.length > 400
+      ? `${command.slice(0, 400)}... (${models.length} models, ${placements.length} placements)`
+      : command;
+  const description = `Made by \`${shown}\`.`;
   const modelPairs = models.map((m, i): [string, unknown][] =>
     m.pairs.some(([k]) => k === "id") ? m.pairs : [["id", `m${i + 1}`], ...m.pairs],
   );

@@ -1,6 +1,8 @@
-import { dirname, join } from "node:path";
+import { realpathSync } from "node:fs";
+import { dirname, isAbsolute, join, relative as relativePath } from "node:path";
 import { readRegularFile } from "../common/readRegularFile.js";
-import { decodeScenarioText } from "../scenario/decodeScenarioText.js";
+import { decodeScenarioText, firstInvalidUtf8, positionOf } from "../scenario/decodeScenarioText.js";
+import { MAX_SAMPLES_FILE_BYTES } from "../scenario/resolveSpread.js";
 import { displayPath } from "../common/displayPath.js";
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError, issueLine, issueSummary, type ScenarioIssue } from "../scenario/scenarioIssue.js";
@@ -26,14 +28,48 @@ export function loadScenarioFile(
 }
 
 /**
- * Reads files a scenario names (samples files), relative to the scenario's folder: regular files only, UTF-8.
- * A file that cannot be read throws an Error whose message says why (the resolver locates it at the key).
+ * Reads files a scenario names (samples files), relative to the scenario's folder: regular files inside that folder
+ * only (a symbolic link that leads out of it is refused without reading its target), at most MAX_SAMPLES_FILE_BYTES
+ * (refused from the file's size, before reading), valid UTF-8 (never replaced by U+FFFD, so that the hash covers the
+ * bytes written). Each file is read once however it is spelled. A file that cannot be read throws an Error whose
+ * message says why (the resolver locates it at the key).
  */
 export function attachmentReader(scenarioFile: string): (relative: string) => string {
+  const folder = dirname(scenarioFile);
+  const seen = new Map<string, string>();
   return (relative) => {
-    const read = readRegularFile(join(dirname(scenarioFile), relative));
-    if ("why" in read) throw new Error(`the path ${read.why}`);
-    return read.bytes.toString("utf8");
+    const target = join(folder, relative);
+    let real: string;
+    try {
+      real = realpathSync(target);
+    } catch {
+      const read = readRegularFile(target); // says why: missing, a dangling link, a file in the way
+      throw new Error(`the path ${"why" in read ? read.why : "cannot be resolved"}`);
+    }
+    const inside = relativePath(realpathSync(folder), real);
+    if (inside === "" || inside.startsWith("..") || isAbsolute(inside))
+      throw new Error(
+        "the path leads outside the scenario's folder (through a symbolic link); a samples file must sit inside the folder, and this one was not read",
+      );
+    const known = seen.get(real);
+    if (known !== undefined) return known;
+    const read = readRegularFile(real, MAX_SAMPLES_FILE_BYTES);
+    if ("why" in read)
+      throw new Error(
+        read.tooLarge !== undefined
+          ? `it has ${read.tooLarge} bytes; at most ${MAX_SAMPLES_FILE_BYTES} (4 MiB) are allowed, because a frozen version keeps the file (thin the chain first); it was not read`
+          : `the path ${read.why}`,
+      );
+    const bad = firstInvalidUtf8(read.bytes);
+    if (bad >= 0) {
+      const at = positionOf(read.bytes, bad);
+      throw new Error(
+        `the file is not UTF-8 text: byte 0x${read.bytes[bad].toString(16).padStart(2, "0")} at line ${at.line}, column ${at.column}; save it as UTF-8`,
+      );
+    }
+    const text = new TextDecoder("utf-8", { fatal: true }).decode(read.bytes);
+    seen.set(real, text);
+    return text;
   };
 }
 

@@ -4,6 +4,7 @@ import { displayPath } from "../common/displayPath.js";
 import { readArchive } from "../archive/readArchive.js";
 import { compareWithRecomputed, type DriftFinding } from "../archive/versionDrift.js";
 import { attachmentsOf, frozenInputs } from "../contract/versionRecord.js";
+import { canonicalAttachmentPath } from "../scenario/resolveSpread.js";
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError } from "../scenario/scenarioIssue.js";
 import { buildTablesDocument } from "../tables/buildTablesDocument.js";
@@ -66,10 +67,11 @@ export function verifyCommand(options: {
       let scenario: ReturnType<typeof loadScenario>;
       try {
         // The files the version kept (samples files) stand in for the scenario's folder.
-        const kept = new Map(attachmentsOf(v).map((a) => [a.path, a.text]));
+        // Looked up by one spelling of the path, whichever spelling the record or the source uses.
+        const kept = new Map(attachmentsOf(v).map((a) => [canonicalAttachmentPath(a.path), a.text]));
         scenario = loadScenario(v.source.text, v.source.path, {
           readAttachment: (path) => {
-            const text = kept.get(path);
+            const text = kept.get(canonicalAttachmentPath(path));
             if (text === undefined) throw new Error("the version does not keep this file");
             return text;
           },

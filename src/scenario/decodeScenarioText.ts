@@ -4,7 +4,7 @@ import { ScenarioInputError } from "./scenarioIssue.js";
 export const MAX_SCENARIO_BYTES = 2 * 1024 * 1024;
 
 /** Offset of the first byte that does not continue valid UTF-8 (RFC 3629: no overlongs, surrogates or > U+10FFFF), or -1. */
-function firstInvalidUtf8(b: Uint8Array): number {
+export function firstInvalidUtf8(b: Uint8Array): number {
   let i = 0;
   while (i < b.length) {
     const c = b[i];
@@ -31,7 +31,7 @@ function firstInvalidUtf8(b: Uint8Array): number {
 }
 
 /** Line and column (1-based, columns in characters) of a byte offset in valid UTF-8 text before it. */
-function positionOf(b: Uint8Array, offset: number): { line: number; column: number } {
+export function positionOf(b: Uint8Array, offset: number): { line: number; column: number } {
   const before = new TextDecoder("utf-8").decode(b.subarray(0, offset));
   const lines = before.split(/\r\n|\r|\n/);
   return { line: lines.length, column: [...lines[lines.length - 1]].length + 1 };

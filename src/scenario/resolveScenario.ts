@@ -11,7 +11,12 @@ import {
   type PublishedSet,
   type PublishedSigma,
 } from "./publishedSets.js";
-import { resolveSpread, type AttachmentReader, type SpreadSource } from "./resolveSpread.js";
+import {
+  MAX_SCENARIO_SAMPLES_BYTES,
+  resolveSpread,
+  type AttachmentReader,
+  type SpreadSource,
+} from "./resolveSpread.js";
 import type {
   CurvatureKey,
   Provenance,
@@ -280,6 +285,7 @@ export function resolveScenario(
 
   const models: ResolvedModel[] = [];
   const samples: Record<string, SamplesTable> = {};
+  const samplesBytes = new Map<string, number>();
   const plausibility: ScenarioIssue[] = [];
   rawModels.forEach((m, i) => {
     const flat = brokenModels.has(i) ? undefined : flattened.get(m.id);
@@ -380,7 +386,19 @@ export function resolveScenario(
       });
       if (!resolved) return;
       spread = resolved.spread;
-      if (resolved.samples) samples[m.id] = resolved.samples;
+      if (resolved.samples) {
+        samples[m.id] = resolved.samples;
+        // Each file once (by its one spelling), and all of them within what a version record may hold.
+        samplesBytes.set(resolved.samples.path, Buffer.byteLength(resolved.samples.text, "utf8"));
+        const total = [...samplesBytes.values()].reduce((a, b) => a + b, 0);
+        if (total > MAX_SCENARIO_SAMPLES_BYTES) {
+          fail(
+            [...here, "spread", "samples"],
+            `the samples files of this scenario add up to ${total} bytes; at most ${MAX_SCENARIO_SAMPLES_BYTES} (16 MiB) are allowed together, because a frozen version keeps every one (thin the chains first)`,
+          );
+          return;
+        }
+      }
     }
     models.push({
       id: m.id,

@@ -18,6 +18,19 @@ export type AttachmentReader = (relativePath: string) => string;
 
 /** At most this many bytes in a samples file: a frozen version keeps the file's text. */
 export const MAX_SAMPLES_FILE_BYTES = 4 * 1024 * 1024;
+/** At most this many bytes of samples files in one scenario (each file counted once): a version record keeps them. */
+export const MAX_SCENARIO_SAMPLES_BYTES = 16 * 1024 * 1024;
+
+/**
+ * One spelling for a path relative to the scenario's folder: forward slashes, no "." segments, no empty segments
+ * ("./a.csv", "a.csv" and ".//a.csv" are one file), so that a version record keeps each file once.
+ */
+export const canonicalAttachmentPath = (path: string): string =>
+  path
+    .replace(/\\/g, "/")
+    .split("/")
+    .filter((s) => s !== "" && s !== ".")
+    .join("/");
 
 /**
  * Where a model's spread comes from: the YAML value of a model (`model` is its index, to locate problems), or the
@@ -262,6 +275,11 @@ function samplesSpread(
     ctx.fail(at, "samples must name a CSV file, relative to the scenario's folder");
     return null;
   }
+  // biome-ignore lint/suspicious/noControlCharactersInRegex: control characters in a path are what is refused
+  if (/[\u0000-\u001f]/.test(value)) {
+    ctx.fail(at, "samples names a path holding a control character (NUL, line break); name a plain file");
+    return null;
+  }
   if (value.split(/[\\/]/).includes("..")) {
     ctx.fail(at, `samples must name a file inside the scenario's folder or below it, without "..": ${value}`);
     return null;
@@ -278,8 +296,9 @@ function samplesSpread(
     return null;
   }
   let text: string;
+  const path = canonicalAttachmentPath(value);
   try {
-    text = ctx.readAttachment(value);
+    text = ctx.readAttachment(path);
   } catch (e) {
     // The system refusing (permission, I/O) is not an input problem: it keeps its own exit status (4).
     if (typeof (e as { code?: unknown }).code === "string") throw e;
@@ -295,7 +314,8 @@ function samplesSpread(
     return null;
   }
   const dir = ctx.scenarioFile.includes("/") ? ctx.scenarioFile.slice(0, ctx.scenarioFile.lastIndexOf("/") + 1) : "";
-  const parsed = parseSamplesFile(text, value);
+  // The table (and so a version record's attachment) goes by the one spelling of the path.
+  const parsed = parseSamplesFile(text, path);
   if (parsed.table === null) {
     for (const p of parsed.problems)
       ctx.failInFile({ file: dir + value, line: p.line, column: p.column, message: p.message });

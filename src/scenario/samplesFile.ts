@@ -4,6 +4,13 @@ import { closest, distance } from "fastest-levenshtein";
 
 /** At most this many rows in a samples file: each row is one full model evaluation. */
 export const MAX_SAMPLE_ROWS = 20_000;
+/**
+ * At least this many rows, the least `draws.count` allows: percentiles and their Monte Carlo errors need a sample
+ * (with one row every percentile is that row and its error would read as zero).
+ */
+export const MIN_SAMPLE_ROWS = 20;
+/** A decimal number as a chain file writes one: 70, -0.5, .3, 1e-4, 2.5E+3; never hexadecimal, Infinity or NaN. */
+const DECIMAL_NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 export const WEIGHT_COLUMN = "weight";
 
 /** The nearest valid key when it is plausibly a misspelling (within a third of its length), else null. */
@@ -37,7 +44,9 @@ export function parseSamplesFile(
   try {
     records = parse(text, {
       bom: true,
+      // A comment is a line that starts with "#"; a "#" inside a cell is text (and so not a number).
       comment: "#",
+      comment_no_infix: true,
       skip_empty_lines: true,
       trim: true,
       relax_column_count: true,
@@ -82,6 +91,7 @@ export function parseSamplesFile(
   const rows = records.length - 1;
   if (rows === 0 && problems.length === 0)
     problems.push({ line: headerLine, column: 1, message: "has a header but no rows" });
+
   if (rows > MAX_SAMPLE_ROWS)
     problems.push({
       line: records[MAX_SAMPLE_ROWS + 1].info.lines,
@@ -104,13 +114,13 @@ export function parseSamplesFile(
       continue;
     }
     record.forEach((cell, i) => {
-      const x = cell === "" ? Number.NaN : Number(cell);
+      const x = DECIMAL_NUMBER.test(cell) ? Number(cell) : Number.NaN;
       const name = header[i];
       if (!Number.isFinite(x)) {
         problems.push({
           line: info.lines,
           column: columnStart(record, i),
-          message: `${name}: ${JSON.stringify(shortCell(cell))} is not a finite number`,
+          message: `${name}: ${JSON.stringify(shortCell(cell))} is not a finite decimal number`,
         });
         return;
       }
@@ -128,7 +138,19 @@ export function parseSamplesFile(
       } else values[keyIndex[i]][r] = x;
     });
   }
-  if (problems.length === 0 && weights !== null && !(total > 0))
+  if (problems.length === 0 && rows < MIN_SAMPLE_ROWS)
+    problems.push({
+      line: headerLine,
+      column: 1,
+      message: `has ${rows} row${rows === 1 ? "" : "s"}; at least ${MIN_SAMPLE_ROWS} are needed (as for draws.count), since percentiles and their Monte Carlo errors need a sample`,
+    });
+  else if (problems.length === 0 && weights !== null && !Number.isFinite(total))
+    problems.push({
+      line: headerLine,
+      column: columnStart(header, weightAt),
+      message: "the weights add up to more than a double can hold; scale them down (only their ratios matter)",
+    });
+  else if (problems.length === 0 && weights !== null && !(total > 0))
     problems.push({
       line: headerLine,
       column: columnStart(header, weightAt),

@@ -145,7 +145,7 @@ describe("quote", { timeout: 180_000 }, () => {
       ["--model", "H0=70 Omega_M=0.3", "--z", "1"],
       /--model "H0=70 Omega_M=0\.3": Omega_M: .*did you mean Omega_m\?/,
     );
-    bad(["--model", "H0=70 Omega_m=0.3", "--z", "1,x"], /--z 1,x: "x" is not a number/);
+    bad(["--model", "H0=70 Omega_m=0.3", "--z", "1,x"], /--z x: "x" is not a decimal number/);
     bad(
       ["--model", "H0=70 Omega_m=0.3", "--z", "1", "--quantities", "D_a"],
       /unknown quantity "D_a"\. did you mean D_A\?/,

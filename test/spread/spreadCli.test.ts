@@ -40,7 +40,7 @@ describe("bad spreads are located input errors", () => {
     refused(
       HEAD + samplesModel,
       { "chain.csv": "H0,Omega_m\n70,0.3\n71,zero\n" },
-      /chain\.csv:3:4: .*Omega_m: "zero" is not a finite number/,
+      /chain\.csv:3:4: .*Omega_m: "zero" is not a finite decimal number/,
     ));
 
   it("a negative weight is refused where it is written", () =>
@@ -101,7 +101,7 @@ describe("bad spreads are located input errors", () => {
     const dir = project(HEAD + samplesModel, { "chain.csv": `H0,Omega_m\n70,${long}\n` });
     const r = runCli(["compute", "s.yaml", "--out", "out"], dir);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/Omega_m: "x{39}\u2026" is not a finite number/);
+    expect(r.stderr).toMatch(/Omega_m: "x{39}\u2026" is not a finite decimal number/);
     expect(r.stderr.length).toBeLessThan(1000);
   });
 
@@ -138,7 +138,11 @@ describe("bad spreads are located input errors", () => {
 
 describe("a frozen version keeps its samples file", () => {
   it("verify recomputes it without the file; an edited file is a new version", () => {
-    const chain = ["H0,Omega_m,weight", "69.5,0.31,1", "70.1,0.30,2", "70.8,0.29,1", "71.4,0.28,3"].join("\n");
+    // Twenty rows, the least a samples file may hold (invented values spread around the model).
+    const chain = [
+      "H0,Omega_m,weight",
+      ...Array.from({ length: 20 }, (_, i) => `${69 + 0.15 * i},${(0.32 - 0.002 * i).toFixed(3)},${1 + (i % 3)}`),
+    ].join("\n");
     const dir = project(HEAD + samplesModel, { "chain.csv": chain });
     expect(runCli(["freeze", "s.yaml", "--archive", "archive", "-m", "with chain"], dir).code).toBe(0);
     const v1 = JSON.parse(readFileSync(join(dir, "archive/s/v1.json"), "utf8"));
@@ -146,7 +150,7 @@ describe("a frozen version keeps its samples file", () => {
     expect(v1.attachments).toEqual([
       { path: "chain.csv", sha256: expect.stringMatching(/^[0-9a-f]{64}$/), text: chain },
     ]);
-    expect(v1.tables.models[0].spread.accepted).toBe(4);
+    expect(v1.tables.models[0].spread.accepted).toBe(20);
     rmSync(join(dir, "chain.csv"));
     const v = runCli(["verify", "--archive", "archive", "--strict"], dir);
     expect(v.code, v.stderr).toBe(0);
