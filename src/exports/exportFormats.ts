@@ -1,5 +1,6 @@
 import escapeHtmlText from "escape-html";
 import { csvRows } from "../contract/tablesCsv.js";
+import { latexPackages } from "../presentation/latexPackages.js";
 import { type NumberParts, unitText } from "../presentation/formatNumber.js";
 import type { PresentationCell, PresentationTable } from "../presentation/presentTables.js";
 import { provenanceLine, versionLabel, type ExportProvenance } from "./exportProvenance.js";
@@ -194,7 +195,10 @@ export function tableLatex(t: PresentationTable, p: ExportProvenance): string {
     `% ${oneLine(heading(t))}`,
     `% source: ${oneLine(provenanceLine(p))}`,
     ...t.notes.map((n) => `% note: ${oneLine(n)}`),
-    "% needs \\usepackage{booktabs}",
+    // Every package the fragment needs, and no other: booktabs, and amsmath when a model's label uses \text.
+    `% needs ${latexPackages(t.columns.map((c) => c.tex))
+      .map((name) => `\\usepackage{${name}}`)
+      .join(" ")}`,
     `\\begin{tabular}{l${"r".repeat(n)}}`,
     "\\toprule",
   ];

@@ -109,10 +109,10 @@ describe("exports of a hostile scenario", { timeout: 600_000 }, () => {
       expect(texs.length).toBeGreaterThan(10);
       for (const f of texs) {
         const doc = join(work, "doc.tex");
-        writeFileSync(
-          doc,
-          `\\documentclass{article}\n\\usepackage{booktabs}\n\\begin{document}\n${readFileSync(f, "utf8")}\n\\end{document}\n`,
-        );
+        const fragment = readFileSync(f, "utf8");
+        // Exactly the packages the fragment names on its "% needs" line (none when it has none).
+        const packages = /^% needs (.*)$/m.exec(fragment)?.[1] ?? "";
+        writeFileSync(doc, `\\documentclass{article}\n${packages}\n\\begin{document}\n${fragment}\n\\end{document}\n`);
         // Shell escape on, as some users' TeX is configured: a \write18 that reached TeX would create the marker.
         const r = spawnSync(
           PDFLATEX!,
