@@ -116,6 +116,15 @@ export function backgroundSummary(model: BackgroundModel, options: { past?: Past
         );
     }
   }
+  // An epoch beyond the turnaround is never reached: null, with a note when the densities would cross there.
+  const equalityDe = matterDarkEnergyEqualityRedshift(model, aMax);
+  if (aMax !== null && equalityDe === null) {
+    const unbounded = matterDarkEnergyEqualityRedshift(model);
+    if (unbounded !== null && unbounded < 0 && 1 / (1 + unbounded) > aMax)
+      warnings.push(
+        `matter and dark energy would have equal densities only at a = ${(1 / (1 + unbounded)).toPrecision(6)}, beyond the turnaround at a = ${aMax.toPrecision(6)}: the model never reaches it, so that equality is not given`,
+      );
+  }
   let fate: Fate = expandingFate(model, future.timeToRip);
   let maxExpansionTime: number | null = null;
   let crunch: number | null = null;
@@ -144,7 +153,7 @@ export function backgroundSummary(model: BackgroundModel, options: { past?: Past
       deceleration_q0: decelerationParameter(model, 1),
       z_acceleration: accelerationOnsetRedshift(model),
       z_matter_radiation_equality: matterRadiationEqualityRedshift(model),
-      z_matter_de_equality: matterDarkEnergyEqualityRedshift(model),
+      z_matter_de_equality: equalityDe,
       fate,
       max_scale_factor: aMax,
       max_expansion_time_Gyr: maxExpansionTime,

@@ -58,6 +58,22 @@ export const DECLARED_CHANGES: readonly DeclaredChange[] = [
     applies: (p) => p.m_nu_eV.some((m) => m > 0),
     why: "Massive neutrinos now follow the convention of the trade in the non-relativistic limit, Omega_nu h^2 = sum m / 93.14 eV (Mangano et al. 2005; Lesgourgues & Pastor 2006), instead of sum m / 92.70 eV; the relativistic limit stays N_eff/3 of the neutrino density per species. Omega_cb (Omega_m less the neutrinos) and every quantity of such models move by up to about 0.5 % of the neutrino share.",
   },
+  {
+    id: "equality-beyond-turnaround",
+    engine_version: "1.3.0",
+    quantities: ["summary.z_matter_de_equality", "warnings"],
+    models: "closed models that recollapse before matter and dark energy reach equal densities",
+    applies: (p) => p.Omega_k < 0,
+    why: "A recollapsing model never reaches a scale factor beyond its turnaround, so a matter-dark energy equality that would lie there is now null, with a warning naming both scale factors, instead of the redshift of an epoch the model never has (the search for the crossing stops at the turnaround a_max; closed form with w = -1: a_eq = (Omega_m / Omega_de)^(1/3)).",
+  },
+  {
+    id: "zero-weight-samples-counted",
+    engine_version: "1.3.0",
+    quantities: ["spread.rejected", "spread.rejected_because.*", "warnings"],
+    models: "models whose samples file has rows of weight 0",
+    applies: () => true,
+    why: "Rows of weight 0 in a samples file carry no probability and were left out of every count (accepted plus rejected fell short of the rows read); they are now counted as rejected, with the reason 'weight 0 (a sample that carries no probability)'. The bands are unchanged.",
+  },
 ];
 
 /** Compares two dotted version numbers ("1.10.0" > "1.9.2"); negative, zero or positive. */

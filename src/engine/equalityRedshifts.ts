@@ -37,9 +37,10 @@ export function matterRadiationEqualityRedshift(model: BackgroundModel): number 
 /**
  * Redshift where the matter-like density equals the CPL dark-energy density (Chevallier & Polarski 2001), the
  * crossing nearest today in ln a; negative when it lies in the future. null when Omega_de <= 0, there is no
- * matter, or the densities never cross within 1e-13 < a < 1e13.
+ * matter, or the densities never cross within 1e-13 < a < 1e13. A model that turns around at `aMax` never reaches
+ * a larger scale factor, so the future side is searched only up to it (a crossing beyond it is null: not reached).
  */
-export function matterDarkEnergyEqualityRedshift(model: BackgroundModel): number | null {
+export function matterDarkEnergyEqualityRedshift(model: BackgroundModel, aMax: number | null = null): number | null {
   const { Omega_m, Omega_de, w0, wa } = model;
   if (Omega_de <= 0 || Omega_m <= 0) return null;
   // ln(rho_de / rho_m) as a function of u = ln a.
@@ -57,11 +58,13 @@ export function matterDarkEnergyEqualityRedshift(model: BackgroundModel): number
   // 3 wa a grows without bound there).
   const pastBound = Math.abs(3 * (1 + w0 + wa)) + 3 * Math.abs(wa) + 3.01;
   const futureBound = wa === 0 ? Math.abs(3 * (1 + w0)) + 3.01 : Infinity;
+  // The future side ends at the turnaround of a recollapsing model (u = ln aMax).
+  const futureEnd = aMax === null ? Infinity : Math.log(aMax);
   const reach = (value: number, bound: number) => (Number.isFinite(value) ? (0.5 * Math.abs(value)) / bound : 0);
   let past = h0;
   let future = h0;
   let pastProven = reach(h0, pastBound);
-  let futureProven = reach(h0, futureBound);
+  let futureProven = futureEnd <= 0 ? Infinity : reach(h0, futureBound);
   for (let i = 1; i * step <= 30; i++) {
     const next = (i + 1) * step;
     if (!(next < pastProven)) {
@@ -72,11 +75,11 @@ export function matterDarkEnergyEqualityRedshift(model: BackgroundModel): number
       pastProven = i * step + reach(hPast, pastBound);
     }
     if (!(next < futureProven)) {
-      const uFuture = 1 * i * step;
+      const uFuture = Math.min(1 * i * step, futureEnd);
       const hFuture = h(uFuture);
       if (future > 0 !== hFuture > 0 || hFuture === 0) return Math.expm1(-brentRoot(h, 1 * (i - 1) * step, uFuture, 0));
       future = hFuture;
-      futureProven = i * step + reach(hFuture, futureBound);
+      futureProven = uFuture >= futureEnd ? Infinity : i * step + reach(hFuture, futureBound);
     }
     if (pastProven > 30 + step && futureProven > 30 + step) return null; // no crossing within the range
   }

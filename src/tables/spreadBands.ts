@@ -1,4 +1,14 @@
-import { ACCEPTED, REJECTIONS, layoutKeysOf, type DrawContext, type LayoutKeys } from "./drawEvaluation.js";
+import {
+  ACCEPTED,
+  REJECTIONS,
+  ZERO_WEIGHT,
+  layoutKeysOf,
+  type DrawContext,
+  type LayoutKeys,
+} from "./drawEvaluation.js";
+
+/** Why a sample of weight 0 is not among the accepted draws. */
+export const ZERO_WEIGHT_REASON = "weight 0 (a sample that carries no probability)";
 import { computeBands, evaluateDraws, primeHelper } from "./drawPool.js";
 import type { ResolvedModel, ResolvedSpread, SamplesTable, SpreadKey } from "../scenario/resolvedScenario.js";
 import {
@@ -239,8 +249,9 @@ export function spreadBands(
   const rejected: Record<string, number> = {};
   for (let i = 0; i < draws.count; i++) {
     if (status[i] === ACCEPTED) acceptedIndex.push(i);
-    else if (status[i] >= 2) {
-      const why = REJECTIONS[status[i] - 2];
+    else if (status[i] === ZERO_WEIGHT || status[i] >= 2) {
+      // A sample of weight 0 carries nothing; it is counted as what it is, not left out of every count.
+      const why = status[i] === ZERO_WEIGHT ? ZERO_WEIGHT_REASON : REJECTIONS[status[i] - 2];
       rejected[why] = (rejected[why] ?? 0) + 1;
     }
   }

@@ -274,6 +274,20 @@ describe("draws are counted and reproducible", () => {
       "",
     ].join("\n");
 
+  it("samples of weight 0 are counted as such: accepted plus rejected is every row", () => {
+    // 30 rows, every third of weight 0 (made up for the test): 10 carry no probability.
+    const rows = Array.from({ length: 30 }, (_, i) => `${68 + 0.1 * i},0.3,${i % 3 === 0 ? 0 : 1}`);
+    const doc = compute(
+      "title: t\ndraws: { count: 20 }\nmodels:\n  - { id: m, H0: 70, Omega_m: 0.3, spread: { samples: c.csv } }\n",
+      { "c.csv": `H0,Omega_m,weight\n${rows.join("\n")}\n` },
+    );
+    const s = doc.models[0].spread!;
+    expect(s.draws).toBe(30);
+    expect(s.accepted).toBe(20);
+    expect(s.rejected).toBe(10);
+    expect(s.rejected_because).toEqual({ "weight 0 (a sample that carries no probability)": 10 });
+  });
+
   it("draws without a big bang or outside the accepted range are rejected and counted, never kept", () => {
     const doc = compute(nearTheEdge(1));
     const s = spreadOf(doc);
