@@ -346,12 +346,12 @@ function parseQuoteArgs(argv: string[]) {
   });
 }
 
-/** The published sets a model extends, cited on one line each (with the values recalled from memory named). */
+/** The published sets a model extends, cited on one line each (with the values not yet checked against the table). */
 function citations(sets: NonNullable<TablesDocument["models"][number]["published"]>): string[] {
   return sets.map((p) => {
     const memo = Object.entries(p.transcription)
       .filter(([, how]) => how === "recalled from memory")
       .map(([k]) => k);
-    return `${p.title}: ${p.journal}, arXiv:${p.arxiv}, ${p.table}${memo.length ? `; ${memo.join(", ")} recalled from memory` : ""}`;
+    return `${p.title}: ${p.journal}, arXiv:${p.arxiv}, ${p.table}${memo.length ? `; ${memo.join(", ")} not yet checked against the published table` : ""}`;
   });
 }

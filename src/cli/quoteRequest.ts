@@ -103,6 +103,12 @@ export function parseInlineModel(argument: string): InlineModel {
       );
     const key = token.slice(0, eq);
     const text = token.slice(eq + 1);
+    // "H0=70,Omega_m=0.3": pairs joined by commas instead of spaces.
+    if (/^[^[{"']*[,;]\s*[A-Za-z_][A-Za-z0-9_]*=/.test(text))
+      throw new QuoteArgumentError(
+        `--model "${argument}"`,
+        `separate key=value pairs with spaces, not commas: --model "${argument.replace(/[,;]\s*(?=[A-Za-z_][A-Za-z0-9_]*=)/g, " ")}"`,
+      );
     let value: unknown;
     try {
       value = quickValue(text) ?? parseYamlValue(text, { schema: "core" });

@@ -74,6 +74,14 @@ export const DECLARED_CHANGES: readonly DeclaredChange[] = [
     applies: () => true,
     why: "Rows of weight 0 in a samples file carry no probability and were left out of every count (accepted plus rejected fell short of the rows read); they are now counted as rejected, with the reason 'weight 0 (a sample that carries no probability)'. The bands are unchanged.",
   },
+  {
+    id: "published-set-wording",
+    engine_version: "1.3.0",
+    quantities: ["cautions"],
+    models: "scenarios with a model that extends a published set",
+    applies: () => true,
+    why: "The caution on published sets now says that a value transcribed from a paper's table but not yet checked against it is marked so beside the citation, in words for the reader of a paper; no number changes.",
+  },
 ];
 
 /** Compares two dotted version numbers ("1.10.0" > "1.9.2"); negative, zero or positive. */

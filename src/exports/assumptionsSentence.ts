@@ -79,15 +79,33 @@ function inputs(m: StoredModelTables, provenance: "set" | "default" | "inherited
   return out;
 }
 
-/** A published set as a parent, with its citation (and the values recalled from memory named). */
+/** A published set as a parent, with its citation (the methods sentence cites; how values were checked goes apart). */
 function publishedCitation(p: PublishedReference): Piece {
   const who = p.authors.split(/[,:]/)[0];
-  const memo = Object.entries(p.transcription)
-    .filter(([, how]) => how === "recalled from memory")
-    .map(([k]) => k);
-  const note = memo.length ? `; ${memo.join(", ")} recalled from memory, not read from the table` : "";
-  const plain = `the published set "${oneLine(p.title)}" (${who} ${p.year}, ${p.journal}, arXiv:${p.arxiv}, ${p.table}${note})`;
+  const plain = `the published set "${oneLine(p.title)}" (${who} ${p.year}, ${p.journal}, arXiv:${p.arxiv}, ${p.table})`;
   return { plain, tex: escapeLatex(plain) };
+}
+
+/**
+ * For the authors, not for the methods text: which values of the published sets the sentence cites were transcribed
+ * from a paper's table but not yet checked against it, one sentence per set.
+ */
+export function transcriptionNotes(doc: StoredTablesDocument): string[] {
+  const seen = new Set<string>();
+  const out: string[] = [];
+  for (const m of doc.models)
+    for (const p of ("published" in m ? m.published : undefined) ?? []) {
+      if (seen.has(p.id)) continue;
+      seen.add(p.id);
+      const unchecked = Object.entries(p.transcription)
+        .filter(([, how]) => how === "recalled from memory")
+        .map(([k]) => k);
+      if (unchecked.length > 0)
+        out.push(
+          `${unchecked.join(", ")} of "${oneLine(p.title)}" were transcribed from ${p.table} of arXiv:${p.arxiv} and are not yet checked against the published table; check them there before citing.`,
+        );
+    }
+  return out;
 }
 
 /** A model's spread in words, with its draws. */
@@ -201,8 +219,11 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
   ]
     .filter(Boolean)
     .join("\n");
+  // How published values were checked is for the authors: after the source line, outside the sentence (and as TeX
+  // comments in the LaTeX), never inside the text a paper quotes.
+  const notes = transcriptionNotes(doc);
   return {
-    plain: `${plain}\n\nSource: ${provenanceLine(p)}\n`,
-    tex: `% source: scenario ${doc.scenario.id}, ${versionLabel(p)}; page ${p.page}\n${tex}\n`,
+    plain: `${plain}\n\nSource: ${provenanceLine(p)}\n${notes.map((n) => `\nNote on sources (not part of the methods text): ${n}\n`).join("")}`,
+    tex: `% source: scenario ${doc.scenario.id}, ${versionLabel(p)}; page ${p.page}\n${notes.map((n) => `% note on sources: ${oneLine(n)}\n`).join("")}${tex}\n`,
   };
 }

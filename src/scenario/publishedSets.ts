@@ -2,12 +2,13 @@
  * Published parameter sets a model can extend (`extends: published/<id>`): central values and 68 % uncertainties
  * as the papers give them, the assumptions each analysis made, and where every number comes from.
  *
- * `checked` says how each value was transcribed: "paper text" where the search tool's stored copy of the paper
- * (its abstract) shows it, "recalled from memory" where only the paper's table has it and the table's text could
- * not be read back here. Citations: the stored pages confirm Planck 2018 VI's Table 2 (its last column holds the
- * 13.787 Gyr age), A&A 641 A6 and the SH0ES ApJL 934 L7; the table numbers of WMAP9 (Table 4) and DESI 2024 VI
- * (Table 3), and the volume and page of their journals, are recalled from memory. Pages and exports print that mark beside the set. Never edit a released set's numbers:
- * a correction is a new id (archives cite sets by id).
+ * `checked` says how each value was transcribed: "paper text" where the paper's own text (its abstract) gives it,
+ * "recalled from memory" where the value is transcribed from the paper's table and not yet checked against it
+ * (pages, quote and the notes beside the methods paragraph say "not yet checked against the published table").
+ * Of the citations, Planck 2018 VI's Table 2 (its last column holds the 13.787 Gyr age), A&A 641 A6 and the SH0ES
+ * ApJL 934 L7 are checked against the papers; the table numbers of WMAP9 (Table 4) and DESI 2024 VI (Table 3), and
+ * the volume and page of their journals, are not yet. Never edit a released set's numbers: a correction is a new id
+ * (archives cite sets by id).
  */
 export type Transcription = "paper text" | "recalled from memory";
 

@@ -360,6 +360,22 @@ export function resolveScenario(
       }
       throw e;
     }
+    // Omega_m + Omega_de = 1 with radiation left to its default: the closure relation then makes the model closed by
+    // exactly Omega_r, which is rarely what was meant (common practice: such parameter pairs are quoted for a flat
+    // model). The curvature key is where it is written, so the warning is located there.
+    if (
+      (inputs.curvature_key === "Omega_de" || inputs.curvature_key === "Omega_Lambda") &&
+      background.Omega_r > 0 &&
+      background.Omega_k < 0 &&
+      Math.abs(background.Omega_k + background.Omega_r) <= 1e-12 &&
+      p[inputs.curvature_key] === "set"
+    )
+      plausibility.push({
+        file: parsed.file,
+        ...parsed.locate([...here, inputs.curvature_key], "value"),
+        path: formatPath([...here, inputs.curvature_key]),
+        message: `Omega_m + ${inputs.curvature_key} = 1 with radiation (Omega_r = ${background.Omega_r.toPrecision(3)}) makes this model closed, Omega_k = -Omega_r; for a flat model write flat: true and let ${inputs.curvature_key === "Omega_Lambda" ? "Omega_Lambda" : "Omega_de"} follow from closure`,
+      });
     const warnings: string[] = [];
     const check = (name: keyof typeof VERIFIED, value: number) => {
       const [lo, hi] = VERIFIED[name];

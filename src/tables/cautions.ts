@@ -9,7 +9,7 @@ export function cautions(
   const extra = [
     ...(usesPublishedSets
       ? [
-          "Published sets: central values and 68 % uncertainties as the papers give them, with each paper's assumptions; a value the paper's text could not confirm here is marked as recalled from memory beside the citation.",
+          "Published sets: central values and 68 % uncertainties as the papers give them, with each paper's assumptions; a value transcribed from a paper's table but not yet checked against it is marked so beside the citation.",
         ]
       : []),
     ...(usesSpreads

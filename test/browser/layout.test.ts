@@ -1,4 +1,4 @@
-// Issue 13, checked in headless Chromium (not by reading HTML): no page kind scrolls sideways at 390 px, tables use
+// Layout checked in headless Chromium (not by reading HTML): no page kind scrolls sideways at 390 px, tables use
 // the page's width at 1400 px, a title is escaped once, and `npm start` reloads an open page when a scenario changes
 // (its dev-server output alone may open the reload socket; a built site keeps connect-src 'none').
 import { afterAll, beforeAll, describe, expect, it } from "vitest";

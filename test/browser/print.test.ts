@@ -1,4 +1,4 @@
-// Issue 13: printing to A4 and Letter puts every number of every table on paper, for up to 8 models. Checked by
+// Printing to A4 and Letter puts every number of every table on paper, for up to 8 models. Checked by
 // printing to PDF in Chromium and reading the text back with pdftotext (Debian's poppler-utils), never by reading
 // HTML: a clipped cell is missing from the PDF's text.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";

@@ -1,4 +1,4 @@
-// Fuzzing the command line (issue 12): mutated scenario files and hostile file-system states. Every run must end
+// Fuzzing the command line: mutated scenario files and hostile file-system states. Every run must end
 // with a documented exit status (README: 0, 2, 3, 4; 1 is a bug), print no stack trace, leave no temporary file,
 // and leave every folder it refused whole. The rules are the README's; the method (random mutations of a valid
 // input, shrunk to a minimal failing case) is common practice for parsers.

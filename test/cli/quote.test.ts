@@ -1,4 +1,4 @@
-// cosmoledger quote (issue 16): the numbers are those compute gives for the equivalent scenario (which --save
+// cosmoledger quote: the numbers are those compute gives for the equivalent scenario (which --save
 // writes), closed forms hold through the command, and bad arguments are named with what would be valid (exit 2).
 import { describe, expect, it, beforeAll } from "vitest";
 import { existsSync, readFileSync, writeFileSync } from "node:fs";

@@ -1,4 +1,4 @@
-// The file system refuses for real (issue 12): a full disk (a 256 KiB tmpfs), a read-only mount, and permission
+// The file system refuses for real: a full disk (a 256 KiB tmpfs), a read-only mount, and permission
 // denied (the commands run as the unprivileged user "nobody" through setpriv). Each must end with exit 4 and one
 // line naming the path (README: exit statuses), no stack trace, no temporary file, and the previous output whole.
 //

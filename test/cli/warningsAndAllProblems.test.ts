@@ -1,4 +1,4 @@
-// Issue 14: plausibility warnings printed like errors (file:line:column) and turned into errors by --strict; every
+// Plausibility warnings printed like errors (file:line:column) and turned into errors by --strict; every
 // problem of every file in one run; did-you-mean inside targets and surveys; YAML 1.2 booleans; `check FOLDER`.
 // The ranges are those the README names (common practice: H0 between 20 and 150 km/s/Mpc, omega_b = Omega_b h^2
 // about 0.022, Omega_b about 0.049, T_cmb = 2.7255 K from Fixsen 2009).

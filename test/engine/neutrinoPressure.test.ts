@@ -1,4 +1,4 @@
-// The pressure of a massive neutrino species is as accurate as its energy density (issue 14): 3p/rho and P/F(0)
+// The pressure of a massive neutrino species is as accurate as its energy density: 3p/rho and P/F(0)
 // against 30-digit mpmath integrals (test/fixtures/mpmath/neutrinoPressure.py), across the whole range from
 // relativistic (y << 1) to non-relativistic (y >> 1), where 3p = rho (1 - d ln F / d ln y) used to lose digits.
 import { describe, expect, it } from "vitest";

@@ -89,7 +89,7 @@ describe("inverse look-ups", () => {
   });
 });
 
-describe("ages near the big bang (issue 12: target notes must be true)", () => {
+describe("ages near the big bang (target notes must be true)", () => {
   // Flat matter + radiation (Lambda negligible at z > 1e5): t(a) = 4 a_eq^2 / (3 H0 sqrt(Omega_r))
   // [1 - (1 - a / (2 a_eq)) sqrt(1 + a / a_eq)], a_eq = Omega_r / Omega_m (Ryden, Introduction to Cosmology,
   // 2nd ed., eq. 6.31 as recalled from memory; the a << a_eq limit t = a^2 / (2 H0 sqrt(Omega_r)) is eq. 6.33).

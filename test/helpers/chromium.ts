@@ -6,7 +6,7 @@ import { tempDir } from "./buildDemoSite.js";
 export const chromiumPath = spawnSync("sh", ["-c", "command -v chromium"], { encoding: "utf8" }).stdout.trim();
 
 /**
- * Headless Chromium driven by playwright-core with the flags the brief names, a fresh user-data folder and no
+ * Headless Chromium driven by playwright-core (headless, no sandbox, no GPU, no background networking), a fresh user-data folder and no
  * downloads: the one way every browser test starts it.
  */
 export async function launchChromium(options: { viewport?: { width: number; height: number } } = {}) {

@@ -1,4 +1,4 @@
-// Issue 14: lengths in h^-1 Mpc and volumes in h^-3 Mpc^3, chosen per scenario, on pages and in exports, with the h
+// Lengths in h^-1 Mpc and volumes in h^-3 Mpc^3, chosen per scenario, on pages and in exports, with the h
 // used printed beside them. Checked by the identity D[h^-1 Mpc] = h D[Mpc] (and V[h^-3] = h^3 V) against the
 // tables document, which stays in Mpc (common practice: each model with its own h = H0/100).
 import { describe, expect, it, beforeAll } from "vitest";

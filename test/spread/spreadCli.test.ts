@@ -200,7 +200,7 @@ describe("a helper thread evaluates draws beside the main thread", () => {
 });
 
 describe("quote with a published set", () => {
-  it("answers with the set's central values and cites it, marking values recalled from memory", () => {
+  it("answers with the set's central values and cites it, marking values not yet checked against the table", () => {
     const r = runCli([
       "quote",
       "--model",
@@ -215,7 +215,7 @@ describe("quote with a published set", () => {
     const age = Number(/age0\s+\[Gyr\]\s+([\d.]+)/.exec(r.stdout)?.[1]);
     expect(Math.abs(age - 13.787)).toBeLessThan(0.02);
     expect(r.stdout).toMatch(
-      /published sets:\n {2}planck: Planck 2018, TT,TE,EE\+lowE\+lensing\+BAO: A&A 641, A6 \(2020\), arXiv:1807\.06209, Table 2.*; H0, Omega_m, omega_b recalled from memory/,
+      /published sets:\n {2}planck: Planck 2018, TT,TE,EE\+lowE\+lensing\+BAO: A&A 641, A6 \(2020\), arXiv:1807\.06209, Table 2.*; H0, Omega_m, omega_b not yet checked against the published table/,
     );
   });
 });

@@ -1,4 +1,4 @@
-// Quantities added in tables format 3 (issue 14): sizes from an angular size, survey volumes per square degree and
+// Quantities added in tables format 3: sizes from an angular size, survey volumes per square degree and
 // in Mpc^3, LaTeX labels, and the fate with the time to a big rip. Each is checked against an identity of the
 // definitions (Hogg 1999, astro-ph/9905116), never against our own output.
 import { describe, expect, it } from "vitest";
