@@ -18,7 +18,7 @@ Commands:
                             frozen version (defaults: scenarios/, _site/ and scenarios/archive/)
   freeze FILE [-m MESSAGE] [--archive DIR]
                             record the scenario as its next frozen version (default archive: beside FILE)
-  verify [--archive DIR] [--strict] [--json] [--verbose]
+  verify [--scenarios DIR | --archive DIR] [--strict] [--json] [--verbose]
                             check the archive's hashes and chains, and recompute every version
   quote (--model "H0=70 Omega_m=0.3"... | FILE) --z 0.5,1,2 [--quantities D_A,scale] [--format F]
                             print numbers for one or more models at a few redshifts, ages or distances
@@ -89,9 +89,10 @@ Options:
   --format F    only these formats, comma-separated or repeated: csv, json, md, tex, html, png, svg
   --out DIR     output folder (default out/exports); files go to DIR/<id>/vN/ or DIR/<id>/draft/
   --archive DIR archive folder (default: the folder "archive" beside FILE)`,
-  verify: `Usage: cosmoledger verify [--archive DIR] [--strict] [--json] [--verbose] [--quiet]
+  verify: `Usage: cosmoledger verify [--scenarios DIR | --archive DIR] [--strict] [--json] [--verbose] [--quiet]
 
-Checks every version in the archive (default scenarios/archive), in whatever data-contract format it was
+Checks every version in the archive (default: the folder "archive" beside the scenario files, as for every command:
+DIR/archive for --scenarios DIR, default scenarios/, or ./archive where there is no scenarios/ folder), in whatever data-contract format it was
 frozen: its schema, its own SHA-256, its number and the hash chain. A tampered, missing or reordered version,
 or one written by a newer cosmoledger, is an error naming the file (exit 2). Then recomputes every version
 from its frozen source with the current code and separates: quantities added since the version was frozen
@@ -182,7 +183,7 @@ async function runMain(argv: string[]): Promise<number> {
     check: ["quiet", "strict"],
     compute: ["out", "json", "quiet", "strict"],
     freeze: ["archive", "message"],
-    verify: ["archive", "strict", "json", "quiet", "verbose"],
+    verify: ["archive", "scenarios", "strict", "json", "quiet", "verbose"],
     export: ["version", "format", "out", "archive"],
   };
   const stray = Object.keys(parsed.values).filter((k) => k !== "help" && !known[command].includes(k));
@@ -202,7 +203,7 @@ async function runMain(argv: string[]): Promise<number> {
   }
   if (command === "verify") {
     if (parsed.positionals.length > 0) {
-      process.stderr.write(`cosmoledger verify: takes no file names; use --archive DIR\n`);
+      process.stderr.write(`cosmoledger verify: takes no file names; use --scenarios DIR or --archive DIR\n`);
       return 2;
     }
     const { verifyCommand } = await import("./verifyCommand.js");

@@ -1,5 +1,6 @@
 import canonicalize from "canonicalize";
 import { existsSync } from "node:fs";
+import { join } from "node:path";
 import { displayPath } from "../common/displayPath.js";
 import { readArchive } from "../archive/readArchive.js";
 import { compareWithRecomputed, type DriftFinding } from "../archive/versionDrift.js";
@@ -32,15 +33,18 @@ const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
  */
 export function verifyCommand(options: {
   archive?: string;
+  scenarios?: string;
   strict?: boolean;
   json?: boolean;
   quiet?: boolean;
   verbose?: boolean;
 }): number {
-  const dir = options.archive ?? "scenarios/archive";
+  // One rule for every command: the archive is the folder "archive" beside the scenario files.
+  const scenarios = options.scenarios ?? (existsSync("scenarios") ? "scenarios" : ".");
+  const dir = options.archive ?? join(scenarios, "archive");
   if (!existsSync(dir)) {
     process.stderr.write(
-      `error: no archive at ${displayPath(dir)} (name one with --archive DIR; cosmoledger freeze creates it)\n`,
+      `error: no archive at ${displayPath(dir)} (an archive is the folder "archive" beside its scenario files; name the scenarios folder with --scenarios DIR or the archive with --archive DIR; cosmoledger freeze creates it)\n`,
     );
     return 2;
   }

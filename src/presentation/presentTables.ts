@@ -60,6 +60,16 @@ export interface PresentationTable {
   notes: string[];
 }
 
+/** Target quantities that exist only when the target was given their input (a size, a luminosity, an angle). */
+const ASKED_FOR = new Set([
+  "angular_size_arcsec",
+  "apparent_magnitude",
+  "bolometric_flux_erg_s_cm2",
+  "size_arcsec",
+  "proper_size_kpc",
+  "comoving_size_kpc",
+]);
+
 /** Whether a relative difference is above 1 % (such cells stand out on pages). */
 const notable = (x: number | null | undefined) => typeof x === "number" && Math.abs(x) > 0.01;
 
@@ -212,6 +222,9 @@ export function presentationTables(p: PresentedDocument): PresentationTable[] {
               | undefined
           )?.[key];
     if (!d || d.absolute === null) return cell;
+    // A difference below the engine's accuracy is rounding noise of an exact conversion (c/H0 in h^-1 Mpc): zero.
+    if (d.relative !== null && Math.abs(d.relative) < 1e-10)
+      return { ...cell, difference: { text: "0 (0 %)", notable: false } };
     const sign = d.absolute > 0 ? "+" : "";
     return {
       ...cell,
@@ -225,7 +238,9 @@ export function presentationTables(p: PresentedDocument): PresentationTable[] {
   const rowDiff = (cell: PresentationCell, m: StoredModelTables, i: number, key: string): PresentationCell => {
     if (m.id === baseId) return cell;
     const rel = (doc.differences[m.id]?.redshifts[i] as Record<string, number | null> | undefined)?.[key] ?? null;
-    return { ...cell, difference: { text: formatPercent(rel), notable: notable(rel) } };
+    // Below the engine's accuracy a relative difference is rounding noise: zero.
+    const shown = rel !== null && Math.abs(rel) < 1e-10 ? 0 : rel;
+    return { ...cell, difference: { text: formatPercent(shown), notable: notable(shown) } };
   };
   tables.push({
     id: "models",
@@ -364,12 +379,16 @@ export function presentationTables(p: PresentedDocument): PresentationTable[] {
       stub: "Quantity",
       columns,
       rows: [
-        ...TARGET_QUANTITIES.map((q) =>
+        // Rows of quantities the target was not given the input for (a magnitude without an absolute magnitude)
+        // are left out, and the note row when no model has a note.
+        ...TARGET_QUANTITIES.filter(
+          (q) => !ASKED_FOR.has(q.key) || models.some((m) => (quantityValue(m.targets[ti], q.key) ?? null) !== null),
+        ).map((q) =>
           perModel(q.label, q.unit, (m) =>
             banded(num(quantityValue(m.targets[ti], q.key) as number | null), m, "targets", ti, q.key),
           ),
         ),
-        perModel("Note", "", (m) => text(m.targets[ti].note)),
+        ...(models.some((m) => m.targets[ti].note) ? [perModel("Note", "", (m) => text(m.targets[ti].note))] : []),
       ],
     });
   });
