@@ -7,7 +7,7 @@ import { defineConfig } from "vitest/config";
 export default defineConfig({
   root: fileURLToPath(new URL("..", import.meta.url)),
   test: {
-    include: ["test/engine/**/*.test.ts", "test/spread/**/*.test.ts"],
+    include: ["test/engine/**/*.test.ts", "test/spread/**/*.test.ts", "test/presentation/**/*.test.ts"],
     exclude: ["test/spread/spreadCli.test.ts", "test/spread/drawPoolFaults.test.ts"],
     testTimeout: 180_000,
     hookTimeout: 180_000,
