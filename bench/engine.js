@@ -51,7 +51,7 @@ export function runEngineBench({ points = 2000, zMax = 20, repeats = 30 } = {}) 
       careful.push(z);
     }
   });
-  // The same work with massive neutrinos (the issue asks for at most 2x the cost).
+  // The same work with massive neutrinos (goal: at most 2x the cost).
   for (let w = 0; w < 5; w++) for (const m of BENCH_MODELS_NU) redshiftTable(m, zs);
   const nuTimes = [];
   for (let r = 0; r < repeats; r++) {

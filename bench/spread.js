@@ -1,4 +1,4 @@
-// Spreads (issue: published cosmologies and uncertainties): 1,000 draws of each of 8 models over 200 grid and 20
+// Spreads (published cosmologies and their uncertainties): 1,000 draws of each of 8 models over 200 grid and 20
 // table redshifts, as a whole `compute` process, and the cost of one draw against one plain model's evaluation.
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
