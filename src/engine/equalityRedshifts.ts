@@ -6,8 +6,7 @@ import { massiveNeutrinoParts } from "./massiveNeutrinoDensity.js";
 /** Matter-like density rho_m(a)/rho_crit,0: cold matter and baryons plus the rho - 3p part of massive neutrinos. */
 function matterLike(model: BackgroundModel, a: number): number {
   if (model.massiveNeutrinos.length === 0) return model.Omega_cb / a ** 3;
-  const nu = massiveNeutrinoParts(model, a);
-  return model.Omega_cb / a ** 3 + nu.rho - nu.threeP;
+  return model.Omega_cb / a ** 3 + massiveNeutrinoParts(model, a).matter;
 }
 
 /** Radiation-like density: photons, massless neutrinos and the 3p part of massive neutrinos. */

@@ -1,5 +1,5 @@
 import type { BackgroundModel } from "./backgroundModel.js";
-import { lnEnergyRatio, lnPressureRatio } from "./fermiDiracEnergy.js";
+import { lnEnergyRatio, lnMatterRatio, lnPressureRatio } from "./fermiDiracEnergy.js";
 
 /**
  * rho_nu(a) / rho_crit,0 summed over massive species: Omega_rel a^-4 R(y0 a), R = F(y)/F(0) the Fermi-Dirac energy
@@ -15,13 +15,17 @@ export function massiveNeutrinoDensity(model: BackgroundModel, a: number): numbe
 }
 
 /**
- * The massive neutrinos split into their radiation-like part 3p and matter-like part rho - 3p (relative to
+ * The massive neutrinos split into their radiation-like part 3p and matter-like part rho - 3p (`matter`, relative to
  * rho_crit,0), and the acceleration source rho + 3p: rho = Omega_rel a^-4 F(y)/F(0) and 3p = Omega_rel a^-4 P(y)/F(0)
  * (Fermi-Dirac energy and pressure integrals; equivalently 3p/rho = 1 - d ln F / d ln y).
  */
-export function massiveNeutrinoParts(model: BackgroundModel, a: number): { rho: number; threeP: number } {
+export function massiveNeutrinoParts(
+  model: BackgroundModel,
+  a: number,
+): { rho: number; threeP: number; matter: number } {
   let rho = 0;
   let threeP = 0;
+  let matter = 0;
   const lnA = Math.log(a);
   for (const n of model.massiveNeutrinos) {
     const lnY = n.lnY0 + lnA;
@@ -29,6 +33,9 @@ export function massiveNeutrinoParts(model: BackgroundModel, a: number): { rho: 
     rho += r;
     // 3p from its own integral (P/F), not from the slope of the energy table: full relative accuracy when p << rho.
     threeP += n.Omega_rel * Math.exp(lnPressureRatio(lnY) - 4 * lnA);
+    // rho - 3p from its own integral too (M = F - P as one integrand): where the species is still mostly
+    // relativistic it is a small difference of two large numbers, which a subtraction would lose.
+    matter += n.Omega_rel * Math.exp(lnMatterRatio(lnY) - 4 * lnA);
   }
-  return { rho, threeP };
+  return { rho, threeP, matter };
 }

@@ -119,7 +119,7 @@ export function redshiftTable(
     const zp1 = 1 + z;
     // Matter: cold matter and baryons plus the non-relativistic part rho - 3p of massive neutrinos.
     const nu = hasNu ? massiveNeutrinoParts(model, a) : null;
-    out.Omega_m_z[i] = (model.Omega_cb * zp1 * zp1 * zp1 + (nu ? nu.rho - nu.threeP : 0)) / E2;
+    out.Omega_m_z[i] = (model.Omega_cb * zp1 * zp1 * zp1 + (nu ? nu.matter : 0)) / E2;
     out.comoving_distance_Mpc[i] = DC;
     out.transverse_comoving_distance_Mpc[i] = DM;
     out.angular_diameter_distance_Mpc[i] = DA;
