@@ -215,7 +215,8 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
       ? "Recombination and drag redshifts come from the fitting formulas of Hu \\& Sugiyama (1996) and Eisenstein \\& Hu (1998), and $r_\\mathrm{drag}$ from the calibrated formula of Aubourg et al.\\ (2015)."
       : "",
     "The model is the homogeneous background only: perturbations, lensing and peculiar velocities are not included.",
-    `Computed with cosmoledger ${escapeLatex(p.tool_version)} (engine ${escapeLatex(doc.engine.version)}); scenario \\texttt{${escapeLatex(doc.scenario.id)}}, ${escapeLatex(version)}.`,
+    // A SHA-256 is one 64-character word: TeX may break it every 16 digits, so it stays inside the margin.
+    `Computed with cosmoledger ${escapeLatex(p.tool_version)} (engine ${escapeLatex(doc.engine.version)}); scenario \\texttt{${escapeLatex(doc.scenario.id)}}, ${escapeLatex(version).replace(/([0-9a-f]{16})(?=[0-9a-f])/g, "$1\\allowbreak{}")}.`,
   ]
     .filter(Boolean)
     .join("\n");

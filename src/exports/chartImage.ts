@@ -140,7 +140,7 @@ function config(spec: ChartSpec, p: ExportProvenance, scale: number): ChartConfi
         y: {
           ...shared.options.scales.y,
           title: { ...shared.options.scales.y.title, color: INK, font: font(11) },
-          ticks: { color: INK, font: font(9) },
+          ticks: { ...(shared.options.scales.y as { ticks?: object }).ticks, color: INK, font: font(9) },
         },
       },
       plugins: {

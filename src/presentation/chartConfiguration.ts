@@ -178,6 +178,10 @@ export function chartConfiguration(frame: ChartFrame) {
         y: {
           type: logYOf(view) ? ("logarithmic" as const) : ("linear" as const),
           title: { display: true, text: frame.yTitle },
+          // A log y axis is labelled at 1, 2 and 5 times a power of ten only (labels like 8,000 beside 10,000 crowd).
+          ...(logYOf(view)
+            ? { ticks: { autoSkip: false, callback: (value: number | string) => logTickLabel(Number(value)) } }
+            : {}),
         },
       },
       plugins: {

@@ -82,7 +82,8 @@ function indexCharts(): void {
           x: { type: "linear", title: { display: true, text: "z" } },
           y: { title: { display: true, text: s.yTitle } },
         },
-        plugins: { legend: { display: false } },
+        // A small legend, so that the overview names its curves as the page's charts do.
+        plugins: { legend: { display: true, position: "bottom", labels: { boxWidth: 18, font: { size: 10 } } } },
       },
     });
   }
