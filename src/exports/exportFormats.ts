@@ -185,11 +185,7 @@ const latexLabel = (label: string, unit: string) =>
 
 /** A tabular with booktabs rules (\usepackage{booktabs}); units in the header; provenance in % comments above it. */
 export function tableLatex(t: PresentationTable, p: ExportProvenance): string {
-  const n = t.columns.length;
-  // A spread adds the median and its 68 % interval as X^{+a}_{-b} after the value.
-  const cell = (c: PresentationCell) =>
-    (c.kind === "number" ? latexNumber(c.parts) : escapeLatex(c.text)) +
-    (c.interval ? ` ($${c.interval.tex.replace(/\u2212/g, "-")}$)` : "");
+  const parts = latexParts(t);
   const lines = [
     // A comment ends only at a line break, and oneLine leaves none (TeX skips the rest of a comment line unread).
     `% ${oneLine(heading(t))}`,
@@ -199,9 +195,79 @@ export function tableLatex(t: PresentationTable, p: ExportProvenance): string {
     `% needs ${latexPackages(t.columns.map((c) => c.tex))
       .map((name) => `\\usepackage{${name}}`)
       .join(" ")}`,
-    `\\begin{tabular}{l${"r".repeat(n)}}`,
-    "\\toprule",
+    ...(parts.length > 1
+      ? [
+          `% in ${parts.length} tabulars of at most ${LATEX_COLUMNS} value columns (${LATEX_COLUMNS_WITH_INTERVALS} with 68 % intervals), so that each fits a landscape A4 page in \\footnotesize`,
+        ]
+      : []),
   ];
+  parts.forEach((part, k) => {
+    if (k > 0) lines.push("", "\\medskip", "");
+    lines.push(...latexTabular(part));
+  });
+  lines.push("");
+  return lines.join("\n");
+}
+
+/** Value columns one tabular holds at most: about what fits a landscape A4 text width in \footnotesize. */
+const LATEX_COLUMNS = 8;
+/** The same with 68 % intervals beside the values (each cell about twice as wide). */
+const LATEX_COLUMNS_WITH_INTERVALS = 4;
+
+/**
+ * A wide table (a whole group: several quantities times the models) as parts that each fit a page: whole quantity
+ * blocks together as far as they fit, a block wider than a part split by models. A table that fits is one part.
+ */
+function latexParts(t: PresentationTable): PresentationTable[] {
+  const banded = t.rows.some((r) => r.cells.some((c) => c.interval));
+  const most = banded ? LATEX_COLUMNS_WITH_INTERVALS : LATEX_COLUMNS;
+  if (t.columns.length <= most) return [t];
+  const slice = (from: number, to: number, spans: PresentationTable["spans"]): PresentationTable => ({
+    ...t,
+    spans,
+    columns: t.columns.slice(from, to),
+    rows: t.rows.map((r) => ({ ...r, cells: r.cells.slice(from, to) })),
+  });
+  const parts: PresentationTable[] = [];
+  if (!t.spans) {
+    for (let from = 0; from < t.columns.length; from += most) parts.push(slice(from, from + most, null));
+    return parts;
+  }
+  let from = 0;
+  let group: { label: string; unit: string; columns: number }[] = [];
+  let width = 0;
+  const flush = () => {
+    if (group.length > 0) parts.push(slice(from, from + width, group));
+    from += width;
+    group = [];
+    width = 0;
+  };
+  for (const s of t.spans) {
+    if (s.columns > most) {
+      flush();
+      for (let k = 0; k < s.columns; k += most) {
+        const n = Math.min(most, s.columns - k);
+        parts.push(slice(from + k, from + k + n, [{ ...s, columns: n }]));
+      }
+      from += s.columns;
+      continue;
+    }
+    if (width + s.columns > most) flush();
+    group.push(s);
+    width += s.columns;
+  }
+  flush();
+  return parts;
+}
+
+/** One booktabs tabular of a (part of a) table: spans, column heads, rows. */
+function latexTabular(t: PresentationTable): string[] {
+  const n = t.columns.length;
+  // A spread adds the median and its 68 % interval as X^{+a}_{-b} after the value.
+  const cell = (c: PresentationCell) =>
+    (c.kind === "number" ? latexNumber(c.parts) : wrapped(escapeLatex(c.text), c.text, 16, "2.2cm")) +
+    (c.interval ? ` ($${c.interval.tex.replace(/\u2212/g, "-")}$)` : "");
+  const lines = [`\\begin{tabular}{l${"r".repeat(n)}}`, "\\toprule"];
   if (t.spans) {
     // One \multicolumn per quantity over its model columns, each underlined by its own \cmidrule.
     let first = 2;
@@ -215,13 +281,23 @@ export function tableLatex(t: PresentationTable, p: ExportProvenance): string {
   }
   lines.push(
     // A model's label_tex was checked to hold mathematics only (src/scenario/labelTex.ts); set in math mode.
-    `${escapeLatex(t.stub)} & ${t.columns.map((c) => (c.tex ? `$${c.tex}$` : latexLabel(c.label, c.unit))).join(" & ")} \\\\`,
+    `${escapeLatex(t.stub)} & ${t.columns.map((c) => (c.tex ? `$${c.tex}$` : wrapped(latexLabel(c.label, c.unit), c.label + c.unit, 12, "2cm"))).join(" & ")} \\\\`,
     "\\midrule",
   );
-  for (const r of t.rows) lines.push(`${latexLabel(r.label, r.unit)} & ${r.cells.map(cell).join(" & ")} \\\\`);
-  lines.push("\\bottomrule", "\\end{tabular}", "");
-  return lines.join("\n");
+  for (const r of t.rows)
+    lines.push(
+      `${wrapped(latexLabel(r.label, r.unit), r.label + r.unit, 30, "3.6cm")} & ${r.cells.map(cell).join(" & ")} \\\\`,
+    );
+  lines.push("\\bottomrule", "\\end{tabular}");
+  return lines;
 }
+
+/**
+ * Long text in a cell (a note, a method, a long row label) wraps inside a box of the given width instead of widening
+ * the whole column past the page (plain LaTeX: \parbox, ragged right).
+ */
+const wrapped = (tex: string, plain: string, longest: number, width: string) =>
+  plain.length > longest ? `\\parbox[t]{${width}}{\\raggedright ${tex}}` : tex;
 
 /** Text for HTML content and attribute values (escape-html: & < > " '). */
 export const escapeHtml = (s: string) => escapeHtmlText(s);
