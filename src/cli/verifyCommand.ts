@@ -31,6 +31,28 @@ const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
  * declared engine change explains, and drift that none does. With --strict, unexplained drift, changed resolved
  * inputs or a source that no longer validates fail with exit 3.
  */
+/** Where two JSON values differ: key paths with the stored and the current value, first differences first. */
+function differingPaths(stored: unknown, now: unknown, path = "inputs"): string[] {
+  const show = (x: unknown) => {
+    const s = JSON.stringify(x) ?? "absent";
+    return s.length > 40 ? `${s.slice(0, 40)}...` : s;
+  };
+  if (stored === now) return [];
+  if (stored && now && typeof stored === "object" && typeof now === "object") {
+    const out: string[] = [];
+    const keys = Array.isArray(stored)
+      ? Array.from({ length: Math.max(stored.length, (now as unknown[]).length) }, (_, i) => i)
+      : [...new Set([...Object.keys(stored), ...Object.keys(now)])].sort();
+    for (const k of keys) {
+      const next = Array.isArray(stored) ? `${path}[${k}]` : `${path}.${k}`;
+      out.push(...differingPaths((stored as Record<string, unknown>)[k], (now as Record<string, unknown>)[k], next));
+      if (out.length >= 4) break;
+    }
+    return out;
+  }
+  return [`${path} (stored ${show(stored)}, now ${show(now)})`];
+}
+
 export function verifyCommand(options: {
   archive?: string;
   scenarios?: string;
@@ -85,10 +107,13 @@ export function verifyCommand(options: {
         problems.push(`${label}: its frozen source no longer passes the current validation: ${e.issues[0].message}`);
         continue;
       }
-      if (canonicalize(frozenInputs(scenario)) !== canonicalize(v.inputs))
+      const now = frozenInputs(scenario);
+      if (canonicalize(now) !== canonicalize(v.inputs)) {
+        const where = differingPaths(v.inputs, now).slice(0, 4);
         problems.push(
-          `${label}: the current resolver gives different inputs (a default or an inheritance rule changed)`,
+          `${label}: the inputs its source resolves to today differ from the inputs the version stores, at ${where.join("; ")}: either the stored inputs no longer match the stored source (edited after freezing), or a default or an inheritance rule changed`,
         );
+      }
       let c: ReturnType<typeof compareWithRecomputed>;
       try {
         c = compareWithRecomputed(v.tables, buildTablesDocument(scenario));
