@@ -84,6 +84,14 @@ export const DECLARED_CHANGES: readonly DeclaredChange[] = [
     why: "The matter-like part of massive neutrinos (rho - 3p, in Omega_m(z) and matter-radiation equality) now comes from its own Fermi-Dirac integral, M = int x^2 y^2 / sqrt(x^2 + y^2) / (e^x + 1) dx, instead of the difference of the interpolated energy and pressure, which lost digits where the species is still mostly relativistic (2.5e-9 in Omega_m(z) at z = 63,096 for 1.5 eV species); and the energy table's step is halved (its error near y = 3 fell from 2.4e-10 to below 2e-11). Both are checked against 30-digit mpmath values (test/fixtures/mpmath/neutrinoMatter.json); numbers move by up to a few 1e-9.",
   },
   {
+    id: "antipode-conditioning-note",
+    engine_version: "1.3.0",
+    quantities: ["warnings"],
+    models: "closed models whose past light cone passes the antipode",
+    applies: (p) => p.Omega_k < 0,
+    why: "The warning of a model whose light has passed the antipode now also says that D_M = R sin(D_C/R) is ill-conditioned there (the integral's relative error times about |chi cot chi|, chi = D_C/R), so those distances are good to about 1e-10 |chi cot chi|; no number changes.",
+  },
+  {
     id: "published-set-wording",
     engine_version: "1.3.0",
     quantities: ["cautions"],

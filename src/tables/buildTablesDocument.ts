@@ -88,7 +88,7 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
   ) {
     const zAnti = redshiftAtComovingDistance(bg, summary.antipode_distance_Mpc);
     allWarnings.push(
-      `light from beyond z = ${zAnti.toPrecision(6)} has passed the antipode: D_M is negative there (sign convention: D_M = R sin(D_C/R); images are inverted)`,
+      `light from beyond z = ${zAnti.toPrecision(6)} has passed the antipode: D_M is negative there (sign convention: D_M = R sin(D_C/R); images are inverted), and D_M, D_A, D_L and the distance modulus there are ill-conditioned: the integral's relative error is multiplied by about |chi cot chi| (chi = D_C/R), so their accuracy is about 1e-10 |chi cot chi| rather than 1e-10`,
     );
   }
   const early = earlyUniverse(bg);

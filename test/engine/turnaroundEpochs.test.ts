@@ -49,3 +49,21 @@ describe("future epochs against the turnaround", () => {
     expect(Math.abs(ahead.z_matter_de_equality! - (1 / Math.cbrt(4) - 1))).toBeLessThan(1e-12);
   });
 });
+
+describe("light that wrapped round a closed space", () => {
+  it("the antipode warning states the conditioning of D_M there", async () => {
+    // Conditioning of D_M = R sin(chi) in chi: d ln D_M / d ln chi = chi cot chi (calculus; common practice).
+    const { loadScenario } = await import("../../src/scenario/loadScenario.js");
+    const { buildTablesDocument } = await import("../../src/tables/buildTablesDocument.js");
+    const doc = buildTablesDocument(
+      loadScenario(
+        "title: t\nid: t\nredshifts: [1000]\nmodels:\n  - { id: c, H0: 70, Omega_m: 0.3, Omega_k: -0.6, radiation: none }\n",
+        "t.yaml",
+      ),
+      { chartGrid: false },
+    );
+    const w = doc.models[0].warnings.join("\n");
+    expect(w).toMatch(/has passed the antipode/);
+    expect(w).toMatch(/multiplied by about \|chi cot chi\| \(chi = D_C\/R\)/);
+  });
+});
