@@ -31,7 +31,7 @@ const SOURCES: Source[] = [
   { short: "scale_comoving", row: "kpc_per_arcsec_comoving" },
   { short: "lookback", row: "lookback_time_Gyr", target: "lookback_time_Gyr" },
   { short: "age", row: "age_Gyr", target: "age_Gyr" },
-  { short: "light_travel", row: "light_travel_distance_Gly" },
+  { short: "light_travel", row: "light_travel_distance_Mpc" },
   { short: "V_C", row: "comoving_volume_Gpc3" },
   { short: "dV", row: "comoving_volume_element_Mpc3_sr" },
   { short: "H", row: "H_km_s_Mpc" },

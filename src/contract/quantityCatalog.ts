@@ -29,6 +29,8 @@ export const REDSHIFT_GROUPS: { title: string; id: string; quantities: QuantityI
     quantities: [
       { key: "lookback_time_Gyr", label: "Lookback time", unit: "Gyr" },
       { key: "age_Gyr", label: "Age at z", unit: "Gyr" },
+      // In Mpc like every other distance (format 5 on); older documents give it in Gly only.
+      { key: "light_travel_distance_Mpc", label: "Light-travel distance", unit: "Mpc" },
       { key: "light_travel_distance_Gly", label: "Light-travel distance", unit: "Gly" },
     ],
   },
@@ -272,9 +274,15 @@ export function catalogFor(
       return false;
     });
   const row = (k: string) => rowKeys.has(k);
-  const groups = REDSHIFT_GROUPS.map((g) => ({ ...g, quantities: keep(g.quantities, row) })).filter(
-    (g) => g.quantities.length > 0,
-  );
+  // One light-travel distance: in Mpc where the document has it, else (older formats) in Gly.
+  const lightTravel = row("light_travel_distance_Mpc") ? "light_travel_distance_Gly" : "light_travel_distance_Mpc";
+  const groups = REDSHIFT_GROUPS.map((g) => ({
+    ...g,
+    quantities: keep(
+      g.quantities.filter((q) => q.key !== lightTravel),
+      row,
+    ),
+  })).filter((g) => g.quantities.length > 0);
   // Shown in h units (the presentation converted the values, src/presentation/presentDocument.ts), every length,
   // volume and wavenumber is labelled so here.
   const h = hUnits;

@@ -34,6 +34,8 @@ export const MPC_KM = MPC_M / 1000;
 export const MPC_CM = MPC_M * 100;
 /** One gigayear in seconds. */
 export const GYR_S = CONSTANTS.gigayear.value;
+/** One giga light-year (c times 10^9 Julian years) in megaparsecs: about 306.601 (IAU light year, IAU parsec). */
+export const GLY_MPC = (CONSTANTS.speed_of_light.value * GYR_S) / MPC_M;
 /** One arcsecond in radians. */
 export const ARCSEC_RAD = Math.PI / 648_000;
 /** The whole sky in square degrees: 4 pi (180/pi)^2. */

@@ -1,5 +1,5 @@
 import type { BackgroundModel } from "./backgroundModel.js";
-import { ARCSEC_RAD } from "./constants.js";
+import { ARCSEC_RAD, GLY_MPC } from "./constants.js";
 import { hubbleDistanceMpc, hubbleTimeGyr } from "./hubbleScales.js";
 import { curvatureRadiusMpc } from "./curvatureRadius.js";
 import { expansionRateSquared } from "./expansionRateSquared.js";
@@ -29,6 +29,7 @@ export interface RedshiftColumns {
   kpc_per_arcsec_comoving: Float64Array;
   hubble_radius_Mpc: Float64Array;
   particle_horizon_Mpc: Float64Array;
+  light_travel_distance_Mpc: Float64Array;
   light_travel_distance_Gly: Float64Array;
 }
 
@@ -51,6 +52,7 @@ export const REDSHIFT_COLUMN_KEYS = [
   "kpc_per_arcsec_comoving",
   "hubble_radius_Mpc",
   "particle_horizon_Mpc",
+  "light_travel_distance_Mpc",
   "light_travel_distance_Gly",
 ] as const satisfies readonly (keyof RedshiftColumns)[];
 
@@ -98,6 +100,7 @@ export function redshiftTable(
     kpc_per_arcsec_comoving: col(),
     hubble_radius_Mpc: col(),
     particle_horizon_Mpc: col(),
+    light_travel_distance_Mpc: col(),
     light_travel_distance_Gly: col(),
   };
   const kpcPerMpcArcsec = 1000 * ARCSEC_RAD;
@@ -133,6 +136,8 @@ export function redshiftTable(
     out.kpc_per_arcsec_comoving[i] = DM * kpcPerMpcArcsec;
     out.hubble_radius_Mpc[i] = DH / E;
     out.particle_horizon_Mpc[i] = Number.isFinite(past.conformalAge[i]) ? DH * past.conformalAge[i] : NaN;
+    // c times the lookback time, in Mpc like every other distance (and in Gly, as older formats give it).
+    out.light_travel_distance_Mpc[i] = lookback * GLY_MPC;
     out.light_travel_distance_Gly[i] = lookback;
   }
   return out;

@@ -223,3 +223,16 @@ describe("Pen 1999 (ApJS 120, 49) fitting formula for flat Lambda-CDM D_L", () =
     });
   }
 });
+
+describe("light-travel distance in Mpc", () => {
+  it("is c times the lookback time: Einstein-de Sitter (2/3)(c/H0)(1 - (1+z)^-3/2)", () => {
+    // Lookback time in EdS: t_L = (2/3) t_H (1 - (1+z)^(-3/2)) (closed form; Hogg 1999 eq. 30 with E = (1+z)^(3/2));
+    // times c it is (2/3) D_H (1 - (1+z)^(-3/2)), with D_H = c/H0 from the SI metre and the IAU parsec.
+    const zs = [0.1, 1, 3, 10];
+    const t = redshiftTable(modelOf({ Om: 1, Ode: 0 }), zs);
+    zs.forEach((z, i) => {
+      const expected = (2 / 3) * hubbleDistanceMpc(70) * (1 - (1 + z) ** -1.5);
+      expect(relErr(t.light_travel_distance_Mpc[i], expected)).toBeLessThan(1e-10);
+    });
+  });
+});

@@ -14,7 +14,7 @@ export type GridBand = {
 } | null;
 
 /**
- * The stable data contract written by cosmoledger compute (format 3). Units are in the key names; null marks an undefined or infinite quantity. Additive over format 1: scenario.source_text and the resolved inputs are part of the document, and scenario.inputs_sha256 is the SHA-256 of the RFC 8785 canonical JSON of the engine version and the resolved inputs. Additive over format 2: the fate is one of a complete set (expands_decelerating, coasts, expands_accelerating, big_rip, recollapses) with the time to a big rip; targets given an angular size carry their proper and comoving size; survey shells carry their volume in Mpc^3 and per square degree; a model may carry a LaTeX label. Format 5 adds each model's input warnings (input_warnings) and, for a scenario that asks for h units, the bands of its spreads in h units (spread.h_scaled).
+ * The stable data contract written by cosmoledger compute (format 3). Units are in the key names; null marks an undefined or infinite quantity. Additive over format 1: scenario.source_text and the resolved inputs are part of the document, and scenario.inputs_sha256 is the SHA-256 of the RFC 8785 canonical JSON of the engine version and the resolved inputs. Additive over format 2: the fate is one of a complete set (expands_decelerating, coasts, expands_accelerating, big_rip, recollapses) with the time to a big rip; targets given an angular size carry their proper and comoving size; survey shells carry their volume in Mpc^3 and per square degree; a model may carry a LaTeX label. Format 5 adds the light-travel distance in Mpc (light_travel_distance_Mpc, beside the Gly of earlier formats), each model's input warnings (input_warnings) and, for a scenario that asks for h units, the bands of its spreads in h units (spread.h_scaled).
  */
 export interface TablesDocumentFormat5 {
   format: "cosmoledger.tables/5";
@@ -398,6 +398,7 @@ export interface Row {
   kpc_per_arcsec_comoving: Num;
   hubble_radius_Mpc: Num;
   particle_horizon_Mpc: Num;
+  light_travel_distance_Mpc: Num;
   light_travel_distance_Gly: Num;
   H_over_1pz_km_s_Mpc: Num;
   D_M_over_r_drag: Num;
@@ -425,6 +426,7 @@ export interface GridColumns {
   kpc_per_arcsec_comoving: Num[];
   hubble_radius_Mpc: Num[];
   particle_horizon_Mpc: Num[];
+  light_travel_distance_Mpc: Num[];
   light_travel_distance_Gly: Num[];
   H_over_1pz_km_s_Mpc: Num[];
   D_M_over_r_drag: Num[];
