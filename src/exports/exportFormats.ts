@@ -307,7 +307,8 @@ export function tableHtml(t: PresentationTable, p: ExportProvenance): string {
   const th = "padding:2px 8px;border-bottom:1px solid #888;text-align:left";
   const td = "padding:2px 8px;text-align:right;font-variant-numeric:tabular-nums";
   const out = [
-    `<figure class="cosmoledger-export" data-scenario="${escapeHtml(p.scenario_id)}" data-version="${escapeHtml(versionLabel(p))}" data-table="${escapeHtml(t.id)}">`,
+    // A wide table scrolls inside its own figure on a narrow screen, never the page that holds it.
+    `<figure class="cosmoledger-export" style="margin:0;max-width:100%;overflow-x:auto" data-scenario="${escapeHtml(p.scenario_id)}" data-version="${escapeHtml(versionLabel(p))}" data-table="${escapeHtml(t.id)}">`,
     `<table style="border-collapse:collapse">`,
     `<caption style="text-align:left;font-weight:bold">${escapeHtml(heading(t))}</caption>`,
     "<thead>",

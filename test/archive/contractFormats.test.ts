@@ -171,6 +171,9 @@ const FORMAT_3_ADDITIONS = [
   "targets[].comoving_size_kpc",
   "targets[].proper_size_kpc",
   "targets[].size_arcsec",
+  // Format 5: the light-travel distance in Mpc (beside the Gly of every format).
+  "redshifts[].light_travel_distance_Mpc",
+  "grid.light_travel_distance_Mpc",
 ];
 
 describe("drift the engine means", () => {
