@@ -11,12 +11,10 @@ const ZETA7 = 1.0083492773819228;
 const LN_Y_MIN = Math.log(1e-3);
 const LN_Y_MAX = Math.log(1e3);
 /**
- * Step of the energy table in ln y: the cubic Hermite error scales as STEP^4, and at 0.02 it reached 2.4e-10 near
+ * Step of the tables in ln y (energy, pressure, matter-like part): the cubic Hermite error scales as STEP^4, and at 0.02 it reached 2.4e-10 near
  * y = 3 (mpmath fixture test/fixtures/mpmath/neutrinoMatter.json); at 0.01 it is below 2e-11.
  */
 const STEP = 0.01;
-/** The pressure and matter-like tables use the same step. */
-const P_STEP = 0.01;
 
 /** F(y) = int_0^inf x^2 sqrt(x^2 + y^2) / (e^x + 1) dx by adaptive quadrature (the energy density of one fermion species). */
 export function fermiDiracEnergyIntegral(y: number): number {
@@ -75,24 +73,45 @@ function fermiDiracPressureSlope(y: number): number {
   ).value;
 }
 
-let table: { lnR: Float64Array; slope: Float64Array } | null = null;
-let pressureTable: { lnP: Float64Array; slope: Float64Array } | null = null;
+/** A quantity tabulated in ln y: ln(X/F(0)) and d ln X / d ln y at every node of the grid (cubic Hermite nodes). */
+interface LogTable {
+  value: Float64Array;
+  slope: Float64Array;
+}
 
-/** ln(P/F(0)) and d ln P / d ln y on a grid twice as fine as the energy's, computed once (cubic Hermite nodes). */
-function pressureNodes() {
-  if (pressureTable) return pressureTable;
-  const n = Math.round((LN_Y_MAX - LN_Y_MIN) / P_STEP) + 1;
-  const lnP = new Float64Array(n);
+/** Tabulates ln(X(y)/F(0)) and its log-slope y X'(y) / X(y) from the exact integrals, once (on first use). */
+function logTable(integral: (y: number) => number, derivative: (y: number) => number): LogTable {
+  const n = Math.round((LN_Y_MAX - LN_Y_MIN) / STEP) + 1;
+  const value = new Float64Array(n);
   const slope = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const y = Math.exp(LN_Y_MIN + i * P_STEP);
-    const P = fermiDiracPressureIntegral(y);
-    lnP[i] = Math.log(P / FD_ENERGY_MASSLESS);
-    slope[i] = (y * fermiDiracPressureSlope(y)) / P;
+    const y = Math.exp(LN_Y_MIN + i * STEP);
+    const x = integral(y);
+    value[i] = Math.log(x / FD_ENERGY_MASSLESS);
+    slope[i] = (y * derivative(y)) / x;
   }
-  pressureTable = { lnP, slope };
-  return pressureTable;
+  return { value, slope };
 }
+
+/** The cubic Hermite interpolant of a table at lnY, inside the table's range. */
+function hermite(table: LogTable, lnY: number): number {
+  const { value, slope } = table;
+  const t = (lnY - LN_Y_MIN) / STEP;
+  const i = Math.min(Math.floor(t), value.length - 2);
+  const s = t - i;
+  const s2 = s * s;
+  const s3 = s2 * s;
+  return (
+    (2 * s3 - 3 * s2 + 1) * value[i] +
+    (s3 - 2 * s2 + s) * STEP * slope[i] +
+    (-2 * s3 + 3 * s2) * value[i + 1] +
+    (s3 - s2) * STEP * slope[i + 1]
+  );
+}
+
+let energyTable: LogTable | null = null;
+let pressureTable: LogTable | null = null;
+let matterTable: LogTable | null = null;
 
 /**
  * ln(P(y)/F(0)): the pressure (times 3) of a massive species over the energy density of a massless one at the same
@@ -109,34 +128,8 @@ export function lnPressureRatio(lnY: number): number {
     const iy2 = Math.exp(-2 * lnY);
     return -lnY + Math.log(22.5 * ZETA5 - iy2 * 354.375 * ZETA7) - Math.log(FD_ENERGY_MASSLESS);
   }
-  const { lnP, slope } = pressureTable ?? pressureNodes();
-  const t = (lnY - LN_Y_MIN) / P_STEP;
-  const i = Math.min(Math.floor(t), lnP.length - 2);
-  const s = t - i;
-  const s2 = s * s;
-  const s3 = s2 * s;
-  return (
-    (2 * s3 - 3 * s2 + 1) * lnP[i] +
-    (s3 - 2 * s2 + s) * P_STEP * slope[i] +
-    (-2 * s3 + 3 * s2) * lnP[i + 1] +
-    (s3 - s2) * P_STEP * slope[i + 1]
-  );
-}
-
-/** ln R and d ln R / d ln y on the grid, computed once (cubic Hermite nodes). */
-function nodes() {
-  if (table) return table;
-  const n = Math.round((LN_Y_MAX - LN_Y_MIN) / STEP) + 1;
-  const lnR = new Float64Array(n);
-  const slope = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const y = Math.exp(LN_Y_MIN + i * STEP);
-    const F = fermiDiracEnergyIntegral(y);
-    lnR[i] = Math.log(F / FD_ENERGY_MASSLESS);
-    slope[i] = (y * fermiDiracEnergySlope(y)) / F;
-  }
-  table = { lnR, slope };
-  return table;
+  pressureTable ??= logTable(fermiDiracPressureIntegral, fermiDiracPressureSlope);
+  return hermite(pressureTable, lnY);
 }
 
 const SMALL = 5 / (7 * Math.PI ** 2); // F(y) = F(0) (1 + 5 y^2 / (7 pi^2) + O(y^4 ln y))
@@ -157,20 +150,8 @@ export function lnEnergyRatio(lnY: number): number {
       lnY + Math.log(FD_NUMBER + iy2 * (11.25 * ZETA5 - (iy2 * (708.75 * ZETA7)) / 8)) - Math.log(FD_ENERGY_MASSLESS)
     );
   }
-  const tbl = table ?? nodes();
-  const lnR = tbl.lnR;
-  const slope = tbl.slope;
-  const t = (lnY - LN_Y_MIN) / STEP;
-  const i = Math.min(Math.floor(t), lnR.length - 2);
-  const s = t - i;
-  const s2 = s * s;
-  const s3 = s2 * s;
-  return (
-    (2 * s3 - 3 * s2 + 1) * lnR[i] +
-    (s3 - 2 * s2 + s) * STEP * slope[i] +
-    (-2 * s3 + 3 * s2) * lnR[i + 1] +
-    (s3 - s2) * STEP * slope[i + 1]
-  );
+  energyTable ??= logTable(fermiDiracEnergyIntegral, fermiDiracEnergySlope);
+  return hermite(energyTable, lnY);
 }
 
 /**
@@ -188,7 +169,8 @@ export function energyRatioSlope(lnY: number): number {
     const yFp = FD_NUMBER - iy2 * (11.25 * ZETA5 - (iy2 * (3 * 708.75 * ZETA7)) / 8);
     return yFp / F;
   }
-  const { lnR, slope } = nodes();
+  energyTable ??= logTable(fermiDiracEnergyIntegral, fermiDiracEnergySlope);
+  const { value: lnR, slope } = energyTable;
   const t = (lnY - LN_Y_MIN) / STEP;
   const i = Math.min(Math.floor(t), lnR.length - 2);
   const s = t - i;
@@ -228,24 +210,6 @@ function fermiDiracMatterSlope(y: number): number {
   ).value;
 }
 
-let matterTable: { lnM: Float64Array; slope: Float64Array } | null = null;
-
-/** ln(M/F(0)) and d ln M / d ln y on the pressure's grid, computed once (cubic Hermite nodes). */
-function matterNodes() {
-  if (matterTable) return matterTable;
-  const n = Math.round((LN_Y_MAX - LN_Y_MIN) / P_STEP) + 1;
-  const lnM = new Float64Array(n);
-  const slope = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const y = Math.exp(LN_Y_MIN + i * P_STEP);
-    const m = fermiDiracMatterIntegral(y);
-    lnM[i] = Math.log(m / FD_ENERGY_MASSLESS);
-    slope[i] = (y * fermiDiracMatterSlope(y)) / m;
-  }
-  matterTable = { lnM, slope };
-  return matterTable;
-}
-
 /** int_0^inf x / (e^x + 1) dx = pi^2 / 12: M(y) = (pi^2/12) y^2 (1 + O(y^2 ln y)) for small y. */
 const MATTER_SMALL = Math.PI ** 2 / 12;
 
@@ -262,16 +226,6 @@ export function lnMatterRatio(lnY: number): number {
     const iy2 = Math.exp(-2 * lnY);
     return lnY + Math.log(FD_NUMBER - iy2 * (11.25 * ZETA5 - iy2 * 265.78125 * ZETA7)) - Math.log(FD_ENERGY_MASSLESS);
   }
-  const { lnM, slope } = matterTable ?? matterNodes();
-  const t = (lnY - LN_Y_MIN) / P_STEP;
-  const i = Math.min(Math.floor(t), lnM.length - 2);
-  const s = t - i;
-  const s2 = s * s;
-  const s3 = s2 * s;
-  return (
-    (2 * s3 - 3 * s2 + 1) * lnM[i] +
-    (s3 - 2 * s2 + s) * P_STEP * slope[i] +
-    (-2 * s3 + 3 * s2) * lnM[i + 1] +
-    (s3 - s2) * P_STEP * slope[i + 1]
-  );
+  matterTable ??= logTable(fermiDiracMatterIntegral, fermiDiracMatterSlope);
+  return hermite(matterTable, lnY);
 }
