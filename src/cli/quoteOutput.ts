@@ -1,7 +1,8 @@
 import type { StoredModelTables } from "../contract/tablesDocument.js";
-import { numberParts, partsText, unitText } from "../presentation/formatNumber.js";
+import { unitText } from "../presentation/formatNumber.js";
+import { numberCell } from "../presentation/presentTables.js";
 import { displayUnit, presentationNotes, unitNotes, type PresentedDocument } from "../presentation/presentDocument.js";
-import type { PresentationCell, PresentationTable } from "../presentation/presentTables.js";
+import type { PresentationTable } from "../presentation/presentTables.js";
 import type { ExportProvenance } from "../exports/exportProvenance.js";
 import type { QuoteQuantity } from "./quoteQuantities.js";
 import { targetName, type Placement } from "./quoteRequest.js";
@@ -79,11 +80,6 @@ export function quoteSections(
   return sections;
 }
 
-const cell = (x: number | null): PresentationCell => {
-  const parts = numberParts(x);
-  return { kind: "number", value: x, parts, text: partsText(parts) };
-};
-
 /** The quote as one export table (rows "z = 2: D_A", columns the models), for the CSV, JSON, Markdown and LaTeX writers. */
 export function quoteTable(
   sections: QuoteSection[],
@@ -101,7 +97,7 @@ export function quoteTable(
       s.rows.map((r) => ({
         label: `${s.heading}: ${r.quantity.label}`,
         unit: r.unit,
-        cells: r.values.map(cell),
+        cells: r.values.map(numberCell),
       })),
     ),
     notes: presentationNotes(presented),
@@ -120,9 +116,7 @@ export function quoteTerminal(
 ): string {
   const nameWidth = Math.max(8, ...sections.flatMap((s) => s.rows.map((r) => r.quantity.short.length)));
   const unitWidth = Math.max(4, ...sections.flatMap((s) => s.rows.map((r) => unitText(r.unit).length)));
-  const texts = sections.map((s) =>
-    s.rows.map((r) => r.values.map((v) => (v === null ? "—" : partsText(numberParts(v))))),
-  );
+  const texts = sections.map((s) => s.rows.map((r) => r.values.map((v) => numberCell(v).text)));
   const widths = columns.map((c, ci) =>
     Math.max(c.id.length, ...texts.flatMap((s) => s.map((r) => [...r[ci]].length)), 8),
   );

@@ -2,7 +2,7 @@ import { catalogFor, hasEarlyUniverse } from "../contract/quantityCatalog.js";
 import { P16, P84 } from "./formatInterval.js";
 import { unitText } from "./formatNumber.js";
 import { plottedRedshiftRange, spansMoreThanADecade } from "./chartStyle.js";
-import type { PresentedDocument } from "./presentDocument.js";
+import { displayUnit, type PresentedDocument } from "./presentDocument.js";
 
 /** One plotted quantity: its label and unit as shown, and whether its y axis starts logarithmic. */
 export interface ChartSeries {
@@ -14,7 +14,7 @@ export interface ChartSeries {
 }
 
 /**
- * What every chart of a page plots, for the page's canvas (src/site/chartPayload.ts, rounded for size) and for the
+ * What every chart of a page plots, for the page's canvas (pageChartData, rounded for size) and for the
  * exported images (src/exports/chartImage.ts) alike: the grid redshifts, each series in display units, each model's
  * curve and, for a model with a spread, its 68 % band (16th and 84th percentiles of its draws, in the same units as
  * its curve). Built once from the presented document; neither renderer converts or picks a value.
@@ -80,4 +80,44 @@ export function chartData(p: PresentedDocument): ChartData {
       };
     }),
   };
+}
+
+/** Plot points are drawn, not read: six significant figures are more than a screen resolves. */
+const round = (x: number | null) => (x === null ? null : Number(x.toPrecision(6)));
+const rounded = (xs: (number | null)[]) => xs.map(round);
+
+/** The data the page's charts draw (the presentation's chart data, the same the exported images draw), rounded for size. */
+export function pageChartData(p: PresentedDocument) {
+  const data = chartData(p);
+  return {
+    ...data,
+    z: rounded(data.z),
+    models: data.models.map((m) => ({
+      ...m,
+      values: Object.fromEntries(Object.entries(m.values).map(([k, v]) => [k, rounded(v)])),
+      ...(m.bands
+        ? {
+            bands: Object.fromEntries(
+              Object.entries(m.bands).map(([k, b]) => [k, { lo: rounded(b.lo), hi: rounded(b.hi) }]),
+            ),
+          }
+        : {}),
+    })),
+  };
+}
+
+/** The small overview chart of each scenario on the index: D_L against z, at most about 60 grid points. */
+export function overviewChartData(presented: PresentedDocument[]) {
+  return presented.map((p) => {
+    const doc = p.doc;
+    const n = doc.models[0].grid.z.length;
+    const step = Math.max(1, Math.ceil(n / 60));
+    const pick = (xs: (number | null)[]) => xs.filter((_, i) => i % step === 0 || i === n - 1).map(round);
+    return {
+      id: doc.scenario.id,
+      z: pick(doc.models[0].grid.z),
+      yTitle: `D_L [${unitText(displayUnit(p, "Mpc"))}]`,
+      models: doc.models.map((m) => ({ label: m.label, values: pick(m.grid.luminosity_distance_Mpc) })),
+    };
+  });
 }

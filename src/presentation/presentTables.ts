@@ -73,10 +73,12 @@ const ASKED_FOR = new Set([
 /** Whether a relative difference is above 1 % (such cells stand out on pages). */
 const notable = (x: number | null | undefined) => typeof x === "number" && Math.abs(x) > 0.01;
 
-const num = (x: number | null | undefined): PresentationCell => {
+/** A number as every output prints it: its raw value and its six significant figures (an em dash for none). */
+export const numberCell = (x: number | null | undefined): PresentationCell => {
   const parts = numberParts(x);
   return { kind: "number", value: x ?? null, parts, text: partsText(parts) };
 };
+const num = numberCell;
 const inStyle = (x: number | null | undefined, scientific: boolean): PresentationCell => {
   const parts = numberPartsIn(x, scientific);
   return { kind: "number", value: x ?? null, parts, text: partsText(parts) };

@@ -3,7 +3,8 @@ import { fateText } from "../contract/quantityCatalog.js";
 import { formatExact, formatNumber, formatPercent, unitText } from "../presentation/formatNumber.js";
 import { renderMarkdown } from "./renderMarkdown.js";
 import { renderMath } from "./renderMath.js";
-import { chartPayload, indexChartPayload, jsonForScriptElement } from "./chartPayload.js";
+import { jsonForScriptElement } from "./chartPayload.js";
+import { overviewChartData, pageChartData } from "../presentation/chartData.js";
 
 /** The Nunjucks filters of the site: formatting only. Filters marked html return markup (marked safe by the config). */
 export const TEXT_FILTERS = {
@@ -56,9 +57,9 @@ export const HTML_FILTERS = {
   /** A model's LaTeX label (checked to hold mathematics only) as inline MathML; empty when it has none. */
   labelMath: (tex: string | null | undefined) => (tex ? renderMath(tex, false) : ""),
   /** The chart data of a tables document as JSON for an inline data element. */
-  chartJson: (doc: Parameters<typeof chartPayload>[0]) => jsonForScriptElement(chartPayload(doc)),
+  chartJson: (doc: Parameters<typeof pageChartData>[0]) => jsonForScriptElement(pageChartData(doc)),
   /** Any value as JSON for an inline data element (<script type="application/json">). */
   scriptJson: (value: unknown) => jsonForScriptElement(value),
   /** The index's overview charts of all scenarios as JSON for an inline data element. */
-  indexChartJson: (docs: Parameters<typeof indexChartPayload>[0]) => jsonForScriptElement(indexChartPayload(docs)),
+  indexChartJson: (docs: Parameters<typeof overviewChartData>[0]) => jsonForScriptElement(overviewChartData(docs)),
 };
