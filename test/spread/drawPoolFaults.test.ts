@@ -39,10 +39,10 @@ describe.skipIf(oneCore)("a helper thread that dies or stops answering", { timeo
     });
   }
 
-  it("without a fault the same scenario computes", () => {
+  it("without a fault the same scenario computes (with the default wait, so a busy machine cannot fail it)", () => {
     const dir = tempDir();
     writeFileSync(join(dir, "s.yaml"), SCENARIO);
-    const r = runCli(["compute", "s.yaml", "--out", "out"], dir, { COSMOLEDGER_HELPER_STALL_MS: "2000" });
+    const r = runCli(["compute", "s.yaml", "--out", "out"], dir);
     expect(r.code, r.stderr).toBe(0);
     expect(existsSync(join(dir, "out/fault/tables.json"))).toBe(true);
   });

@@ -5,8 +5,7 @@
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
-import { loadScenario } from "../../src/scenario/loadScenario.js";
-import { buildTablesDocument } from "../../src/tables/buildTablesDocument.js";
+import { computeScenario } from "../helpers/computeScenario.js";
 import { spreadDescription, spreadDraws } from "../../src/tables/spreadBands.js";
 import { computeClaimedBands } from "../../src/tables/bandStatistics.js";
 import {
@@ -17,20 +16,11 @@ import {
   normalQuantile,
 } from "../../src/statistics/index.js";
 import type { ResolvedSpread } from "../../src/scenario/resolvedScenario.js";
-import type { TablesDocument } from "../../src/contract/tablesDocument.js";
 import { ROOT } from "../helpers/buildDemoSite.js";
 import { hubbleTimeGyr } from "../helpers/referenceScales.js";
 import { relErr } from "../helpers/modelOf.js";
 
-function compute(yaml: string, files: Record<string, string> = {}): TablesDocument {
-  const s = loadScenario(yaml, "book.yaml", {
-    readAttachment: (path) => {
-      if (!(path in files)) throw new Error("no such file");
-      return files[path];
-    },
-  });
-  return buildTablesDocument(s);
-}
+const compute = computeScenario;
 
 /** The keys of a record whose values are numbers or null (the quantities a spread bands). */
 const numericKeys = (record: object, except: string[] = []) =>

@@ -6,6 +6,7 @@ import normalCdf from "@stdlib/stats-base-dists-normal-cdf";
 import normalQuantileReference from "@stdlib/stats-base-dists-normal-quantile";
 import { loadScenario } from "../../src/scenario/loadScenario.js";
 import { buildTablesDocument } from "../../src/tables/buildTablesDocument.js";
+import { computeScenario } from "../helpers/computeScenario.js";
 import {
   SortingPermutation,
   Xoshiro128StarStar,
@@ -19,15 +20,7 @@ import { hubbleDistanceMpc, hubbleTimeGyr } from "../helpers/referenceScales.js"
 
 const P = [2.5, 16, 50, 84, 97.5];
 
-function compute(yaml: string, files: Record<string, string> = {}): TablesDocument {
-  const s = loadScenario(yaml, "spread.yaml", {
-    readAttachment: (path) => {
-      if (!(path in files)) throw new Error("no such file");
-      return files[path];
-    },
-  });
-  return buildTablesDocument(s);
-}
+const compute = computeScenario;
 const spreadOf = (doc: TablesDocument, i = 0) => doc.models[i].spread as ModelSpread;
 
 describe("statistics building blocks", () => {
