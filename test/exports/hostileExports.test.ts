@@ -24,6 +24,8 @@ function hostileScenario(): string {
   return [
     `title: ${q(`x${evil("title")}`)}`,
     "id: hostile-exports",
+    // h units put every model's label into a note line of every export (a comment in CSV and LaTeX).
+    "h_units: true",
     `author: ${q(evil("author"))}`,
     `tags: [${q(`=t\n\\x\r@\u03bb`)}]`,
     `description: ${q(evil("description"))}`,
@@ -66,8 +68,11 @@ describe("exports of a hostile scenario", { timeout: 600_000 }, () => {
     expect(csvs.length).toBeGreaterThan(10);
     for (const f of csvs) {
       const text = readFileSync(f, "utf8");
-      // Exactly the three provenance comment lines: a newline in the title made no line of its own.
-      expect(text.split("\r\n").filter((l) => l.startsWith("#")).length, f).toBe(3);
+      // Exactly the three provenance comment lines and one line per note: a newline in the title or a label made no
+      // line of its own.
+      const notes = JSON.parse(readFileSync(f.replace(/\.csv$/, ".json"), "utf8")).table.notes.length;
+      expect(notes, f).toBeGreaterThan(0);
+      expect(text.split("\r\n").filter((l) => l.startsWith("#")).length, f).toBe(3 + notes);
       const rows = parseCsv(text, { comment: "#", relax_column_count: true }) as string[][];
       for (const row of rows)
         for (const cell of row) {
