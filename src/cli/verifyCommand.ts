@@ -95,7 +95,9 @@ export function verifyCommand(options: {
         // The files the version kept (samples files) stand in for the scenario's folder.
         // Looked up by one spelling of the path, whichever spelling the record or the source uses.
         const kept = new Map(attachmentsOf(v).map((a) => [canonicalAttachmentPath(a.path), a.text]));
+        // Recomputed as frozen: its samples files are read by the rules of the release that froze them.
         scenario = loadScenario(v.source.text, v.source.path, {
+          frozen: true,
           readAttachment: (path) => {
             const text = kept.get(canonicalAttachmentPath(path));
             if (text === undefined) throw new Error("the version does not keep this file");

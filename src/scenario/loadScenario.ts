@@ -3,14 +3,10 @@ import { schemaProblems, validateScenarioSchema } from "./validateScenarioSchema
 import { resolveScenario } from "./resolveScenario.js";
 import { ScenarioInputError, formatPath, type ScenarioIssue } from "./scenarioIssue.js";
 import type { ResolvedScenario } from "./resolvedScenario.js";
-import type { AttachmentReader } from "./resolveSpread.js";
+import type { ResolveOptions } from "./resolveSpread.js";
 
 /** Scenario text -> resolved scenario: parse, schema check, resolve. No I/O; `file` is used in messages and for the default id. */
-export function loadScenario(
-  text: string,
-  file: string,
-  options: { readAttachment?: AttachmentReader } = {},
-): ResolvedScenario {
+export function loadScenario(text: string, file: string, options: ResolveOptions = {}): ResolvedScenario {
   const parsed = parseScenarioYaml(text, file);
   const { issues, paths } = schemaProblems(parsed);
   if (issues.length > 0) throw new ScenarioInputError([...issues, ...checksOfTheRest(parsed, text, paths, options)]);
@@ -26,7 +22,7 @@ function checksOfTheRest(
   parsed: ParsedYaml,
   text: string,
   refused: (string | number)[][],
-  options: { readAttachment?: AttachmentReader },
+  options: ResolveOptions,
 ): ScenarioIssue[] {
   const value = structuredClone(parsed.value) as Record<string, unknown>;
   const dropped = new Set<string>();

@@ -11,12 +11,7 @@ import {
   type PublishedSet,
   type PublishedSigma,
 } from "./publishedSets.js";
-import {
-  MAX_SCENARIO_SAMPLES_BYTES,
-  resolveSpread,
-  type AttachmentReader,
-  type SpreadSource,
-} from "./resolveSpread.js";
+import { MAX_SCENARIO_SAMPLES_BYTES, resolveSpread, type ResolveOptions, type SpreadSource } from "./resolveSpread.js";
 import type {
   CurvatureKey,
   Provenance,
@@ -147,7 +142,7 @@ export function idFromFileName(path: string): string | null {
 export function resolveScenario(
   parsed: ParsedYaml,
   sourceText: string,
-  options: { readAttachment?: AttachmentReader } = {},
+  options: ResolveOptions = {},
 ): ResolvedScenario {
   const raw = parsed.value as Raw;
   const issues: ScenarioIssue[] = [];
@@ -185,7 +180,7 @@ export function resolveScenario(
     if (m.Omega_b !== undefined && m.omega_b !== undefined)
       fail(["models", i, "omega_b"], "baryons are over-determined: give Omega_b or omega_b, not both", "key");
     if (typeof m.label_tex === "string") {
-      const problem = labelTexProblem(m.label_tex);
+      const problem = labelTexProblem(m.label_tex, options.frozen === true);
       if (problem) fail(["models", i, "label_tex"], `label_tex ${problem}`);
     }
     if (m.radiation === "none" && (m.T_cmb !== undefined || m.N_eff !== undefined)) {
@@ -399,6 +394,7 @@ export function resolveScenario(
         here,
         scenarioFile: parsed.file,
         readAttachment: options.readAttachment,
+        frozen: options.frozen,
       });
       if (!resolved) return;
       spread = resolved.spread;
@@ -407,7 +403,7 @@ export function resolveScenario(
         // Each file once (by its one spelling), and all of them within what a version record may hold.
         samplesBytes.set(resolved.samples.path, Buffer.byteLength(resolved.samples.text, "utf8"));
         const total = [...samplesBytes.values()].reduce((a, b) => a + b, 0);
-        if (total > MAX_SCENARIO_SAMPLES_BYTES) {
+        if (total > MAX_SCENARIO_SAMPLES_BYTES && !options.frozen) {
           fail(
             [...here, "spread", "samples"],
             `the samples files of this scenario add up to ${total} bytes; at most ${MAX_SCENARIO_SAMPLES_BYTES} (16 MiB) are allowed together, because a frozen version keeps every one (thin the chains first)`,

@@ -16,6 +16,17 @@ import type { ScenarioIssue } from "./scenarioIssue.js";
 /** Reads a file named relative to the scenario's folder (the command line's, or an archived version's copy). */
 export type AttachmentReader = (relativePath: string) => string;
 
+/**
+ * How a scenario is resolved: where its samples files come from, and whether it is the source of a frozen version
+ * (`frozen`: `verify` recomputing it). A frozen source's samples files are read by the rules of the release that
+ * froze them (a "#" anywhere starts a comment, any number JavaScript reads, no least row count, no cap on their
+ * sum), so that an archived version keeps verifying; new files meet today's stricter rules.
+ */
+export interface ResolveOptions {
+  readAttachment?: AttachmentReader;
+  frozen?: boolean;
+}
+
 /** At most this many bytes in a samples file: a frozen version keeps the file's text. */
 export const MAX_SAMPLES_FILE_BYTES = 4 * 1024 * 1024;
 /** At most this many bytes of samples files in one scenario (each file counted once): a version record keeps them. */
@@ -50,6 +61,7 @@ interface Context {
   here: Path;
   scenarioFile: string;
   readAttachment?: AttachmentReader;
+  frozen?: boolean;
 }
 
 const isRecord = (x: unknown): x is Record<string, unknown> => typeof x === "object" && x !== null && !Array.isArray(x);
@@ -315,7 +327,7 @@ function samplesSpread(
   }
   const dir = ctx.scenarioFile.includes("/") ? ctx.scenarioFile.slice(0, ctx.scenarioFile.lastIndexOf("/") + 1) : "";
   // The table (and so a version record's attachment) goes by the one spelling of the path.
-  const parsed = parseSamplesFile(text, path);
+  const parsed = parseSamplesFile(text, path, ctx.frozen === true);
   if (parsed.table === null) {
     for (const p of parsed.problems)
       ctx.failInFile({ file: dir + value, line: p.line, column: p.column, message: p.message });

@@ -38,6 +38,7 @@ export interface SamplesProblem {
 export function parseSamplesFile(
   text: string,
   path: string,
+  frozen = false,
 ): { table: SamplesTable; problems: [] } | { table: null; problems: SamplesProblem[] } {
   const problems: SamplesProblem[] = [];
   let records: { record: string[]; info: { lines: number } }[];
@@ -46,7 +47,7 @@ export function parseSamplesFile(
       bom: true,
       // A comment is a line that starts with "#"; a "#" inside a cell is text (and so not a number).
       comment: "#",
-      comment_no_infix: true,
+      comment_no_infix: !frozen,
       skip_empty_lines: true,
       trim: true,
       relax_column_count: true,
@@ -114,7 +115,13 @@ export function parseSamplesFile(
       continue;
     }
     record.forEach((cell, i) => {
-      const x = DECIMAL_NUMBER.test(cell) ? Number(cell) : Number.NaN;
+      const x = frozen
+        ? cell === ""
+          ? Number.NaN
+          : Number(cell)
+        : DECIMAL_NUMBER.test(cell)
+          ? Number(cell)
+          : Number.NaN;
       const name = header[i];
       if (!Number.isFinite(x)) {
         problems.push({
@@ -138,7 +145,7 @@ export function parseSamplesFile(
       } else values[keyIndex[i]][r] = x;
     });
   }
-  if (problems.length === 0 && rows < MIN_SAMPLE_ROWS)
+  if (problems.length === 0 && rows < MIN_SAMPLE_ROWS && !frozen)
     problems.push({
       line: headerLine,
       column: 1,
