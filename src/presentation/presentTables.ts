@@ -463,8 +463,10 @@ export function geometryCards(p: PresentedDocument): GeometryCard[] {
       unit: displayUnit(p, unit),
       text: x === undefined ? "not computed" : num(x).text,
     });
+    // Omega_k as the models table shows it: exactly as given when set, to six figures when derived.
+    const kHow = (m.provenance as Record<string, string>).Omega_k ?? "derived";
     const entries = [
-      entry("Omega_k", "", m.parameters.Omega_k),
+      { label: "Omega_k", unit: "", text: (kHow === "derived" ? num : exact)(m.parameters.Omega_k).text },
       entry("Curvature radius", "Mpc", s.curvature_radius_Mpc),
     ];
     if (s.geometry === "closed")
