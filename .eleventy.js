@@ -56,6 +56,9 @@ export default function (eleventyConfig) {
   });
 
   eleventyConfig.addPassthroughCopy({ "content/assets": "assets" });
+  // Served at the site's root, browsers ask for /favicon.ico whenever a page names no icon (an exported HTML
+  // fragment opened on its own): the file is there (bin/drawFavicon.mjs draws it from favicon.svg).
+  eleventyConfig.addPassthroughCopy({ "content/assets/favicon.ico": "favicon.ico" });
   eleventyConfig.addPassthroughCopy({ "node_modules/chart.js/dist/chart.umd.min.js": "assets/chart.umd.min.js" });
   // The page's charts: src/site/browser/charts.ts, bundled by `npm run build:ts` with the configuration builder that
   // the exported images use.

@@ -88,13 +88,13 @@ export function formatNumber(x: number | null | undefined, digits = DISPLAY_DIGI
   return partsText(numberParts(x, digits));
 }
 
-/** A relative difference as a signed percentage with three significant figures ("+1.23 %"); null prints as an em dash. */
+/** A relative difference as a signed percentage with three significant figures ("+1.23 %", a no-break space before the sign, so that a page never breaks a line inside it); null prints as an em dash. */
 export function formatPercent(relative: number | null | undefined): string {
   if (relative === null || relative === undefined || !Number.isFinite(relative)) return "\u2014";
-  if (relative === 0) return "0 %";
+  if (relative === 0) return "0\u00a0%";
   const p = relative * 100;
   const s = Math.abs(p) >= 1e-3 ? Math.abs(p).toPrecision(3) : Math.abs(p).toExponential(2);
-  return `${p < 0 ? "\u2212" : "+"}${s} %`;
+  return `${p < 0 ? "\u2212" : "+"}${s}\u00a0%`;
 }
 
 /** An input value exactly as given (shortest round-trip form), with a true minus sign and a superscript exponent. */

@@ -214,7 +214,12 @@ export function presentationTables(p: PresentedDocument): PresentationTable[] {
   const tables: Omit<PresentationTable, "notes">[] = [keyNumbers(p, columns)];
   const baseId = doc.scenario.baseline;
   /** A summary cell of model m with its difference from the baseline (absolute and relative). */
-  const summaryDiff = (cell: PresentationCell, m: StoredModelTables, key: string): PresentationCell => {
+  const summaryDiff = (
+    cell: PresentationCell,
+    m: StoredModelTables,
+    key: string,
+    percentOnly = false,
+  ): PresentationCell => {
     const d =
       m.id === baseId
         ? undefined
@@ -226,7 +231,9 @@ export function presentationTables(p: PresentedDocument): PresentationTable[] {
     if (!d || d.absolute === null) return cell;
     // A difference below the engine's accuracy is rounding noise of an exact conversion (c/H0 in h^-1 Mpc): zero.
     if (d.relative !== null && Math.abs(d.relative) < 1e-10)
-      return { ...cell, difference: { text: "0 (0 %)", notable: false } };
+      return { ...cell, difference: { text: `0 (${formatPercent(0)})`, notable: false } };
+    if (percentOnly && d.relative !== null)
+      return { ...cell, difference: { text: formatPercent(d.relative), notable: notable(d.relative) } };
     const sign = d.absolute > 0 ? "+" : "";
     return {
       ...cell,
@@ -355,20 +362,28 @@ export function presentationTables(p: PresentedDocument): PresentationTable[] {
           unit: q.unit,
           cells: [
             text(q.method),
+            // The early-universe rulers differ by their percentage (the absolute differences are in
+            // differences.csv): a narrow column, so that six models fit a wide screen and a landscape page.
             ...models.map((m) =>
               summaryDiff(
                 banded(num(quantityValue(m.summary, q.key) as number | null), m, "summary", null, q.key),
                 m,
                 q.key,
+                true,
               ),
             ),
           ],
         })),
-        {
-          label: "Note",
-          unit: "",
-          cells: [text(""), ...models.map((m) => text(m.summary.early_universe_note as string | null))],
-        },
+        // A note row only when a model has a note.
+        ...(models.some((m) => m.summary.early_universe_note)
+          ? [
+              {
+                label: "Note",
+                unit: "",
+                cells: [text(""), ...models.map((m) => text(m.summary.early_universe_note as string | null))],
+              },
+            ]
+          : []),
       ],
     });
   }

@@ -133,6 +133,39 @@ describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chrom
     for (const w of r.cellWidths) expect(w).toBeGreaterThan(0.95 * r.gridWidth); // one per row: the page's width
     expect(r.tablesScroll).toBe(0); // and then nothing needs to scroll at 1400 px
     await page.screenshot({ path: join(SHOTS, "six-models-1400.png"), fullPage: false });
+    // Nor does any other table of the page (numbers to quote, models, at a glance, early universe, targets,
+    // surveys); only the charts' data tables (one column per grid redshift) may scroll in their own box.
+    const scrolling = await page.evaluate(() =>
+      [...document.querySelectorAll("main .table-wrap")]
+        .filter((w) => !w.closest("#charts") && w.scrollWidth > w.clientWidth)
+        .map((w) => `${w.querySelector("table")?.className}: ${w.scrollWidth} px in ${w.clientWidth} px`),
+    );
+    expect(scrolling).toEqual([]);
+    await page.close();
+  });
+
+  // Printable widths at 96 px per inch with the print style's 14 mm margins: A4 portrait 182 mm, landscape 269 mm.
+  const A4_PORTRAIT_PX = Math.floor((182 / 25.4) * 96);
+  const A4_LANDSCAPE_PX = Math.floor((269 / 25.4) * 96);
+
+  it("in print every table fits the printed width: six models on landscape A4, a diff page on portrait A4", async () => {
+    const page = await context.newPage();
+    await page.emulateMedia({ media: "print" });
+    const tooWide = () =>
+      page.evaluate(() => {
+        const width = document.querySelector("main")!.getBoundingClientRect().width;
+        return [...document.querySelectorAll("main table")]
+          .filter((t) => t.getClientRects().length > 0 && t.getBoundingClientRect().width > width + 0.5)
+          .map((t) => `${t.className}: ${Math.round(t.getBoundingClientRect().width)} px in ${Math.round(width)} px`);
+      });
+    await page.setViewportSize({ width: A4_LANDSCAPE_PX, height: 800 });
+    await page.goto(`file://${join(site, "six-models/index.html")}`);
+    expect(await page.locator("table.early").count()).toBe(1);
+    expect(await tooWide()).toEqual([]);
+    await page.setViewportSize({ width: A4_PORTRAIT_PX, height: 1000 });
+    await page.goto(`file://${join(site, "six-models/diff/v1-v2/index.html")}`);
+    expect(await page.locator("table.output-changes").count()).toBe(1);
+    expect(await tooWide()).toEqual([]);
     await page.close();
   });
 

@@ -130,6 +130,24 @@ describe.skipIf(!chromiumPath)("pages in headless Chromium", () => {
     }
   }, 120_000);
 
+  it("each exported HTML fragment opened on its own over http asks for nothing missing (not even /favicon.ico) and fits 390 px", async () => {
+    const exports = join(site, "lantern-deep-field", "exports");
+    const fragments = readdirSync(exports).filter((f) => f.endsWith(".html") && f !== "charts.html");
+    expect(fragments.length).toBeGreaterThan(5);
+    for (const f of fragments) {
+      const { page, problems } = await open(`${base}/lantern-deep-field/exports/${f}`);
+      // A browser's request for the site's icon may come after the load event: wait until the network is idle.
+      await page.waitForLoadState("networkidle", { timeout: 60_000 });
+      expect(problems, f).toEqual([]);
+      await page.setViewportSize({ width: 390, height: 844 });
+      const { scrollWidth, clientWidth } = await page.evaluate(() => ({
+        scrollWidth: document.documentElement.scrollWidth,
+        clientWidth: document.documentElement.clientWidth,
+      }));
+      expect(scrollWidth, f).toBeLessThanOrEqual(clientWidth);
+      await page.close();
+    }
+  }, 180_000);
   it("version, history and diff pages of the demo archive load cleanly; a version page draws its frozen charts", async () => {
     for (const path of [
       "/lantern-deep-field/v1/index.html",

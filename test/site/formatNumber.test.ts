@@ -38,9 +38,9 @@ describe("number formatting on the pages", () => {
     expect(formatNumber(Infinity)).toBe("\u2014");
   });
   it("percentages carry a sign and three significant figures", () => {
-    expect(formatPercent(0.012345)).toBe("+1.23 %");
-    expect(formatPercent(-0.0911)).toBe("\u22129.11 %");
-    expect(formatPercent(0)).toBe("0 %");
+    expect(formatPercent(0.012345)).toBe("+1.23\u00a0%");
+    expect(formatPercent(-0.0911)).toBe("\u22129.11\u00a0%");
+    expect(formatPercent(0)).toBe("0\u00a0%");
   });
   it("inputs print exactly as given", () => {
     expect(formatExact(68.2)).toBe("68.2");
