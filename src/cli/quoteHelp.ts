@@ -21,7 +21,8 @@ Examples:
 
 Quantities (short names; the tables document's keys work too):
   z D_C D_M D_A D_L mu scale scale_comoving lookback age light_travel V_C dV H E Omega_m_z hubble_radius horizon
-  size mag flux (need --size-kpc, --abs-mag or --luminosity-erg-s), and today's age0 q0 R_curv horizon0.
+  D f (linear growth), sigma8_z fsigma8 (need sigma8), size mag flux (need --size-kpc, --abs-mag or
+  --luminosity-erg-s), and today's age0 q0 R_curv horizon0 f0 S8.
   Default: ${DEFAULT_QUOTE_QUANTITIES.join(",")}.
 
 Options:

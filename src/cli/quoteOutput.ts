@@ -143,7 +143,7 @@ export function quoteTerminal(
   // Warnings go to standard error (as check prints them); how the numbers are shown stays with them.
   for (const n of unitNotes(presented)) lines.push(`note: ${n}`);
   lines.push(
-    `${provenance.tool} ${provenance.tool_version}, engine ${provenance.engine_version}; inputs SHA-256 ${provenance.inputs_sha256.slice(0, 12)}; background FLRW only (see the README's cautions)`,
+    `${provenance.tool} ${provenance.tool_version}, engine ${provenance.engine_version}; inputs SHA-256 ${provenance.inputs_sha256.slice(0, 12)}; FLRW background and linear growth only (see the README's cautions)`,
   );
   return `${lines.join("\n")}\n`;
 }

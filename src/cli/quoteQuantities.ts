@@ -39,6 +39,10 @@ const SOURCES: Source[] = [
   { short: "Omega_m_z", row: "Omega_m_z" },
   { short: "hubble_radius", row: "hubble_radius_Mpc" },
   { short: "horizon", row: "particle_horizon_Mpc" },
+  { short: "D", row: "growth_factor", target: "growth_factor" },
+  { short: "f", row: "growth_rate", target: "growth_rate" },
+  { short: "sigma8_z", row: "sigma8_z", target: "sigma8_z" },
+  { short: "fsigma8", row: "f_sigma8", target: "f_sigma8" },
   { short: "size", target: "angular_size_arcsec" },
   { short: "mag", target: "apparent_magnitude" },
   { short: "flux", target: "bolometric_flux_erg_s_cm2" },
@@ -46,6 +50,8 @@ const SOURCES: Source[] = [
   { short: "q0", summary: "deceleration_q0" },
   { short: "R_curv", summary: "curvature_radius_Mpc" },
   { short: "horizon0", summary: "particle_horizon_Mpc" },
+  { short: "f0", summary: "growth_rate_0" },
+  { short: "S8", summary: "S8" },
 ];
 
 /** A quantity's catalogue entry: the per-redshift tables first, then today's quantities, then the targets'. */

@@ -7,11 +7,11 @@ export const TABLES_FORMAT_PREFIX = "cosmoledger.tables/";
 export const VERSION_FORMAT_PREFIX = "cosmoledger.version/";
 
 /** Tables formats this release reads; the last one is the one it writes. */
-export const TABLES_FORMAT_NUMBERS = [1, 2, 3, 4, 5] as const;
+export const TABLES_FORMAT_NUMBERS = [1, 2, 3, 4, 5, 6] as const;
 /** Version-record formats this release reads; the last one is the one it writes. */
 export const VERSION_FORMAT_NUMBERS = [1, 2, 3] as const;
 
-export const TABLES_FORMAT = `${TABLES_FORMAT_PREFIX}5` as const;
+export const TABLES_FORMAT = `${TABLES_FORMAT_PREFIX}6` as const;
 export const VERSION_FORMAT = `${VERSION_FORMAT_PREFIX}3` as const;
 
 export type FormatFamily = "tables" | "version";

@@ -57,6 +57,17 @@ export const REDSHIFT_GROUPS: { title: string; id: string; quantities: QuantityI
     ],
   },
   {
+    // Linear theory, scale-independent growth of cold dark matter plus baryons (format 6 on; src/engine/linearGrowth.ts).
+    title: "Linear growth",
+    id: "growth",
+    quantities: [
+      { key: "growth_factor", label: "Growth factor D(z)/D(0)", unit: "" },
+      { key: "growth_rate", label: "Growth rate f(z)", unit: "" },
+      { key: "sigma8_z", label: "sigma8(z)", unit: "" },
+      { key: "f_sigma8", label: "f sigma8(z)", unit: "" },
+    ],
+  },
+  {
     title: "BAO distance ratios",
     id: "bao",
     quantities: [
@@ -82,6 +93,8 @@ export const SUMMARY_QUANTITIES: QuantityInfo<SummaryKey>[] = [
   { key: "crunch_time_Gyr", label: "Big crunch at", unit: "Gyr" },
   { key: "time_to_rip_Gyr", label: "Big rip in (from today)", unit: "Gyr" },
   { key: "rip_time_Gyr", label: "Big rip at cosmic time", unit: "Gyr" },
+  { key: "growth_rate_0", label: "Growth rate today f(0)", unit: "" },
+  { key: "S8", label: "S8 = sigma8 (Omega_m/0.3)^0.5", unit: "" },
 ];
 
 /**
@@ -122,6 +135,7 @@ export const PARAMETERS: QuantityInfo<keyof ModelParameters>[] = [
   { key: "Omega_cb", label: "Omega_cb (cold matter + baryons)", unit: "" },
   { key: "Omega_nu_massive", label: "Omega_nu (massive, today)", unit: "" },
   { key: "T_nu", label: "T_nu", unit: "K" },
+  { key: "sigma8", label: "sigma8 (today)", unit: "" },
 ];
 
 /** Early-universe quantities; the source of each fitting formula is named on the page. */
@@ -189,6 +203,8 @@ export const TARGET_QUANTITIES: QuantityInfo<TargetKey>[] = [
   { key: "size_arcsec", label: "Given angular size", unit: "arcsec" },
   { key: "proper_size_kpc", label: "Proper size of that angle", unit: "kpc" },
   { key: "comoving_size_kpc", label: "Comoving size of that angle", unit: "kpc" },
+  { key: "growth_rate", label: "Growth rate f", unit: "" },
+  { key: "f_sigma8", label: "f sigma8", unit: "" },
 ];
 
 /** Series offered by the charts: key in the grid, label and unit. */
@@ -205,6 +221,9 @@ export const CHART_SERIES: QuantityInfo<RowKey>[] = [
   { key: "D_M_over_r_drag", label: "D_M / r_drag", unit: "" },
   { key: "D_H_over_r_drag", label: "D_H / r_drag", unit: "" },
   { key: "D_V_over_r_drag", label: "D_V / r_drag", unit: "" },
+  { key: "f_sigma8", label: "f sigma8", unit: "" },
+  { key: "growth_rate", label: "Growth rate f", unit: "" },
+  { key: "growth_factor", label: "Growth factor D", unit: "" },
 ];
 
 /** The charts of a scenario page; each offers the listed grid series (the first is shown by default). "bao" needs a baryon density. */
@@ -224,6 +243,8 @@ export const CHARTS: { id: string; title: string; keys: RowKey[] }[] = [
   { id: "scale", title: "Proper scale", keys: ["kpc_per_arcsec_proper"] },
   { id: "volume", title: "Comoving volume inside z", keys: ["comoving_volume_Gpc3"] },
   { id: "bao", title: "BAO distance ratios", keys: ["D_V_over_r_drag", "D_M_over_r_drag", "D_H_over_r_drag"] },
+  // f sigma8 only where a model gives sigma8 (catalogFor leaves it out otherwise).
+  { id: "growth", title: "Linear growth", keys: ["f_sigma8", "growth_rate", "growth_factor"] },
 ];
 
 /** The catalogue as one document can show it: only the quantities its format holds, and those it lacks. */
@@ -250,6 +271,8 @@ export const hasEarlyUniverse = (doc: { models: readonly { parameters: { Omega_b
  * exports of an older format leave out a quantity added later instead of showing a blank that looks like a null.
  */
 const RIP_KEYS: string[] = ["time_to_rip_Gyr", "rip_time_Gyr"];
+/** Quantities that need sigma8 today: shown only where a model gives it. */
+export const SIGMA8_KEYS: string[] = ["sigma8", "sigma8_z", "f_sigma8", "S8", "f_sigma8_z_eff"];
 const ANGLE_KEYS: string[] = ["size_arcsec", "proper_size_kpc", "comoving_size_kpc"];
 
 export function catalogFor(
@@ -273,13 +296,16 @@ export function catalogFor(
       if (!notComputed.includes(q.label)) notComputed.push(q.label);
       return false;
     });
+  // Without sigma8 in any model, the quantities that need it are left out (not a column of dashes).
+  const withSigma8 = doc.models.some((x) => (x.parameters as Record<string, unknown>).sigma8 != null);
+  const applies = (q: QuantityInfo) => withSigma8 || !SIGMA8_KEYS.includes(q.key);
   const row = (k: string) => rowKeys.has(k);
   // One light-travel distance: in Mpc where the document has it, else (older formats) in Gly.
   const lightTravel = row("light_travel_distance_Mpc") ? "light_travel_distance_Gly" : "light_travel_distance_Mpc";
   const groups = REDSHIFT_GROUPS.map((g) => ({
     ...g,
     quantities: keep(
-      g.quantities.filter((q) => q.key !== lightTravel),
+      g.quantities.filter((q) => q.key !== lightTravel && applies(q)),
       row,
     ),
   })).filter((g) => g.quantities.length > 0);
@@ -295,12 +321,14 @@ export function catalogFor(
       keep(
         SUMMARY_QUANTITIES.filter(
           (q) =>
-            !RIP_KEYS.includes(q.key) || doc.models.some((x) => (x.summary as Record<string, unknown>)[q.key] != null),
+            applies(q) &&
+            (!RIP_KEYS.includes(q.key) ||
+              doc.models.some((x) => (x.summary as Record<string, unknown>)[q.key] != null)),
         ),
         (k) => k in m.summary,
       ),
     ),
-    PARAMETERS: keep(PARAMETERS, (k) => k in m.parameters),
+    PARAMETERS: keep(PARAMETERS.filter(applies), (k) => k in m.parameters),
     EARLY_QUANTITIES: u(keep(EARLY_QUANTITIES, (k) => k in m.summary)),
     // The size-from-angle rows appear only where a target was given an angular size.
     TARGET_QUANTITIES: m.targets.length
@@ -308,15 +336,19 @@ export function catalogFor(
           keep(
             TARGET_QUANTITIES.filter(
               (q) =>
-                !ANGLE_KEYS.includes(q.key) ||
-                doc.models.some((x) => x.targets.some((t) => (t as Record<string, unknown>).size_arcsec != null)),
+                applies(q) &&
+                (!ANGLE_KEYS.includes(q.key) ||
+                  doc.models.some((x) => x.targets.some((t) => (t as Record<string, unknown>).size_arcsec != null))),
             ),
             (k) => k in m.targets[0],
           ),
         )
       : u(TARGET_QUANTITIES),
-    CHART_SERIES: u(keep(CHART_SERIES, row)),
-    CHARTS: CHARTS.map((c) => ({ ...c, keys: c.keys.filter(row) })).filter((c) => c.keys.length > 0),
+    CHART_SERIES: u(keep(CHART_SERIES.filter(applies), row)),
+    CHARTS: CHARTS.map((c) => ({
+      ...c,
+      keys: c.keys.filter((k) => row(k) && applies({ key: k, label: "", unit: "" })),
+    })).filter((c) => c.keys.length > 0),
     notComputed,
     hasEarlyUniverse: hasEarlyUniverse(doc),
   };

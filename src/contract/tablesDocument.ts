@@ -8,6 +8,7 @@ import type { TablesDocumentFormat2 } from "./generated/tablesFormat2.js";
 import type { TablesDocumentFormat3 } from "./generated/tablesFormat3.js";
 import type { TablesDocumentFormat4 } from "./generated/tablesFormat4.js";
 import type { TablesDocumentFormat5 } from "./generated/tablesFormat5.js";
+import type { TablesDocumentFormat6 } from "./generated/tablesFormat6.js";
 
 export type {
   TablesDocumentFormat1,
@@ -15,17 +16,19 @@ export type {
   TablesDocumentFormat3,
   TablesDocumentFormat4,
   TablesDocumentFormat5,
+  TablesDocumentFormat6,
 };
 
 /** The format this release writes. */
-export type TablesDocument = TablesDocumentFormat5;
+export type TablesDocument = TablesDocumentFormat6;
 /** Every format this release reads (pages, exports, diffs and verify take any of them). */
 export type StoredTablesDocument =
   | TablesDocumentFormat1
   | TablesDocumentFormat2
   | TablesDocumentFormat3
   | TablesDocumentFormat4
-  | TablesDocumentFormat5;
+  | TablesDocumentFormat5
+  | TablesDocumentFormat6;
 
 export type Num = number | null;
 export type ModelTables = TablesDocument["models"][number];

@@ -4,6 +4,7 @@ import tables2 from "../schema/tables/2.schema.json" with { type: "json" };
 import tables3 from "../schema/tables/3.schema.json" with { type: "json" };
 import tables4 from "../schema/tables/4.schema.json" with { type: "json" };
 import tables5 from "../schema/tables/5.schema.json" with { type: "json" };
+import tables6 from "../schema/tables/6.schema.json" with { type: "json" };
 import version1 from "../schema/version/1.schema.json" with { type: "json" };
 import version2 from "../schema/version/2.schema.json" with { type: "json" };
 import version3 from "../schema/version/3.schema.json" with { type: "json" };
@@ -11,7 +12,7 @@ import { formatNumber, unreadableFormat, type FormatFamily } from "./formats.js"
 
 /** The JSON Schema of every released format, by number. Never edit a released schema: add the next one. */
 const SCHEMAS: Record<FormatFamily, Record<number, object>> = {
-  tables: { 1: tables1, 2: tables2, 3: tables3, 4: tables4, 5: tables5 },
+  tables: { 1: tables1, 2: tables2, 3: tables3, 4: tables4, 5: tables5, 6: tables6 },
   version: { 1: version1, 2: version2, 3: version3 },
 };
 

@@ -99,6 +99,14 @@ export const DECLARED_CHANGES: readonly DeclaredChange[] = [
     applies: () => true,
     why: "The caution on published sets now says that a value transcribed from a paper's table but not yet checked against it is marked so beside the citation, in words for the reader of a paper; no number changes.",
   },
+  {
+    id: "linear-growth-cautions",
+    engine_version: "1.4.0",
+    quantities: ["cautions"],
+    models: "every scenario",
+    applies: () => true,
+    why: "The engine now also computes the linear growth of cold dark matter plus baryons (tables format 6: D(z), f(z), sigma8(z), f sigma8, S8; src/engine/linearGrowth.ts), and the cautions say what that growth leaves out (linear theory, scale-independent, dark energy smooth; with massive neutrinos, the growth of cold dark matter plus baryons below the free-streaming scale). No earlier number changes; the growth quantities are added, not drift.",
+  },
 ];
 
 /** Compares two dotted version numbers ("1.10.0" > "1.9.2"); negative, zero or positive. */

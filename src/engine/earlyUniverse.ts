@@ -127,7 +127,7 @@ export function earlyUniverse(
   const rStar = soundHorizonMpc(model, zStar);
   const DMstar = options.transverseComovingDistanceMpc
     ? options.transverseComovingDistanceMpc(zStar)
-    : redshiftTable(model, [zStar]).transverse_comoving_distance_Mpc[0];
+    : redshiftTable(model, [zStar], { growth: false }).transverse_comoving_distance_Mpc[0];
   return {
     values: {
       z_recombination: zStar,

@@ -29,3 +29,4 @@ export * from "./baoRatios.js";
 export * from "./declaredChanges.js";
 export * from "./targetObservables.js";
 export * from "./slowestPastExpansion.js";
+export * from "./linearGrowth.js";

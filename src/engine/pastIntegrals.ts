@@ -68,6 +68,12 @@ export interface PastIntegralOptions {
   narrowPanelsByGauss?: boolean;
   /** The indices of the redshifts in ascending order, when the caller has them already (every draw of a spread). */
   ascending?: ArrayLike<number>;
+  /**
+   * When given (7 slots per redshift), the integrand's first component t = 2 / (s E) at the nodes of each panel
+   * taken by one Gauss rule, panel k (ending at the k-th smallest redshift) in slots 7k..; NaN in slot 7k for a
+   * panel integrated adaptively. The linear growth (linearGrowth.ts) reuses them.
+   */
+  nodeValues?: Float64Array;
 }
 
 /**
@@ -144,14 +150,19 @@ function pastIntegralsWith(
       const rule = sHi - s <= VERY_NARROW_PANEL * s ? GAUSS4 : GAUSS7;
       let t = 0;
       let c = 0;
+      const keep = options.nodeValues;
       for (let j = 0; j < rule.nodes.length; j++) {
         f(mid + half * rule.nodes[j], value);
+        if (keep) keep[7 * k + j] = value[0];
         t += rule.weights[j] * value[0];
         c += rule.weights[j] * value[1];
       }
       value[0] = t * half;
       value[1] = c * half;
-    } else vec.integrate(f, s, sHi, PANEL_REL_TOL, 0, value, error);
+    } else {
+      if (options.nodeValues) options.nodeValues[7 * k] = Number.NaN;
+      vec.integrate(f, s, sHi, PANEL_REL_TOL, 0, value, error);
+    }
     panelT[k] = value[0];
     panelC[k] = value[1];
     sumT.add(value[0]);

@@ -7,6 +7,7 @@ import { asFloat64Array, pastIntegrals, type PastIntegralOptions, type PastInteg
 import { transverseComovingDistance } from "./transverseComovingDistance.js";
 import { comovingVolumeWithin } from "./comovingVolume.js";
 import { massiveNeutrinoParts } from "./massiveNeutrinoDensity.js";
+import { growthRate, linearGrowth, type LinearGrowth } from "./linearGrowth.js";
 
 /** Per-redshift quantities as columns aligned with the input redshifts. NaN marks a value that is undefined. */
 export interface RedshiftColumns {
@@ -31,6 +32,14 @@ export interface RedshiftColumns {
   particle_horizon_Mpc: Float64Array;
   light_travel_distance_Mpc: Float64Array;
   light_travel_distance_Gly: Float64Array;
+  /** Linear growth factor D(z)/D(0) of cold dark matter plus baryons (linearGrowth.ts). */
+  growth_factor: Float64Array;
+  /** Linear growth rate f = dln D/dln a. */
+  growth_rate: Float64Array;
+  /** sigma8(z) = sigma8 D(z): NaN when the model gives no sigma8 today. */
+  sigma8_z: Float64Array;
+  /** f sigma8(z) = f(z) sigma8 D(z): NaN when the model gives no sigma8 today. */
+  f_sigma8: Float64Array;
 }
 
 export const REDSHIFT_COLUMN_KEYS = [
@@ -54,6 +63,10 @@ export const REDSHIFT_COLUMN_KEYS = [
   "particle_horizon_Mpc",
   "light_travel_distance_Mpc",
   "light_travel_distance_Gly",
+  "growth_factor",
+  "growth_rate",
+  "sigma8_z",
+  "f_sigma8",
 ] as const satisfies readonly (keyof RedshiftColumns)[];
 
 /**
@@ -71,6 +84,13 @@ export function redshiftTable(
     past?: PastIntegrals;
     /** Columns to write into (each redshifts.length long), for a caller that reuses them from model to model. */
     into?: RedshiftColumns;
+    /**
+     * The linear growth at these redshifts (the first redshifts.length of them), when computed already; false
+     * when the caller needs no growth (its two columns are then NaN).
+     */
+    growth?: LinearGrowth | false;
+    /** sigma8 today (rms linear matter fluctuation in spheres of 8 h^-1 Mpc), or null when the model gives none. */
+    sigma8?: number | null;
   } = {},
 ): RedshiftColumns {
   redshifts = asFloat64Array(redshifts); // one kind of array for the optimised code (see pastIntegrals)
@@ -80,6 +100,7 @@ export function redshiftTable(
   const R = curvatureRadiusMpc(model);
   const e2 = expansionRateSquared(model);
   const past = options.past ?? pastIntegrals(model, redshifts, options);
+  const growth = options.growth === false ? null : (options.growth ?? linearGrowth(model, redshifts, options));
   const col = () => new Float64Array(n);
   const out: RedshiftColumns = options.into ?? {
     z: col(),
@@ -102,7 +123,12 @@ export function redshiftTable(
     particle_horizon_Mpc: col(),
     light_travel_distance_Mpc: col(),
     light_travel_distance_Gly: col(),
+    growth_factor: col(),
+    growth_rate: col(),
+    sigma8_z: col(),
+    f_sigma8: col(),
   };
+  const sigma8 = options.sigma8 ?? Number.NaN;
   const kpcPerMpcArcsec = 1000 * ARCSEC_RAD;
   const hasNu = model.massiveNeutrinos.length > 0;
   for (let i = 0; i < n; i++) {
@@ -139,6 +165,13 @@ export function redshiftTable(
     // c times the lookback time, in Mpc like every other distance (and in Gly, as older formats give it).
     out.light_travel_distance_Mpc[i] = lookback * GLY_MPC;
     out.light_travel_distance_Gly[i] = lookback;
+    const D = growth ? growth.D[i] : Number.NaN;
+    const f = growth ? growthRate(growth.P[i], D, z, E) : Number.NaN;
+    out.growth_factor[i] = D;
+    out.growth_rate[i] = f;
+    // Linear theory: sigma8 scales with D (scale-independent growth).
+    out.sigma8_z[i] = sigma8 * D;
+    out.f_sigma8[i] = f * sigma8 * D;
   }
   return out;
 }

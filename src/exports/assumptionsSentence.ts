@@ -189,6 +189,8 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
         tex: String.raw`Each massive neutrino species carries $N_\mathrm{eff}/3$ of the relativistic neutrino density and follows the exact Fermi--Dirac integrals at an effective temperature chosen so that $\Omega_\nu h^2 = \sum m_\nu / 93.14\,\mathrm{eV}$ when non-relativistic (Mangano et al.\ 2005); the remaining share of $N_\mathrm{eff}$ is massless radiation, and $\Omega_m$ includes the massive neutrinos today.`,
       }
     : null;
+  // Format 6 on: the linear growth is part of the tables.
+  const growth = doc.models.some((m) => "growth_factor" in m.grid);
   const version =
     p.version === null
       ? `an unfrozen draft (inputs SHA-256 ${p.inputs_sha256})`
@@ -201,7 +203,9 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
     early
       ? "Recombination and drag redshifts come from the fitting formulas of Hu & Sugiyama (1996) and Eisenstein & Hu (1998), and r_drag from the calibrated formula of Aubourg et al. (2015)."
       : "",
-    "The model is the homogeneous background only: perturbations, lensing and peculiar velocities are not included.",
+    growth
+      ? `${GROWTH_SENTENCE} Nonlinear structure, lensing and peculiar velocities are not included.`
+      : "The model is the homogeneous background only: perturbations, lensing and peculiar velocities are not included.",
     `Computed with cosmoledger ${p.tool_version} (engine ${doc.engine.version}); scenario ${doc.scenario.id}, ${version}.`,
   ]
     .filter(Boolean)
@@ -214,7 +218,9 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
     early
       ? "Recombination and drag redshifts come from the fitting formulas of Hu \\& Sugiyama (1996) and Eisenstein \\& Hu (1998), and $r_\\mathrm{drag}$ from the calibrated formula of Aubourg et al.\\ (2015)."
       : "",
-    "The model is the homogeneous background only: perturbations, lensing and peculiar velocities are not included.",
+    growth
+      ? `${GROWTH_SENTENCE_TEX} Nonlinear structure, lensing and peculiar velocities are not included.`
+      : "The model is the homogeneous background only: perturbations, lensing and peculiar velocities are not included.",
     // A SHA-256 is one 64-character word: TeX may break it every 16 digits, so it stays inside the margin.
     `Computed with cosmoledger ${escapeLatex(p.tool_version)} (engine ${escapeLatex(doc.engine.version)}); scenario \\texttt{${escapeLatex(doc.scenario.id)}}, ${escapeLatex(version).replace(/([0-9a-f]{16})(?=[0-9a-f])/g, "$1\\allowbreak{}")}.`,
   ]
@@ -228,3 +234,9 @@ export function assumptionsSentence(doc: StoredTablesDocument, p: ExportProvenan
     tex: `% source: scenario ${doc.scenario.id}, ${versionLabel(p)}; page ${p.page}\n${notes.map((n) => `% note on sources: ${oneLine(n)}\n`).join("")}${tex}\n`,
   };
 }
+
+/** How the linear growth was computed, for a methods section (src/engine/linearGrowth.ts). */
+const GROWTH_SENTENCE =
+  "The linear growth factor D(z) and growth rate f = dln D/dln a of cold dark matter plus baryons were obtained by integrating the linear growth equation for pressureless matter in this background from a = 1e-6, starting on the growing mode of a radiation-matter universe (Meszaros 1974); the growth is scale-independent, with dark energy and any massive neutrinos smooth (Omega_cb in the source term), and sigma8(z) = sigma8 D(z).";
+const GROWTH_SENTENCE_TEX =
+  "The linear growth factor $D(z)$ and growth rate $f = \\mathrm{d}\\ln D/\\mathrm{d}\\ln a$ of cold dark matter plus baryons were obtained by integrating the linear growth equation for pressureless matter in this background from $a = 10^{-6}$, starting on the growing mode of a radiation-matter universe (M\\'esz\\'aros 1974); the growth is scale-independent, with dark energy and any massive neutrinos smooth ($\\Omega_\\mathrm{cb}$ in the source term), and $\\sigma_8(z) = \\sigma_8 D(z)$.";

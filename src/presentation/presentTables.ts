@@ -118,6 +118,10 @@ const SHEET_ROWS = [
   ["lookback_time_Gyr", "Lookback time", "Gyr"],
   ["age_Gyr", "Age at z", "Gyr"],
 ] as const;
+const GROWTH_SHEET_ROWS = [
+  ["sigma8_z", "sigma8(z)", ""],
+  ["f_sigma8", "f sigma8", ""],
+] as const;
 
 /**
  * "Numbers to quote": the key-number sheet at the top of a scenario page, models side by side. Every target as it
@@ -176,8 +180,12 @@ function keyNumbers(p: PresentedDocument, columns: PresentationTable["columns"])
         key("bolometric_flux_erg_s_cm2"),
       );
   });
+  // sigma8(z) and f sigma8 where a model gives sigma8 today (format 6 on), as survey forecasts quote them.
+  const sigma8Rows = models.some((m) => (m.parameters as Record<string, unknown>).sigma8 != null)
+    ? GROWTH_SHEET_ROWS
+    : [];
   models[0].redshifts.forEach((r, ri) => {
-    for (const [key, label, unit] of SHEET_ROWS)
+    for (const [key, label, unit] of [...SHEET_ROWS, ...sigma8Rows])
       row(
         `z = ${exact(r.z).text}: ${label}`,
         unit,
@@ -186,6 +194,8 @@ function keyNumbers(p: PresentedDocument, columns: PresentationTable["columns"])
       );
   });
   row("Age today", "Gyr", (m) => m.summary.age_Gyr, ["summary", null, "age_Gyr"]);
+  if (sigma8Rows.length > 0)
+    row("S8", "", (m) => quantityValue(m.summary, "S8") as number | null | undefined, ["summary", null, "S8"]);
   return {
     id: "key-numbers",
     title: "Numbers to quote",
@@ -411,7 +421,8 @@ export function presentationTables(p: PresentedDocument): PresentationTable[] {
   });
   if (models[0].surveys.length > 0) {
     // Models as columns, as in every other table (so that eight models fit a printed page): for each shell, its
-    // volume, volume per square degree and expected count, the shell named with its area and redshift range.
+    // volume, volume per square degree, expected count and effective redshift with the growth there, the shell
+    // named with its area and redshift range.
     const perDeg2 = "volume_per_deg2_Mpc3" in models[0].surveys[0];
     const rows: PresentationRow[] = [];
     models[0].surveys.forEach((s, si) => {
@@ -434,6 +445,23 @@ export function presentationTables(p: PresentedDocument): PresentationTable[] {
           banded(num(value(m, "expected_count")), m, "surveys", si, "expected_count"),
         ),
       );
+      // Format 6 on: the volume-weighted effective redshift, and the growth there.
+      if ("z_eff" in models[0].surveys[0]) {
+        rows.push(
+          perModel(`${name}: effective redshift (volume-weighted)`, "", (m) =>
+            banded(num(value(m, "z_eff")), m, "surveys", si, "z_eff"),
+          ),
+          perModel(`${name}: growth rate f at z_eff`, "", (m) =>
+            banded(num(value(m, "growth_rate_z_eff")), m, "surveys", si, "growth_rate_z_eff"),
+          ),
+        );
+        if (models.some((m) => value(m, "f_sigma8_z_eff") != null))
+          rows.push(
+            perModel(`${name}: f sigma8 at z_eff`, "", (m) =>
+              banded(num(value(m, "f_sigma8_z_eff")), m, "surveys", si, "f_sigma8_z_eff"),
+            ),
+          );
+      }
     });
     tables.push({
       id: "surveys",

@@ -5,6 +5,7 @@
  * `checked` says how each value was transcribed: "paper text" where the paper's own text (its abstract) gives it,
  * "recalled from memory" where the value is transcribed from the paper's table and not yet checked against it
  * (pages, quote and the notes beside the methods paragraph say "not yet checked against the published table").
+ * sigma8 = 0.811 +/- 0.006 is the abstract's rounding of the TT,TE,EE+lowE+lensing value.
  * Of the citations, Planck 2018 VI's Table 2 (its last column holds the 13.787 Gyr age), A&A 641 A6 and the SH0ES
  * ApJL 934 L7 are checked against the papers; the table numbers of WMAP9 (Table 4) and DESI 2024 VI (Table 3), and
  * the volume and page of their journals, are not yet. Never edit a released set's numbers: a correction is a new id
@@ -34,7 +35,7 @@ export interface PublishedSet {
     /** Table and column (or data combination) the values come from. */
     table: string;
   };
-  /** Model parameters in our keys (H0, Omega_m, omega_b, w0, wa); only these are set by extending the set. */
+  /** Model parameters in our keys (H0, Omega_m, omega_b, w0, wa, sigma8); only these are set by extending the set. */
   parameters: Record<string, PublishedValue>;
   /** What the analysis assumed, in our keys, applied with the parameters (flat, m_nu_eV, N_eff, T_cmb). */
   assumptions: { flat?: true; m_nu_eV?: number[]; N_eff?: number; T_cmb?: number };
@@ -120,6 +121,50 @@ export const PUBLISHED_SETS: readonly PublishedSet[] = [
       theta_star_100: { value: 1.04119, sigma: 0.00029, checked: memo },
       r_drag_Mpc: { value: 147.21, sigma: 0.23, checked: memo },
     },
+  },
+  // sigma8 of the two Planck columns, as companion sets (released sets never change; a model extends the full set,
+  // then this one). Added with the linear growth (tables format 6).
+  {
+    id: "planck2018-ttteee-lowe-lensing-sigma8",
+    title: "Planck 2018, TT,TE,EE+lowE+lensing: sigma8",
+    citation: {
+      authors: PLANCK_AUTHORS,
+      year: 2020,
+      journal: PLANCK_JOURNAL,
+      arxiv: "1807.06209",
+      table: "Table 2, column TT,TE,EE+lowE+lensing (68 % intervals)",
+    },
+    parameters: {
+      sigma8: { value: 0.8111, sigma: 0.006, checked: memo, text_shows: "sigma8 = 0.811 +/- 0.006 (abstract)" },
+    },
+    assumptions: {},
+    assumptions_text:
+      "sigma8 of the base-LambdaCDM fit (linear theory, z = 0): extend published/planck2018-ttteee-lowe-lensing first, then this one",
+    reported: {
+      S8: { value: 0.832, sigma: 0.013, checked: memo },
+    },
+    partial: true,
+  },
+  {
+    id: "planck2018-ttteee-lowe-lensing-bao-sigma8",
+    title: "Planck 2018, TT,TE,EE+lowE+lensing+BAO: sigma8",
+    citation: {
+      authors: PLANCK_AUTHORS,
+      year: 2020,
+      journal: PLANCK_JOURNAL,
+      arxiv: "1807.06209",
+      table: "Table 2, column TT,TE,EE+lowE+lensing+BAO (68 % intervals)",
+    },
+    parameters: {
+      sigma8: { value: 0.8102, sigma: 0.006, checked: memo },
+    },
+    assumptions: {},
+    assumptions_text:
+      "sigma8 of the base-LambdaCDM fit (linear theory, z = 0): extend published/planck2018-ttteee-lowe-lensing-bao first, then this one",
+    reported: {
+      S8: { value: 0.825, sigma: 0.011, checked: memo },
+    },
+    partial: true,
   },
   {
     id: "wmap9-lcdm",

@@ -71,6 +71,7 @@ const MODEL_VALUE_KEYS = [
   "T_cmb",
   "N_eff",
   "m_nu_eV",
+  "sigma8",
   ...BARYON_KEYS,
   ...CURVATURE_KEYS,
 ] as const;
@@ -307,6 +308,7 @@ export function resolveScenario(
       baryon_key: v.Omega_b !== undefined ? "Omega_b" : v.omega_b !== undefined ? "omega_b" : null,
       baryon_value: (v.Omega_b ?? v.omega_b ?? null) as number | null,
       m_nu_eV: [...((v.m_nu_eV as number[] | undefined) ?? [])],
+      ...(v.sigma8 !== undefined ? { sigma8: v.sigma8 as number } : {}),
     };
     const provenance: ResolvedModel["provenance"] = {
       H0: prov("H0"),
@@ -321,6 +323,7 @@ export function resolveScenario(
       baryon_key: inputsBaryonProvenance(p),
       baryon_value: inputsBaryonProvenance(p),
       m_nu_eV: prov("m_nu_eV"),
+      ...(v.sigma8 !== undefined ? { sigma8: prov("sigma8") } : {}),
     };
     if (radiation === "none" && inputs.m_nu_eV.some((x) => x > 0)) {
       fail(

@@ -77,6 +77,8 @@ export function spreadCenter(inputs: ResolvedModelInputs, key: SpreadKey): numbe
     case "N_eff":
     case "T_cmb":
       return inputs[key] ?? "this model has radiation: none, so there is no N_eff or T_cmb to vary";
+    case "sigma8":
+      return inputs.sigma8 ?? "this model gives no sigma8; set sigma8 first";
     case "Omega_b":
     case "omega_b":
       return inputs.baryon_key === key

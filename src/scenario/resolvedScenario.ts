@@ -21,6 +21,11 @@ export interface ResolvedModelInputs {
   baryon_value: number | null;
   /** Massive neutrino masses in eV; empty when all are massless. */
   m_nu_eV: number[];
+  /**
+   * sigma8 today (linear rms matter fluctuation in spheres of 8 h^-1 Mpc), present only when set or inherited: a
+   * model without it has exactly the inputs (and the same inputs hash) it had before the key existed.
+   */
+  sigma8?: number;
 }
 
 /** Parameters a spread may vary: the scalar model keys (m_nu_eV, a list, is held fixed). */
@@ -36,6 +41,7 @@ export const SPREAD_KEYS = [
   "omega_b",
   "N_eff",
   "T_cmb",
+  "sigma8",
 ] as const;
 export type SpreadKey = (typeof SPREAD_KEYS)[number];
 
@@ -97,7 +103,7 @@ export interface ResolvedModel {
   /** The spread of its parameters, present only when it has one. */
   spread?: ResolvedSpread;
   /** Where each input came from: set in this model, inherited through extends, or a default. */
-  provenance: Record<keyof ResolvedModelInputs, Provenance>;
+  provenance: Record<Exclude<keyof ResolvedModelInputs, "sigma8">, Provenance> & { sigma8?: Provenance };
   background: BackgroundModel;
   warnings: string[];
 }

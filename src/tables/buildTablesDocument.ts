@@ -18,6 +18,8 @@ import {
   redshiftAtComovingDistance,
   redshiftTable,
   slowestPastExpansion,
+  linearGrowth,
+  s8Parameter,
   type BaoColumns,
   type RedshiftColumns,
 } from "../engine/index.js";
@@ -79,6 +81,7 @@ const inputWarnings = (s: ResolvedScenario, i: number): string[] =>
 
 function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[], index: number): ModelTables {
   const bg = m.background;
+  const sigma8 = m.inputs.sigma8 ?? null;
   const { summary, warnings } = backgroundSummary(bg);
   const allWarnings = [...m.warnings, ...warnings];
   if (
@@ -120,6 +123,7 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
     m_nu_eV: m.provenance.m_nu_eV,
     Omega_b: m.inputs.baryon_key === "Omega_b" ? m.provenance.baryon_value : "derived",
     omega_b: m.inputs.baryon_key === "omega_b" ? m.provenance.baryon_value : "derived",
+    ...(m.provenance.sigma8 ? { sigma8: m.provenance.sigma8 } : {}),
   };
   if (m.inputs.curvature_key === "flat") provenance.Omega_k = m.provenance.curvature_key;
   return {
@@ -150,13 +154,20 @@ function modelTables(m: ResolvedModel, scenario: ResolvedScenario, grid: number[
       Omega_nu_massive: bg.Omega_nu_massive,
       T_nu: bg.T_nu_K,
       m_nu_eV: m.inputs.m_nu_eV,
+      sigma8: sigma8,
     },
     provenance,
-    summary: { ...summary, ...early.values, early_universe_note: early.note },
-    redshifts: rows(withBao(redshiftTable(bg, scenario.redshifts))),
-    grid: gridColumns(withBao(redshiftTable(bg, grid))),
-    targets: targetRows(bg, scenario.targets),
-    surveys: surveyRows(bg, scenario.surveys),
+    summary: {
+      ...summary,
+      ...early.values,
+      early_universe_note: early.note,
+      growth_rate_0: linearGrowth(bg, []).rateToday,
+      S8: sigma8 === null ? null : s8Parameter(sigma8, bg.Omega_m),
+    },
+    redshifts: rows(withBao(redshiftTable(bg, scenario.redshifts, { sigma8 }))),
+    grid: gridColumns(withBao(redshiftTable(bg, grid, { sigma8 }))),
+    targets: targetRows(bg, scenario.targets, sigma8),
+    surveys: surveyRows(bg, scenario.surveys, sigma8),
   };
 }
 

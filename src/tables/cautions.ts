@@ -19,7 +19,12 @@ export function cautions(
       : []),
   ];
   return [
-    "Background only: a homogeneous, isotropic FLRW expansion. Perturbations, gravitational lensing, peculiar velocities and K-corrections are not included.",
+    "Background and linear growth only: a homogeneous, isotropic FLRW expansion, and the linear theory growth of cold dark matter plus baryons it implies (scale-independent; dark energy does not cluster; baryons fall with the dark matter from the start). Nonlinear structure, gravitational lensing, peculiar velocities and K-corrections are not included.",
+    ...(usesMassiveNeutrinos
+      ? [
+          "Growth with massive neutrinos is that of cold dark matter plus baryons on scales well below the neutrino free-streaming scale (Omega_cb in the source term, the neutrinos smooth); on larger scales, and for the total matter, growth differs, so sigma8(z) and f sigma8 here follow that convention.",
+        ]
+      : []),
     usesMassiveNeutrinos
       ? "Radiation is photons at T_cmb plus N_eff neutrino species; each massive species carries N_eff/3 of the relativistic density at T_nu = (4/11)^(1/3) T_cmb and follows the exact Fermi-Dirac energy integral."
       : "Radiation is photons at T_cmb plus N_eff massless neutrino species.",

@@ -12,7 +12,10 @@ import {
   transverseComovingDistance,
   type BackgroundModel,
   type BaoColumns,
+  type LinearGrowth,
   type PastIntegrals,
+  linearGrowth,
+  s8Parameter,
   type RedshiftColumns,
 } from "../engine/index.js";
 import { backgroundOf, outsideSchemaBounds } from "../scenario/modelBackground.js";
@@ -94,6 +97,7 @@ export function evaluateInto(
   where: DrawContext,
   out: Float64Array,
   at: number,
+  sigma8: number | null = null,
 ): void {
   let p = at;
   // One pass of the past integrals serves everything: the table redshifts, then the grid, then z* when there is one
@@ -101,11 +105,16 @@ export function evaluateInto(
   const pass = passRedshiftsOf(where);
   const n = pass.redshifts.length - 1;
   let past: PastIntegrals | null = null;
+  let growth: LinearGrowth | null = null;
+  // The linear growth reuses the past integrals' values of 1/E at their Gauss nodes (linearGrowth.ts).
+  const nodes = pass.nodeValues;
   const early = earlyUniverse(bg, {
     onwardFromRecombination: true,
     transverseComovingDistanceMpc: (zStar) => {
       pass.redshifts[n] = zStar;
-      past = pastIntegrals(bg, pass.redshifts, { narrowPanelsByGauss: true, ascending: pass.ascendingWith(zStar) });
+      const ascending = pass.ascendingWith(zStar);
+      past = pastIntegrals(bg, pass.redshifts, { narrowPanelsByGauss: true, ascending, nodeValues: nodes });
+      growth = linearGrowth(bg, pass.redshifts, { ascending, nodeValues: nodes });
       return transverseComovingDistance(
         hubbleDistanceMpc(bg.H0_km_s_Mpc) * past.comoving[n],
         bg.geometry,
@@ -113,13 +122,28 @@ export function evaluateInto(
       );
     },
   }).values as unknown as Record<string, unknown>;
-  const integrals: PastIntegrals =
-    past ?? pastIntegrals(bg, pass.redshifts.subarray(0, n), { narrowPanelsByGauss: true, ascending: pass.ascending });
+  let integrals: PastIntegrals;
+  if (past === null) {
+    const zs = pass.redshifts.subarray(0, n);
+    integrals = pastIntegrals(bg, zs, { narrowPanelsByGauss: true, ascending: pass.ascending, nodeValues: nodes });
+    growth = linearGrowth(bg, zs, { ascending: pass.ascending, nodeValues: nodes });
+  } else integrals = past;
+  const grown = growth as LinearGrowth;
   const summary = backgroundSummary(bg, { past: integrals }).summary as unknown as Record<string, unknown>;
-  for (const k of layout.summary) out[p++] = num(k in early ? early[k] : summary[k]);
+  const growthSummary: Record<string, unknown> = {
+    growth_rate_0: grown.rateToday,
+    S8: sigma8 === null ? null : s8Parameter(sigma8, bg.Omega_m),
+  };
+  for (const k of layout.summary)
+    out[p++] = num(k in early ? early[k] : k in growthSummary ? growthSummary[k] : summary[k]);
   const rDrag = early.sound_horizon_drag_Mpc as number | null;
   // Rows 0 .. R-1 of the columns are the table redshifts, R .. R+G-1 the grid.
-  const c = redshiftTable(bg, pass.redshifts.subarray(0, n), { past: integrals, into: pass.columns });
+  const c = redshiftTable(bg, pass.redshifts.subarray(0, n), {
+    past: integrals,
+    into: pass.columns,
+    growth: grown,
+    sigma8,
+  });
   pass.columns = c; // made by the first draw, written over by the next
   const bao = baoRatios(c, rDrag, pass.bao);
   pass.bao = bao;
@@ -140,11 +164,11 @@ export function evaluateInto(
   // Plain loops, and none without targets or shells: calling forEach on row arrays of changing shapes made the
   // optimised code of this function bail out on about one draw in ten.
   if (where.targets.length > 0) {
-    const rows = targetRows(bg, where.targets) as unknown as Record<string, unknown>[];
+    const rows = targetRows(bg, where.targets, sigma8) as unknown as Record<string, unknown>[];
     for (let i = 0; i < rows.length; i++) for (const k of layout.targetKeys[i]) out[p++] = num(rows[i][k]);
   }
   if (where.surveys.length > 0) {
-    const rows = surveyRows(bg, where.surveys) as unknown as Record<string, unknown>[];
+    const rows = surveyRows(bg, where.surveys, sigma8) as unknown as Record<string, unknown>[];
     for (let i = 0; i < rows.length; i++) for (const k of layout.surveyKeys[i]) out[p++] = num(rows[i][k]);
   }
   const points = where.grid.length;
@@ -168,6 +192,8 @@ interface PassRedshifts {
   /** The columns of the draws' tables, written over by each draw on this thread. */
   columns?: RedshiftColumns;
   bao?: BaoColumns;
+  /** The past integrals' values at their Gauss nodes, 7 per redshift of the pass (z* included). */
+  nodeValues: Float64Array;
 }
 
 const passes = new WeakMap<DrawContext, PassRedshifts>();
@@ -184,6 +210,7 @@ function passRedshiftsOf(where: DrawContext): PassRedshifts {
   const withExtra = new Uint32Array(n + 1);
   const pass: PassRedshifts = {
     redshifts,
+    nodeValues: new Float64Array(7 * (n + 1)),
     ascending,
     ascendingWith: (z) => {
       let lo = 0; // the first position whose redshift exceeds z
@@ -249,7 +276,8 @@ export function evaluateClaimedDraws(job: DrawJob, tally?: Int32Array): void {
         continue;
       }
       try {
-        evaluateInto(backgroundOf(inputsWithDraw(job.inputs, job.keys, row)), job.layout, job.where, job.out, i * Q);
+        const drawn = inputsWithDraw(job.inputs, job.keys, row);
+        evaluateInto(backgroundOf(drawn), job.layout, job.where, job.out, i * Q, drawn.sigma8 ?? null);
         job.status[i] = ACCEPTED;
       } catch (e) {
         job.status[i] = rejectionCode(e);

@@ -17,9 +17,14 @@ const num = (x: number): Num => (Number.isFinite(x) ? x : null);
 
 /**
  * Each target under one model: its redshift (given, or solved from lookback time, age or comoving distance),
- * then its angular size, apparent magnitude (no K-correction) and bolometric flux, all from the engine.
+ * then its angular size, apparent magnitude (no K-correction), bolometric flux and linear growth (sigma8(z) and
+ * f sigma8 when the model gives sigma8 today), all from the engine.
  */
-export function targetRows(model: BackgroundModel, targets: readonly ResolvedTarget[]): TargetRow[] {
+export function targetRows(
+  model: BackgroundModel,
+  targets: readonly ResolvedTarget[],
+  sigma8: number | null = null,
+): TargetRow[] {
   return targets.map((t) => {
     const empty: TargetRow = {
       name: t.name,
@@ -38,6 +43,10 @@ export function targetRows(model: BackgroundModel, targets: readonly ResolvedTar
       size_arcsec: t.size_arcsec ?? null,
       proper_size_kpc: null,
       comoving_size_kpc: null,
+      growth_factor: null,
+      growth_rate: null,
+      sigma8_z: null,
+      f_sigma8: null,
       note: null,
     };
     let z: number;
@@ -55,7 +64,7 @@ export function targetRows(model: BackgroundModel, targets: readonly ResolvedTar
       if (e instanceof NoSuchRedshiftError) return { ...empty, note: `not reached in this model: ${e.message}` };
       throw e;
     }
-    const r = redshiftTable(model, [z]);
+    const r = redshiftTable(model, [z], { sigma8 });
     const DA = r.angular_diameter_distance_Mpc[0];
     const DL = r.luminosity_distance_Mpc[0];
     const mu = r.distance_modulus_mag[0];
@@ -76,6 +85,10 @@ export function targetRows(model: BackgroundModel, targets: readonly ResolvedTar
       proper_size_kpc: t.size_arcsec !== undefined ? sizeKpcOfArcsec(t.size_arcsec, kpc) : null,
       comoving_size_kpc:
         t.size_arcsec !== undefined ? sizeKpcOfArcsec(t.size_arcsec, r.kpc_per_arcsec_comoving[0]) : null,
+      growth_factor: r.growth_factor[0],
+      growth_rate: r.growth_rate[0],
+      sigma8_z: num(r.sigma8_z[0]),
+      f_sigma8: num(r.f_sigma8[0]),
       note: t.absolute_magnitude !== null ? "apparent magnitude without K-correction" : null,
     };
   });

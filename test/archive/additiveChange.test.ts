@@ -39,15 +39,10 @@ describe("an additive contract change keeps every archive readable", { timeout: 
     edit(
       project,
       "src/engine/redshiftTable.ts",
-      "  light_travel_distance_Gly: Float64Array;\n}",
-      "  light_travel_distance_Gly: Float64Array;\n  scale_factor: Float64Array;\n}",
+      "  f_sigma8: Float64Array;\n}",
+      "  f_sigma8: Float64Array;\n  scale_factor: Float64Array;\n}",
     );
-    edit(
-      project,
-      "src/engine/redshiftTable.ts",
-      '"light_travel_distance_Gly",\n] as const',
-      '"light_travel_distance_Gly", "scale_factor",\n] as const',
-    );
+    edit(project, "src/engine/redshiftTable.ts", '"f_sigma8",\n] as const', '"f_sigma8", "scale_factor",\n] as const');
     edit(
       project,
       "src/engine/redshiftTable.ts",

@@ -163,7 +163,7 @@ describe("freeze, history, diff and verify", { timeout: 180_000 }, () => {
     expect(diff.querySelector(".engine-change")?.textContent).toMatch(/unchanged/);
     // Hubble distance scales as 1/H0: relative change (c/60 - c/70)/(c/60) = 1/7 (closed form).
     const hd = diff.querySelector('tr[data-quantity="hubble_distance_Mpc"] td')?.textContent ?? "";
-    expect(hd.startsWith(`${(100 / 7).toPrecision(3)} %`)).toBe(true);
+    expect(hd.startsWith(`${(100 / 7).toPrecision(3)}\u00a0%`)).toBe(true);
     expect(existsSync(join(work, "site/shelf-test/diff/v2-draft/index.html"))).toBe(true);
   });
 

@@ -5,7 +5,7 @@ import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { Ajv } from "ajv";
 import { parse as parseCsv } from "csv-parse/sync";
-import tablesSchema from "../../src/schema/tables/5.schema.json" with { type: "json" };
+import tablesSchema from "../../src/schema/tables/6.schema.json" with { type: "json" };
 import { TABLES_FORMAT } from "../../src/contract/formats.js";
 import { compileProject } from "../helpers/buildDemoSite.js";
 import { MPC_CM, FULL_SKY_DEG2, REDSHIFT_COLUMN_KEYS } from "../../src/engine/index.js";

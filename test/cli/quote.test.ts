@@ -131,7 +131,7 @@ describe("quote", { timeout: 180_000 }, () => {
     expect(r.stdout).toMatch(/^\s+m1\s+m2\n/);
     expect(r.stdout).toMatch(/\nz = 2\n/);
     expect(r.stdout).toMatch(/\n {2}D_A +\[Mpc\] +\d{4}\.\d{2} +\d{4}\.\d{2}\n/);
-    expect(r.stdout).toMatch(/background FLRW only/);
+    expect(r.stdout).toMatch(/FLRW background and linear growth only/);
   });
 
   it("bad arguments are named with what would be valid (exit 2), never a stack trace", () => {

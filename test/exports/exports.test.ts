@@ -242,9 +242,10 @@ describe("exports of the demo site", () => {
 
   it("PNGs decode (pngjs) at print size with drawn pixels, and carry provenance and alt text in iTXt chunks", () => {
     const pngs = readdirSync(exportsDir()).filter((f) => f.endsWith(".png"));
-    // 4 distances, H/(1+z), age and lookback, scale, volume, 3 BAO ratios: each as values and as a ratio to baseline.
-    expect(pngs.length).toBe(24);
-    expect(pngs.filter((f) => f.endsWith("-ratio.png"))).toHaveLength(12);
+    // 4 distances, H/(1+z), age and lookback, scale, volume, 3 BAO ratios, and the linear growth (f sigma8, f and D:
+    // the scenario gives sigma8): each as values and as a ratio to baseline.
+    expect(pngs.length).toBe(30);
+    expect(pngs.filter((f) => f.endsWith("-ratio.png"))).toHaveLength(15);
     for (const f of [
       ...pngs.slice(0, 3),
       "chart-scale-kpc_per_arcsec_proper.png",

@@ -1,6 +1,6 @@
 // A draw is the model's own computation at other parameters: a spread whose every sample sits at the model's own
 // parameters must give, for every quantity (summary, table rows, targets of every placement, survey shells, chart
-// grid, and the h-unit bands), percentiles equal to the model's tables. This runs the whole fast road of spreads
+// grid with the linear growth, and the h-unit bands), percentiles equal to the model's tables. This runs the whole fast road of spreads
 // (sampling, the one-pass draw evaluation with its Gauss panels, the vector layout, the percentile bands and their
 // assembly) against the careful road of the model itself, for random models of every kind.
 import { describe, expect, it } from "vitest";
@@ -23,6 +23,7 @@ const model = fc.record({
   neutrinos: fc.constantFrom("", "m_nu_eV: [0.06], ", "m_nu_eV: [0.2, 0.2, 0.2], "),
   baryons: fc.constantFrom("", "omega_b: 0.0224, "),
   radiation: fc.constantFrom("", "radiation: none, "),
+  sigma8: fc.constantFrom("", "sigma8: 0.79, "),
 });
 
 const fmt = (x: number) => String(x);
@@ -59,7 +60,7 @@ ${hUnits ? "h_units: true\n" : ""}redshifts: [0, 0.2, 1, 3.5, 20]
 grid: { z_max: 30, points: 60 }
 draws: { count: 100, seed: 1 }
 models:
-  - { id: m, H0: ${fmt(m.H0)}, Omega_m: ${fmt(m.Omega_m)}, ${curvature}w0: ${fmt(m.w0)}, wa: ${m.wa}, ${m.baryons}${flat ? "" : m.neutrinos}${m.radiation}spread: { samples: chain.csv } }
+  - { id: m, H0: ${fmt(m.H0)}, Omega_m: ${fmt(m.Omega_m)}, ${curvature}w0: ${fmt(m.w0)}, wa: ${m.wa}, ${m.baryons}${m.sigma8}${flat ? "" : m.neutrinos}${m.radiation}spread: { samples: chain.csv } }
 targets:
   - { name: By z, z: 1.3, size_kpc: 20 }
   - { name: By lookback, lookback_Gyr: 7, absolute_magnitude: -21 }

@@ -2,7 +2,7 @@
 // transcription (a wrong digit in H0 or omega_b moves the age or r_drag by more than the paper's 68 % interval) and
 // the engine together. Values marked "recalled from memory" in src/scenario/publishedSets.ts are marked so here too.
 import { describe, expect, it } from "vitest";
-import { backgroundSummary, earlyUniverse } from "../../src/engine/index.js";
+import { backgroundSummary, earlyUniverse, s8Parameter } from "../../src/engine/index.js";
 import { loadScenario } from "../../src/scenario/loadScenario.js";
 import { PUBLISHED_SETS, sigmaParts } from "../../src/scenario/publishedSets.js";
 import type { ResolvedModel } from "../../src/scenario/resolvedScenario.js";
@@ -22,13 +22,19 @@ function derived(m: ResolvedModel) {
     z_star: early.z_recombination,
     theta_star_100: early.theta_star_100,
     r_drag_Mpc: early.sound_horizon_drag_Mpc,
+    // S8 = sigma8 (Omega_m / 0.3)^(1/2) (Hildebrandt et al. 2017), from the transcribed sigma8 and Omega_m.
+    S8: m.inputs.sigma8 === undefined ? null : s8Parameter(m.inputs.sigma8, m.background.Omega_m),
   };
 }
+
+/** A companion set (only sigma8) is extended after the full set of the same column. */
+const parentsOf = (id: string) => (id.endsWith("-sigma8") ? [id.slice(0, -"-sigma8".length), id] : [id]);
 
 describe("published parameter sets reproduce what their papers derive", () => {
   for (const set of PUBLISHED_SETS.filter((s) => Object.keys(s.reported).length > 0)) {
     it(`${set.id}: ${set.citation.table} (${set.citation.journal})`, () => {
-      const [m] = modelOf(`  - id: p\n    extends: published/${set.id}\n`);
+      const parents = parentsOf(set.id).map((x) => `published/${x}`);
+      const [m] = modelOf(`  - id: p\n    extends: [${parents.join(", ")}]\n`);
       const ours = derived(m);
       for (const [key, reported] of Object.entries(set.reported)) {
         const value = ours[key as keyof typeof ours];
@@ -64,6 +70,10 @@ describe("published parameter sets reproduce what their papers derive", () => {
     expect(p.parameters.Omega_m.value.toFixed(3)).toBe("0.315");
     expect(p.parameters.omega_b.value.toFixed(4)).toBe("0.0224");
     expect(p.reported.theta_star_100.value.toFixed(4)).toBe("1.0411");
+    // And sigma8 = 0.811 +/- 0.006 ("matter fluctuation amplitude"), the same analysis.
+    const s8 = PUBLISHED_SETS.find((s) => s.id === "planck2018-ttteee-lowe-lensing-sigma8")!;
+    expect(s8.parameters.sigma8.value.toFixed(3)).toBe("0.811");
+    expect((s8.parameters.sigma8.sigma as number).toFixed(3)).toBe("0.006");
   });
 
   it("SH0ES 2022 gives H0 = 73.04 +/- 1.04 (paper text: arXiv:2112.04510 abstract) and only H0", () => {

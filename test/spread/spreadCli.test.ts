@@ -80,9 +80,9 @@ describe("bad spreads are located input errors", () => {
 
   it("a key that is not a parameter, and a parameter the model cannot vary", () => {
     refused(
-      `${HEAD}  - id: m\n    H0: 70\n    Omega_m: 0.3\n    spread: { normal: { sigma8: 0.01 } }\n`,
+      `${HEAD}  - id: m\n    H0: 70\n    Omega_m: 0.3\n    spread: { normal: { n_s: 0.01 } }\n`,
       {},
-      /models\[0\]\.spread\.normal\.sigma8: sigma8 is not a parameter a spread can vary; valid: H0, Omega_m/,
+      /models\[0\]\.spread\.normal\.n_s: n_s is not a parameter a spread can vary; valid: H0, Omega_m/,
     );
     refused(
       `${HEAD}  - id: m\n    H0: 70\n    Omega_m: 0.3\n    spread: { normal: { omega_b: 0.001 } }\n`,
