@@ -98,6 +98,19 @@ models:
     expect(Object.values(s.rejected_because).reduce((a, b) => a + b, 0)).toBe(s.rejected);
   });
 
+  it("draws that are no valid model are rejected by name", () => {
+    // Three 1 eV neutrinos make Omega_nu about 0.066 at h = 0.7 (sum m / 93.14 eV / h^2): draws of Omega_m below
+    // that leave no room for cold matter, which is no valid model.
+    const invalid = compute(`title: t
+redshifts: [1]
+draws: { count: 200, seed: 5 }
+models:
+  - { id: m, H0: 70, Omega_m: 0.09, m_nu_eV: [1, 1, 1], spread: { normal: { Omega_m: 0.02 } } }
+`).models[0].spread!;
+    expect(invalid.rejected_because["not a valid model"]).toBeGreaterThan(10);
+    expect(Object.keys(invalid.rejected_because)).toEqual(["not a valid model"]);
+  });
+
   it("two varied parameters: every draw evaluated, and correlated draws have their correlation", () => {
     const spread = {
       form: "normal",
