@@ -298,7 +298,7 @@ export function catalogFor(
     });
   // Without sigma8 in any model, the quantities that need it are left out (not a column of dashes).
   const withSigma8 = doc.models.some((x) => (x.parameters as Record<string, unknown>).sigma8 != null);
-  const applies = (q: QuantityInfo) => withSigma8 || !SIGMA8_KEYS.includes(q.key);
+  const applies = (q: { key: string }) => withSigma8 || !SIGMA8_KEYS.includes(q.key);
   const row = (k: string) => rowKeys.has(k);
   // One light-travel distance: in Mpc where the document has it, else (older formats) in Gly.
   const lightTravel = row("light_travel_distance_Mpc") ? "light_travel_distance_Gly" : "light_travel_distance_Mpc";
@@ -347,7 +347,7 @@ export function catalogFor(
     CHART_SERIES: u(keep(CHART_SERIES.filter(applies), row)),
     CHARTS: CHARTS.map((c) => ({
       ...c,
-      keys: c.keys.filter((k) => row(k) && applies({ key: k, label: "", unit: "" })),
+      keys: c.keys.filter((k) => row(k) && applies({ key: k })),
     })).filter((c) => c.keys.length > 0),
     notComputed,
     hasEarlyUniverse: hasEarlyUniverse(doc),

@@ -1,7 +1,7 @@
 import type { BackgroundModel } from "./backgroundModel.js";
 import { expansionRateSquared } from "./expansionRateSquared.js";
 import { GAUSS4, NARROW_PANEL, VERY_NARROW_PANEL } from "./pastIntegrals.js";
-import { GAUSS7 } from "./gaussKronrod.js";
+import { GAUSS7, QuadratureError } from "./gaussKronrod.js";
 
 /**
  * Linear growth of cold dark matter plus baryons in a smooth FLRW background: dark energy and massive neutrinos do
@@ -139,7 +139,10 @@ function collocationStep(rule: Collocation, s0: number, h: number, cb: number, w
         AV[j * m + k] = A[j * m + k] * cv[k];
       }
     for (let round = 0; ; round++) {
-      if (round === MAX_STAGE_ROUNDS) throw new Error("growth collocation: stage values did not settle");
+      // A model the growth cannot follow to the engine's accuracy (as a quadrature that does not converge): refused
+      // like one, never a crash.
+      if (round === MAX_STAGE_ROUNDS)
+        throw new QuadratureError("the linear growth did not converge on a panel (stage values did not settle)");
       let moved = false;
       for (let j = 0; j < m; j++) {
         let d = D0;
@@ -166,6 +169,8 @@ function collocationStep(rule: Collocation, s0: number, h: number, cb: number, w
   }
   w.D = D0 + dD;
   w.P = P0 + dP;
+  if (!Number.isFinite(w.D) || !Number.isFinite(w.P))
+    throw new QuadratureError("the linear growth did not converge on a panel (a stage value is not finite)");
 }
 
 const AU = new Float64Array(16);

@@ -209,6 +209,7 @@ const SYNONYMS = new Map<string, string[]>(
     ob0: ["Omega_b"],
     ombh2: ["omega_b"],
     h0: ["H0"],
+    sigma_8: ["sigma8"],
     parent: ["extends"],
     name: ["label"],
   }),

@@ -144,7 +144,8 @@ describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chrom
     await page.close();
   });
 
-  // Printable widths at 96 px per inch with the print style's 14 mm margins: A4 portrait 182 mm, landscape 269 mm.
+  // Printable widths at 96 CSS px per inch (CSS Values 4) with the print style's 14 mm margins on A4 (210 x 297 mm,
+  // ISO 216): portrait 182 mm, landscape 269 mm.
   const A4_PORTRAIT_PX = Math.floor((182 / 25.4) * 96);
   const A4_LANDSCAPE_PX = Math.floor((269 / 25.4) * 96);
 

@@ -12,6 +12,7 @@ import {
   makeBackgroundModel,
   meszarosGrowthRate,
   pastIntegrals,
+  QuadratureError,
   redshiftTable,
   s8Parameter,
   shellEffectiveRedshift,
@@ -153,6 +154,10 @@ describe("linear growth", () => {
     expect(Number.isFinite(nodeValues[k])).toBe(true);
     nodeValues[k] *= 1.001;
     expect(linearGrowth(m, zs, { nodeValues }).D).not.toEqual(alone.D);
+    // A panel the growth cannot follow (here: an infinite 1/E) is refused as the engine refuses a quadrature that
+    // does not converge, so compute names the model instead of printing NaN or a stack trace.
+    nodeValues[k + 1] = Number.POSITIVE_INFINITY;
+    expect(() => linearGrowth(m, zs, { nodeValues })).toThrow(QuadratureError);
   });
 
   it("sigma8(z) = sigma8 D(z) and f sigma8 = f sigma8 D in the redshift table; S8 = sigma8 (Omega_m/0.3)^0.5", () => {

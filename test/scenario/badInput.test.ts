@@ -35,6 +35,14 @@ describe("bad input gives located, actionable errors", () => {
       "models[0].Omega_M",
       /unknown key Omega_M\. did you mean Omega_m\?/,
     ));
+  it("the trade's subscripted spelling sigma_8 points to our key sigma8 (common practice: sigma_8 in papers)", () =>
+    expectIssue(
+      "title: t\nmodels:\n  - id: ref\n    H0: 70\n    Omega_m: 0.3\n    sigma_8: 0.8\n",
+      6,
+      5,
+      "models[0].sigma_8",
+      /unknown key sigma_8\. did you mean sigma8\?/,
+    ));
   it("unknown top-level key suggests the near one", () =>
     expectIssue(`titel: t\nmodels:\n${GOOD_MODEL}`, 1, 1, "titel", /did you mean title\?/));
   it("wrong type: H0: seventy", () =>
