@@ -18,7 +18,7 @@ export default function (eleventyConfig) {
   eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, throwOnUndefined: false });
   for (const [name, fn] of Object.entries({ ...TEXT_FILTERS, ...HTML_FILTERS })) eleventyConfig.addFilter(name, fn);
 
-  // `cosmoledger build` hands over the ledger it checked; `npm start` recomputes it on every rebuild.
+  // `cosmoledger build` and `cosmoledger serve` hand over the ledger they checked; a bare `eleventy` run reads one.
   let current = null;
   eleventyConfig.addGlobalData("ledger", () => {
     current = getSiteLedger();
@@ -28,11 +28,12 @@ export default function (eleventyConfig) {
     current = ledger;
     return current;
   });
-  // The dev server (npm start) reloads open pages over a WebSocket; only its output may connect anywhere. A built site
-  // keeps connect-src 'none'.
-  eleventyConfig.addGlobalData("connectSrc", () =>
-    process.env.ELEVENTY_RUN_MODE === "serve" ? "'self' ws: wss:" : "'none'",
-  );
+  // `cosmoledger serve` renders pages that listen to it (Server-Sent Events from the same origin, for reloads and the
+  // overlay of a scenario's errors); only its output may connect anywhere. A built site keeps connect-src 'none'.
+  const preview = process.env.COSMOLEDGER_PREVIEW === "1";
+  eleventyConfig.addGlobalData("preview", preview);
+  eleventyConfig.addGlobalData("connectSrc", preview ? "'self'" : "'none'");
+  if (preview) eleventyConfig.addPassthroughCopy({ "content/preview/live-preview.js": "assets/live-preview.js" });
   eleventyConfig.addGlobalData("catalog", { ...catalog });
   eleventyConfig.addGlobalData("tex", {
     friedmann: FRIEDMANN_TEX,

@@ -1,11 +1,11 @@
 #!/usr/bin/env node
 // Entry point: runs the compiled CLI (npm install / npm ci compile it through the prepare script). Every command but
-// `build` runs from the bundle in dist/bundle (a few files to load instead of about a hundred: start-up is mostly
-// module loading); `build` runs from dist/ itself, the same modules the Eleventy config (.eleventy.js) imports.
+// `build` and `serve` runs from the bundle in dist/bundle (a few files to load instead of about a hundred: start-up
+// is mostly module loading); those two run from dist/ itself, the same modules the Eleventy config imports.
 import { existsSync } from "node:fs";
 
 const bundle = new URL("../dist/bundle/cosmoledger.mjs", import.meta.url);
-const entry = process.argv[2] !== "build" && existsSync(bundle) ? bundle.href : "../dist/cli/main.js";
+const entry = !["build", "serve"].includes(process.argv[2]) && existsSync(bundle) ? bundle.href : "../dist/cli/main.js";
 const { main } = await import(entry);
 
 // A closed pipe (cosmoledger ... | head) is not a failure.

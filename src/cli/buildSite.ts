@@ -4,24 +4,28 @@ import { makeFolders, removeEmptyFolders } from "../common/makeFolders.js";
 import { existsSync, mkdirSync, readdirSync, realpathSync, renameSync, rmSync, statSync } from "node:fs";
 import { isLink } from "../common/readRegularFile.js";
 import { basename, dirname, join, resolve } from "node:path";
-import { PACKAGE_ROOT } from "../common/toolVersion.js";
 import { defaultArchive, readLedger } from "./readLedger.js";
-import { setSiteLedger } from "../site/siteLedger.js";
+import { renderSite } from "./renderSite.js";
 import { issueLine, issueSummary } from "../scenario/scenarioIssue.js";
 
 import { SITE_MARKER } from "./siteMarker.js";
+import { buildSalt } from "./buildSalt.js";
+import { carryUnitFiles, readSiteManifest, SITE_MANIFEST, siteManifestText, unitFilesPresent } from "./siteManifest.js";
+import { writeFileSync } from "node:fs";
 
 /**
  * Check and compute every scenario of `scenariosDir`, render them with Eleventy into a temporary folder beside
  * `outDir`, then swap it in. An invalid scenario stops the build (exit 2) before anything is written; a failed or
  * killed build leaves the previous site whole. A non-empty `outDir` that cosmoledger did not create is refused.
+ * Pages whose key (src/site/sitePages.ts) is unchanged since the last build of `outDir` are carried over instead of
+ * rendered; the result is byte for byte the site a clean build would write.
  */
 export async function buildSite(
   scenariosDir: string,
   outDir: string,
   quiet: boolean,
   archiveDir?: string,
-  options: { images?: boolean; strict?: boolean } = {},
+  options: { images?: boolean; strict?: boolean; clean?: boolean; toolVersion?: string } = {},
 ): Promise<number> {
   const scenarios = resolve(scenariosDir);
   const archive = resolve(archiveDir ?? defaultArchive(scenariosDir));
@@ -56,7 +60,18 @@ export async function buildSite(
     );
     return 2;
   }
-  const { ledger, issues, warnings } = readLedger(scenarios, archive, { images: options.images });
+  const previous = !options.clean && existsSync(join(out, SITE_MARKER)) ? readSiteManifest(out) : null;
+  const { ledger, issues, warnings } = readLedger(scenarios, archive, {
+    images: options.images,
+    toolVersion: options.toolVersion,
+    salt: buildSalt(),
+    reuse: previous
+      ? (path, key) => {
+          const u = previous.get(path);
+          return !!u && u.key === key && unitFilesPresent(out, u.files);
+        }
+      : undefined,
+  });
   if (!ledger) {
     for (const i of issues) process.stderr.write(`${issueLine(i)}\n`);
     process.stderr.write(`${issueSummary(issues, `the site was not built and ${outDir} is untouched.`)}\n`);
@@ -72,12 +87,10 @@ export async function buildSite(
   const tmp = `${out}.building-${stamp}`;
   const old = `${out}.previous-${stamp}`;
   const made = makeFolders(dirname(out));
-  setSiteLedger(ledger);
-  const cwd = process.cwd();
   let lateRefusal: unknown = null;
   try {
-    process.chdir(PACKAGE_ROOT); // Eleventy resolves the config, content/ and passthrough paths from here
     namePathOnError(outDir, () => mkdirSync(tmp)); // a refused folder fails here, before Eleventy's parallel writes
+    const units = previous ? carryUnitFiles(out, tmp, ledger.units, previous) : ledger.units;
     // Eleventy's parallel writes (passthrough copies) can fail after, or without, the write() call failing: a late
     // refusal is the one already reported, and what such writes leave is removed again when the process ends.
     process.on("unhandledRejection", (late) => {
@@ -87,30 +100,28 @@ export async function buildSite(
     process.on("exit", () => {
       if (existsSync(tmp)) rmSync(tmp, { recursive: true, force: true });
     });
-    const { Eleventy } = await import("@11ty/eleventy");
-    process.env.COSMOLEDGER_SITE_OUT = tmp;
-    const eleventy = new Eleventy("content", tmp, { configPath: ".eleventy.js", quietMode: true });
-    eleventy.disableLogger(); // cosmoledger reports the build itself; Eleventy's errors still arrive as exceptions
-    await eleventy.write();
+    await renderSite(ledger, tmp);
     if (lateRefusal) throw lateRefusal;
     if (!existsSync(join(tmp, SITE_MARKER))) throw new Error("Eleventy finished without writing the site marker");
+    writeFileSync(
+      join(tmp, SITE_MANIFEST),
+      siteManifestText(units as { path: string; key: string; files: string[] }[]),
+    );
   } catch (e) {
     rmSync(tmp, { recursive: true, force: true });
     removeEmptyFolders(made);
     process.on("exit", () => removeEmptyFolders(made));
     throw systemRefusalInside(e, outDir) ?? e;
-  } finally {
-    process.chdir(cwd);
-    delete process.env.COSMOLEDGER_SITE_OUT;
-    setSiteLedger(null);
   }
   if (existsSync(out)) renameSync(out, old);
   renameSync(tmp, out);
   rmSync(old, { recursive: true, force: true });
-  const frozen = ledger.pages.filter((p) => p.status === "frozen").length;
+  const frozen = ledger.units.filter((u) => /^[^/]+\/v\d+\/$/.test(u.path)).length;
+  const reused = ledger.units.filter((u) => u.files === null).length;
   if (!quiet)
     process.stdout.write(
-      `built ${ledger.docs.length} scenario page${ledger.docs.length === 1 ? "" : "s"} and ${frozen} frozen version page${frozen === 1 ? "" : "s"} into ${outDir}/\n`,
+      `built ${ledger.docs.length} scenario page${ledger.docs.length === 1 ? "" : "s"} and ${frozen} frozen version page${frozen === 1 ? "" : "s"} into ${outDir}/` +
+        `${reused ? ` (${ledger.units.length - reused} of ${ledger.units.length} pages rendered, the rest unchanged since the last build)` : ""}\n`,
     );
   return 0;
 }

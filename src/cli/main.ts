@@ -18,6 +18,8 @@ Commands:
                             frozen version (defaults: scenarios/, _site/ and scenarios/archive/)
   freeze FILE [-m MESSAGE] [--archive DIR]
                             record the scenario as its next frozen version (default archive: beside FILE)
+  serve [--scenarios DIR] [--archive DIR] [--port N]
+                            preview the site on a local address; each save rebuilds what it changed
   verify [--scenarios DIR | --archive DIR] [--strict] [--json] [--verbose]
                             check the archive's hashes and chains, and recompute every version
   quote (--model "H0=70 Omega_m=0.3"... | FILE) --z 0.5,1,2 [--quantities D_A,scale] [--format F]
@@ -64,6 +66,20 @@ Beside every table the pages offer CSV, JSON, Markdown, LaTeX and HTML exports, 
 SVG images (drawn at build time, about 0.5 s per page; kept in node_modules/.cache/cosmoledger/images, so a
 frozen version is drawn once). --skip-images leaves the chart images out (the tables' exports stay).
 Warnings are printed as check prints them; --strict makes them errors (exit 2, the site untouched).`,
+  serve: `Usage: cosmoledger serve [--scenarios DIR] [--archive DIR] [--port N] [--host ADDR] [--out DIR] [--images]
+
+Previews the site of a scenarios folder (default scenarios/, archive as for build) at http://127.0.0.1:8260/ and
+keeps it current: a save recomputes only the changed scenario, renders only the pages that depend on it (frozen
+version pages are rendered once) and reloads the open pages that changed. An invalid save shows its errors, in
+the words of check, over the last good page, which stays marked stale until the next good save; warnings show in
+a quieter strip. Nothing is written into the scenarios or archive folders: pages go to a temporary folder removed
+on exit, or to --out DIR (kept, and reused by the next serve or build of it). Ctrl-C stops.
+
+Options:
+  --port N       port to listen on (default 8260; 0 picks any free port)
+  --host ADDR    address to listen on (default 127.0.0.1, this computer only)
+  --out DIR      keep the preview's pages in DIR
+  --images       also draw the charts' PNG and SVG exports (slower saves; build always draws them)`,
   freeze: `Usage: cosmoledger freeze FILE [-m MESSAGE] [--archive DIR]
 
 Validates and computes FILE, then records it as the next version of its scenario in DIR/<id>/vN.json
@@ -117,6 +133,9 @@ const OPTIONS = {
   version: { type: "string" },
   format: { type: "string", multiple: true },
   "skip-images": { type: "boolean" },
+  port: { type: "string" },
+  host: { type: "string" },
+  images: { type: "boolean" },
   verbose: { type: "boolean" },
 } as const;
 
@@ -180,6 +199,7 @@ async function runMain(argv: string[]): Promise<number> {
     );
   }
   const known: Record<string, string[]> = {
+    serve: ["scenarios", "archive", "out", "port", "host", "images"],
     check: ["quiet", "strict"],
     compute: ["out", "json", "quiet", "strict"],
     freeze: ["archive", "message"],
@@ -192,6 +212,14 @@ async function runMain(argv: string[]): Promise<number> {
       `cosmoledger ${command}: option --${stray[0]} does not apply to this command\n\n${HELP[command]}\n`,
     );
     return 2;
+  }
+  if (command === "serve") {
+    if (parsed.positionals.length > 0) {
+      process.stderr.write(`cosmoledger serve: takes no file names; use --scenarios DIR\n`);
+      return 2;
+    }
+    const { serveCommand } = await import("./serveCommand.js");
+    return serveCommand(parsed.values);
   }
   if (command === "freeze") {
     const { freezeCommand } = await import("./freezeCommand.js");

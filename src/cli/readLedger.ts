@@ -2,8 +2,9 @@ import { join } from "node:path";
 import { displayPath } from "../common/displayPath.js";
 import type { ScenarioIssue } from "../scenario/scenarioIssue.js";
 import { computeTables } from "./computeTables.js";
-import { readArchive } from "../archive/readArchive.js";
-import { sitePages, type PageExporter } from "../site/sitePages.js";
+import { readArchive, type ScenarioArchive } from "../archive/readArchive.js";
+import type { TablesDocument } from "../contract/tablesDocument.js";
+import { sitePages, type PageExporter, type ReuseUnit } from "../site/sitePages.js";
 import { loadScenarioFiles } from "./readScenarioFile.js";
 import type { SiteLedger } from "../site/siteLedger.js";
 import { EXPORT_FORMATS, exportFiles } from "../exports/exportFiles.js";
@@ -19,12 +20,13 @@ export const defaultArchive = (scenariosDir: string) => join(scenariosDir, "arch
 
 /**
  * Reads, validates and computes every scenario of a folder and reads the archive (checking every hash and the
- * chains); either a ledger or the issues that stop the build.
+ * chains); either a ledger or the issues that stop the build. `salt` and `reuse` let a build skip the pages it
+ * already has (src/site/sitePages.ts, SiteUnit).
  */
 export function readLedger(
   dir: string,
   archiveDir: string = defaultArchive(dir),
-  options: { exports?: boolean; images?: boolean } = {},
+  options: LedgerOptions = {},
 ): { ledger: SiteLedger | null; issues: ScenarioIssue[]; warnings: ScenarioIssue[] } {
   const loaded = loadScenarioFiles(scenarioFiles(dir));
   const issues: ScenarioIssue[] = [...loaded.issues];
@@ -33,18 +35,45 @@ export function readLedger(
   for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
   const warnings = files.flatMap((f) => scenarioWarnings(f.scenario, f.doc));
   if (issues.length > 0) return { ledger: null, issues, warnings };
+  return {
+    ledger: ledgerFrom(
+      files.map((f) => f.doc),
+      archive.archives,
+      archiveDir,
+      options,
+    ),
+    issues: [],
+    warnings,
+  };
+}
+
+export interface LedgerOptions {
+  exports?: boolean;
+  images?: boolean;
+  salt?: string;
+  reuse?: ReuseUnit;
+  toolVersion?: string;
+}
+
+/** The site's ledger from computed scenario files and a checked archive (the step after reading, shared with serve). */
+export function ledgerFrom(
+  docs: TablesDocument[],
+  archives: ScenarioArchive[],
+  archiveDir: string,
+  options: LedgerOptions = {},
+): SiteLedger {
   const renderers = cachedRenderers();
   const formats = options.images === false ? EXPORT_FORMATS.filter((f) => f !== "png" && f !== "svg") : EXPORT_FORMATS;
   const exporter: PageExporter = (doc, base, page) => exportFiles(doc, base, page, formats, renderers);
   const pages = sitePages(
-    files.map((f) => f.doc),
-    archive.archives,
+    docs,
+    archives,
     options.exports === false ? null : exporter,
-    TOOL_VERSION,
+    options.toolVersion ?? TOOL_VERSION,
+    {
+      salt: JSON.stringify([options.salt ?? "", formats]),
+      reuse: options.reuse,
+    },
   );
-  return {
-    ledger: { ...pages, docs: pages.live.map((p) => p.presented), archive: displayPath(archiveDir) },
-    issues: [],
-    warnings,
-  };
+  return { ...pages, docs: pages.live.map((p) => p.presented), archive: displayPath(archiveDir) };
 }

@@ -23,6 +23,7 @@ import type { ExportContent, ExportIndex } from "../exports/exportFiles.js";
 import { formatPercent } from "../presentation/formatNumber.js";
 import { jsonForScriptElement } from "./chartPayload.js";
 import type { ExportProvenance } from "../exports/exportProvenance.js";
+import { createHash } from "node:crypto";
 
 /** Makes the exports of one page (the site passes exportFiles with cached chart renderers). */
 export type PageExporter = (
@@ -119,14 +120,32 @@ export interface DiffPage {
   diff: VersionDiff;
 }
 
+/**
+ * One rendered page and the files that go with it (downloads, exports). Its key is a hash of everything the page is
+ * made from (records' hashes, the scenario file's text and inputs, the build's salt: tool, templates, options), so
+ * an equal key means equal files and an incremental build may reuse them.
+ */
+export interface SiteUnit {
+  path: string;
+  key: string;
+  /** The unit's files (site-relative), or null when the unit was reused (the caller knows its files). */
+  files: string[] | null;
+}
+
+/** Which units may be reused instead of built: true when the files of (path, key) are already at hand. */
+export type ReuseUnit = (path: string, key: string) => boolean;
+
 export interface SitePages {
+  /** The pages to render (a reused page is not among them). */
   pages: ScenarioPage[];
-  /** The page of each scenario at /<id>/, in id order (the index lists these). */
+  /** Every page of the site, built or reused, with its key. */
+  units: SiteUnit[];
+  /** The page of each scenario at /<id>/, in id order (the index lists these, reused or not). */
   live: ScenarioPage[];
   histories: HistoryPage[];
   diffs: DiffPage[];
   downloads: { path: string; text: string }[];
-  /** Export files (text, and images drawn when written), written beside the pages after Eleventy has run. */
+  /** Export files (text, and images drawn when written) of the built pages, written beside them after Eleventy has run. */
   exportFiles: { path: string; content: ExportContent }[];
 }
 
@@ -187,8 +206,23 @@ function summarise(d: VersionDiff): string {
   return parts.join("; ");
 }
 
-/** What a page shows of a stored document: the presented document and its tables (downloads keep the contract's Mpc). */
-function shown(stored: StoredTablesDocument) {
+const shownOnce = new WeakMap<StoredTablesDocument, ReturnType<typeof present>>();
+
+/**
+ * What a page shows of a stored document: the presented document and its tables (downloads keep the contract's
+ * Mpc). Presented once per document object: a preview that keeps its documents between rebuilds presents only the
+ * changed ones again.
+ */
+function shown(stored: StoredTablesDocument): ReturnType<typeof present> {
+  let s = shownOnce.get(stored);
+  if (!s) {
+    s = present(stored);
+    shownOnce.set(stored, s);
+  }
+  return s;
+}
+
+function present(stored: StoredTablesDocument) {
   const presented = presentDocument(stored);
   const tableList = presentationTables(presented);
   return {
@@ -216,20 +250,43 @@ function downloadsOf(
   return files;
 }
 
+/** The key of a unit: a hash of the build's salt and of what the page is made from. */
+export function unitKey(salt: string, parts: unknown): string {
+  return createHash("sha256").update(salt).update("\n").update(JSON.stringify(parts)).digest("hex");
+}
+
+/** What a draft's pages are made from (its file's path and text, and its resolved inputs, samples included). */
+const draftKey = (d: TablesDocument) =>
+  createHash("sha256")
+    .update(JSON.stringify([d.scenario.source_path, d.scenario.source_text, d.scenario.inputs_sha256]))
+    .digest("hex");
+
 /**
  * Every page of the site from the scenario files (already computed) and the checked archive: the live page of each
  * scenario, one page per frozen version, a history page and diff pages per archived scenario, and the downloads.
- * Frozen versions are shown from their stored tables, never recomputed.
+ * Frozen versions are shown from their stored tables, never recomputed. A unit that `reuse` accepts is not built:
+ * only its key is computed (the live pages are presented all the same, for the index).
  */
 export function sitePages(
   docs: TablesDocument[],
   archives: ScenarioArchive[],
   exporter: PageExporter | null = null,
   toolVersion = "",
+  options: { salt?: string; reuse?: ReuseUnit } = {},
 ): SitePages {
+  const salt = JSON.stringify([options.salt ?? "", toolVersion, exporter !== null]);
+  const reuse = options.reuse ?? (() => false);
+  const units: SiteUnit[] = [];
+  const kept = (path: string, key: string) => {
+    if (!reuse(path, key)) return false;
+    units.push({ path, key, files: null });
+    return true;
+  };
+  const built = (page: { path: string }, key: string, files: string[]) =>
+    units.push({ path: page.path, key, files: [`${page.path}index.html`, ...files] });
   const exportFiles: SitePages["exportFiles"] = [];
-  const attachExports = (page: ScenarioPage) => {
-    if (!exporter) return;
+  const attachExports = (page: ScenarioPage): string[] => {
+    if (!exporter) return [];
     const v = page.version;
     const base = {
       tool: "cosmoledger",
@@ -243,8 +300,12 @@ export function sitePages(
     };
     const made = exporter(page.presented, base, `${page.path}index.html`);
     page.exports = made.index;
-    exportFiles.push(...made.files.map((f) => ({ path: `${page.path}exports/${f.name}`, content: f.content })));
-    exportFiles.push({ path: `${page.path}exports/copy.js`, content: copyScript(made.index) });
+    const files = [
+      ...made.files.map((f) => ({ path: `${page.path}exports/${f.name}`, content: f.content })),
+      { path: `${page.path}exports/copy.js`, content: copyScript(made.index) },
+    ];
+    exportFiles.push(...files);
+    return files.map((f) => f.path);
   };
   const pages: ScenarioPage[] = [];
   const live: ScenarioPage[] = [];
@@ -260,7 +321,10 @@ export function sitePages(
     const latest = versions.at(-1) ?? null;
     const isDraft = !!(file && latest && !holdsSameInputs(latest, file));
     const draftDiffPath = isDraft && latest ? diffPath(id, latest.version, "draft") : null;
+    const latestInfo = latest ? info(latest) : null;
     for (const r of versions) {
+      const key = unitKey(salt, ["frozen", r.sha256, latestInfo, versions.length]);
+      if (kept(`${id}/v${r.version}/`, key)) continue;
       const page: ScenarioPage = {
         id,
         path: `${id}/v${r.version}/`,
@@ -270,17 +334,18 @@ export function sitePages(
         source: r.source.text,
         format: r.tables.format,
         version: info(r),
-        latest: info(latest!),
+        latest: latestInfo,
         versionCount: versions.length,
         downloads: [],
         draftDiffPath: null,
         exports: null,
       };
-      attachExports(page);
+      const exported = attachExports(page);
       const files = downloadsOf(page.path, r.tables, r);
       page.downloads = files.map((f) => f.path.slice(page.path.length));
       downloads.push(...files);
       pages.push(page);
+      built(page, key, [...files.map((f) => f.path), ...exported]);
     }
     const status: PageStatus = !file ? "archived-only" : !latest ? "unarchived" : isDraft ? "draft" : "latest";
     const doc = file ?? latest!.tables;
@@ -304,12 +369,16 @@ export function sitePages(
           : false,
       exports: null,
     };
-    attachExports(livePage);
-    const liveFiles = downloadsOf(livePage.path, doc, null);
-    livePage.downloads = liveFiles.map((f) => f.path.slice(livePage.path.length));
-    downloads.push(...liveFiles);
-    pages.push(livePage);
+    const liveKey = unitKey(salt, ["live", status, file ? draftKey(file) : null, latestInfo, versions.length]);
     live.push(livePage);
+    if (!kept(livePage.path, liveKey)) {
+      const exported = attachExports(livePage);
+      const liveFiles = downloadsOf(livePage.path, doc, null);
+      livePage.downloads = liveFiles.map((f) => f.path.slice(livePage.path.length));
+      downloads.push(...liveFiles);
+      pages.push(livePage);
+      built(livePage, liveKey, [...liveFiles.map((f) => f.path), ...exported]);
+    }
     if (versions.length === 0) continue;
 
     const title = doc.scenario.title;
@@ -320,6 +389,8 @@ export function sitePages(
     if (isDraft && file) points.push({ label: "draft", record: draftRecord(file, latest!.version + 1) });
     const pairs: HistoryPage["pairs"] = [];
     const all = points.length <= ALL_PAIRS_LIMIT;
+    const pointKey = (p: (typeof points)[number]) => (p.label === "draft" ? draftKey(file!) : p.record.sha256);
+    const consecutive = new Map<string, VersionDiff>();
     for (let i = 0; i < points.length; i++)
       for (let j = i + 1; j < points.length; j++) {
         if (!all && j !== i + 1 && j !== points.length - 1) continue;
@@ -327,6 +398,9 @@ export function sitePages(
         const b = points[j];
         const path = diffPath(id, a.label, b.label);
         pairs.push({ from: a.label, to: b.label, path });
+        if (kept(path, unitKey(salt, ["diff", title, a.label, b.label, pointKey(a), pointKey(b)]))) continue;
+        const diff = versionDiff(a.record, b.record);
+        if (j === i + 1) consecutive.set(path, diff);
         diffs.push({
           id,
           title,
@@ -336,26 +410,34 @@ export function sitePages(
           to: b.label === "draft" ? null : info(b.record),
           fromLabel: `version ${a.label}`,
           toLabel: b.label === "draft" ? "unfrozen draft" : `version ${b.label}`,
-          diff: versionDiff(a.record, b.record),
+          diff,
         });
+        built({ path }, unitKey(salt, ["diff", title, a.label, b.label, pointKey(a), pointKey(b)]), []);
       }
+    const historyPath = `${id}/history/`;
+    const historyKey = unitKey(salt, ["history", title, points.map(pointKey), draftDiffPath, pairs]);
+    if (kept(historyPath, historyKey)) continue;
     const entries: HistoryEntry[] = versions.map((r, i) => {
       if (i === 0) return { ...info(r), diffPath: null, summary: "first version" };
-      const d = diffs.find((x) => x.id === id && x.path === diffPath(id, versions[i - 1].version, r.version))!;
-      return { ...info(r), diffPath: d.path, summary: summarise(d.diff) };
+      const path = diffPath(id, versions[i - 1].version, r.version);
+      const d = consecutive.get(path) ?? versionDiff(versions[i - 1], r);
+      return { ...info(r), diffPath: path, summary: summarise(d) };
     });
-    histories.push({
+    const history: HistoryPage = {
       id,
       title,
-      path: `${id}/history/`,
+      path: historyPath,
       root: "../../",
       entries: entries.reverse(),
       draft: isDraft,
       draftDiffPath,
       pairs,
-    });
+    };
+    histories.push(history);
+    built(history, historyKey, []);
   }
-  return { pages, live, histories, diffs, downloads, exportFiles };
+  units.sort((a, b) => (a.path < b.path ? -1 : a.path > b.path ? 1 : 0));
+  return { pages, units, live, histories, diffs, downloads, exportFiles };
 }
 
 /** The copy-to-clipboard texts of a page as a script that only assigns data (loaded with a script element, so it works from file://). */

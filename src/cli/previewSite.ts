@@ -1,0 +1,177 @@
+import { existsSync, readdirSync, rmdirSync, rmSync, writeFileSync } from "node:fs";
+import { dirname, join } from "node:path";
+import { readArchive, type ScenarioArchive } from "../archive/readArchive.js";
+import type { TablesDocument } from "../contract/tablesDocument.js";
+import { readRegularFile } from "../common/readRegularFile.js";
+import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
+import {
+  formatIssue,
+  issueLine,
+  issueSummary,
+  ScenarioInputError,
+  type ScenarioIssue,
+} from "../scenario/scenarioIssue.js";
+import { buildSalt } from "./buildSalt.js";
+import { computeTables } from "./computeTables.js";
+import { ledgerFrom } from "./readLedger.js";
+import { loadScenarioFile } from "./readScenarioFile.js";
+import { renderSite } from "./renderSite.js";
+import { scenarioFiles } from "./scenarioFiles.js";
+import { scenarioWarnings } from "./scenarioWarnings.js";
+import { readSiteManifest, SITE_MANIFEST, siteManifestText, type ManifestUnits } from "./siteManifest.js";
+
+/** What one scenario file gave: its scenario and tables document, or its located issues; and its warnings. */
+interface FileResult {
+  scenario: ResolvedScenario | null;
+  doc: TablesDocument | null;
+  issues: ScenarioIssue[];
+  warnings: ScenarioIssue[];
+}
+
+/** The outcome of one rebuild, for the terminal and the open pages. */
+export interface PreviewResult {
+  /** Located errors (as `check` prints them): nothing was rebuilt and the pages keep their last good numbers. */
+  errors: string[];
+  warnings: string[];
+  summary: string;
+  /** Site-relative paths of the pages rendered ("" is the index). */
+  rendered: string[];
+  /** Pages reused unchanged. */
+  reused: number;
+}
+
+/**
+ * The site of a scenarios folder kept up to date in place for `cosmoledger serve`: a save recomputes only the
+ * changed file (documents are kept by the file's text), re-reads the archive only when it changed, and renders
+ * only the pages whose key changed (src/site/sitePages.ts); pages and files of removed scenarios are deleted.
+ */
+export class PreviewSite {
+  private files = new Map<string, { text: string; result: FileResult }>();
+  private archive: { archives: ScenarioArchive[]; issues: ScenarioIssue[] } | null = null;
+  private units: ManifestUnits;
+
+  constructor(
+    private readonly scenariosDir: string,
+    private readonly archiveDir: string,
+    private readonly outDir: string,
+    private readonly options: { images: boolean },
+  ) {
+    this.units = readSiteManifest(outDir) ?? new Map();
+  }
+
+  /** Forget what was read from the archive (a file in it changed). */
+  archiveChanged(): void {
+    this.archive = null;
+  }
+
+  /** Forget every computed scenario (a file other than a scenario changed, such as a samples file). */
+  attachmentChanged(): void {
+    this.files.clear();
+  }
+
+  private readFile(file: string): FileResult {
+    const read = readRegularFile(file);
+    const text = "why" in read ? null : Buffer.from(read.bytes).toString("latin1");
+    const known = text !== null ? this.files.get(file) : undefined;
+    if (known && known.text === text) return known.result;
+    const result = computeFile(file);
+    if (text !== null) this.files.set(file, { text, result });
+    return result;
+  }
+
+  async rebuild(): Promise<PreviewResult> {
+    const results = scenarioFiles(this.scenariosDir).map((f) => this.readFile(f));
+    for (const f of [...this.files.keys()]) if (!existsSync(f)) this.files.delete(f);
+    const issues = results.flatMap((r) => r.issues);
+    const seen = new Map<string, string>();
+    const docs: TablesDocument[] = [];
+    for (const r of results) {
+      if (!r.scenario || !r.doc) continue;
+      const other = seen.get(r.scenario.id);
+      if (other) {
+        const message = `scenario id ${r.scenario.id} is also used by ${other}; ids must be unique across the files of one run`;
+        issues.push({ file: r.scenario.source.path, line: 1, column: 1, path: "id", message });
+        continue;
+      }
+      seen.set(r.scenario.id, r.scenario.source.path);
+      docs.push(r.doc);
+    }
+    this.archive ??= readArchiveIssues(this.archiveDir);
+    issues.push(...this.archive.issues);
+    const warnings = results.flatMap((r) => r.warnings).map((w) => `warning: ${formatIssue(w)}`); // as check prints them
+    if (issues.length > 0)
+      return {
+        errors: issues.map(issueLine),
+        warnings,
+        summary: issueSummary(issues, "the preview was not rebuilt."),
+        rendered: [],
+        reused: 0,
+      };
+    if (docs.length === 0 && this.archive.archives.length === 0)
+      return {
+        errors: [`error: no scenario files (*.yaml) in ${this.scenariosDir}`],
+        warnings,
+        summary: "No scenario files: the preview was not rebuilt.",
+        rendered: [],
+        reused: 0,
+      };
+    const previous = this.units;
+    const ledger = ledgerFrom(docs, this.archive.archives, this.archiveDir, {
+      images: this.options.images,
+      salt: `${buildSalt()}\npreview`,
+      reuse: (path, key) => previous.get(path)?.key === key,
+    });
+    await renderSite(ledger, this.outDir, true);
+    const next: ManifestUnits = new Map();
+    for (const u of ledger.units) next.set(u.path, u.files ? { key: u.key, files: u.files } : previous.get(u.path)!);
+    // Files the site no longer has: pages of removed scenarios, versions or diffs, and exports a page dropped.
+    const kept = new Set([...next.values()].flatMap((u) => u.files));
+    for (const u of previous.values())
+      for (const f of u.files) if (!kept.has(f)) removeFileAndEmptyFolders(this.outDir, f);
+    this.units = next;
+    writeFileSync(
+      join(this.outDir, SITE_MANIFEST),
+      siteManifestText([...next].map(([path, u]) => ({ path, ...u })).sort((a, b) => (a.path < b.path ? -1 : 1))),
+    );
+    const rendered = ledger.units.filter((u) => u.files !== null).map((u) => u.path);
+    return {
+      errors: [],
+      warnings,
+      summary: "",
+      rendered: ["", ...rendered],
+      reused: ledger.units.length - rendered.length,
+    };
+  }
+}
+
+function computeFile(file: string): FileResult {
+  const loaded = loadScenarioFile(file);
+  if (!loaded.scenario) return { scenario: null, doc: null, issues: loaded.issues, warnings: [] };
+  try {
+    const doc = computeTables(loaded.scenario);
+    return { scenario: loaded.scenario, doc, issues: [], warnings: scenarioWarnings(loaded.scenario, doc) };
+  } catch (e) {
+    if (!(e instanceof ScenarioInputError)) throw e;
+    return { scenario: null, doc: null, issues: e.issues, warnings: [] };
+  }
+}
+
+function readArchiveIssues(dir: string): { archives: ScenarioArchive[]; issues: ScenarioIssue[] } {
+  const a = readArchive(dir);
+  return {
+    archives: a.archives,
+    issues: a.issues.map((i) => ({ file: i.file, line: 1, column: 1, path: "", message: i.message })),
+  };
+}
+
+function removeFileAndEmptyFolders(root: string, file: string): void {
+  rmSync(join(root, file), { force: true });
+  for (let d = dirname(join(root, file)); d.length > root.length; d = dirname(d)) {
+    try {
+      if (readdirSync(d).length > 0) return;
+      rmdirSync(d);
+    } catch {
+      return;
+    }
+  }
+}
