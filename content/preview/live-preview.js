@@ -42,6 +42,10 @@
   }
 
   const events = new EventSource("/_cosmoledger/events");
+  // Says when the page listens (a save before that moment is not seen by this page; tests wait for it).
+  events.addEventListener("open", () => {
+    document.documentElement.dataset.previewListening = "true";
+  });
   events.addEventListener("status", (e) => show(JSON.parse(e.data)));
   events.addEventListener("reload", (e) => {
     const { paths } = JSON.parse(e.data);

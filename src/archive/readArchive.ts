@@ -4,7 +4,8 @@ import { displayPath } from "../common/displayPath.js";
 import { readRegularFile } from "../common/readRegularFile.js";
 import { checkVersionChain, type ArchiveIssue } from "./checkVersionChain.js";
 import { HEADS_FILE, headLosses, readHeads } from "./headRecord.js";
-import type { StoredVersionRecord } from "../contract/versionRecord.js";
+import { versionFileName, type StoredVersionRecord } from "../contract/versionRecord.js";
+import { lazyRecord, noteBytesHash, sha256OfBytes, type TrustedRecords } from "./trustedRecords.js";
 
 export interface ScenarioArchive {
   id: string;
@@ -39,9 +40,14 @@ const KIND_PROBLEM = {
 
 /**
  * Reads and checks every scenario's version chain in an archive folder, and the head record that notices a lost
- * newest version or scenario folder. A folder that does not exist is an empty archive.
+ * newest version or scenario folder. A folder that does not exist is an empty archive. With `trusted` (a site
+ * build), files whose bytes a previous build checked are not checked again, and their records read their tables
+ * only when needed (src/archive/trustedRecords.ts).
  */
-export function readArchive(archiveDir: string): { archives: ScenarioArchive[]; issues: ArchiveIssue[] } {
+export function readArchive(
+  archiveDir: string,
+  trusted?: TrustedRecords,
+): { archives: ScenarioArchive[]; issues: ArchiveIssue[] } {
   const archives: ScenarioArchive[] = [];
   const issues: ArchiveIssue[] = [];
   const kind = pathKind(archiveDir);
@@ -63,7 +69,7 @@ export function readArchive(archiveDir: string): { archives: ScenarioArchive[]; 
       });
       continue;
     }
-    archives.push(readScenarioArchive(folder, id, issues));
+    archives.push(readScenarioArchive(folder, id, issues, trusted));
   }
   if (issue) issues.push(issue);
   if (heads) {
@@ -87,9 +93,15 @@ export function readArchive(archiveDir: string): { archives: ScenarioArchive[]; 
 }
 
 /** One scenario's folder: its checked versions, oldest first; problems are added to `issues`. */
-export function readScenarioArchive(folder: string, id: string, issues: ArchiveIssue[]): ScenarioArchive {
+export function readScenarioArchive(
+  folder: string,
+  id: string,
+  issues: ArchiveIssue[],
+  trusted?: TrustedRecords,
+): ScenarioArchive {
   const names = pathKind(folder) === "folder" ? readdirSync(folder).filter(visible) : [];
-  const files: { name: string; text: string }[] = [];
+  const files: Parameters<typeof checkVersionChain>[2] = [];
+  const hashes = new Map<string, string>();
   for (const name of names) {
     const path = join(folder, name);
     const k = pathKind(path);
@@ -102,9 +114,24 @@ export function readScenarioArchive(folder: string, id: string, issues: ArchiveI
     }
     const read = readRegularFile(path);
     if ("why" in read) issues.push({ file: displayPath(path), message: `the path ${read.why}` });
-    else files.push({ name, text: read.bytes.toString("utf8") });
+    else if (!trusted) files.push({ name, text: read.bytes.toString("utf8") });
+    else {
+      const hash = sha256OfBytes(read.bytes);
+      const meta = trusted.get(hash);
+      if (meta) files.push({ name, trusted: lazyRecord(path, hash, meta) });
+      else {
+        files.push({ name, text: read.bytes.toString("utf8") });
+        hashes.set(name, hash);
+      }
+    }
   }
   const checked = checkVersionChain(displayPath(folder), id, files);
   issues.push(...checked.issues);
+  // Records checked here in full: the hash of their bytes, so that the next build may trust them.
+  if (trusted)
+    for (const r of checked.versions) {
+      const h = hashes.get(versionFileName(r.version));
+      if (h) noteBytesHash(r, h);
+    }
   return { id, folder, versions: checked.versions };
 }

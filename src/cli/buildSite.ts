@@ -10,7 +10,16 @@ import { issueLine, issueSummary } from "../scenario/scenarioIssue.js";
 
 import { SITE_MARKER } from "./siteMarker.js";
 import { buildSalt } from "./buildSalt.js";
-import { carryUnitFiles, readSiteManifest, SITE_MANIFEST, siteManifestText, unitFilesPresent } from "./siteManifest.js";
+import {
+  carryUnitFiles,
+  readSiteManifest,
+  readTrustedRecords,
+  SITE_MANIFEST,
+  SITE_RECORDS,
+  siteManifestText,
+  trustedRecordsText,
+  unitFilesPresent,
+} from "./siteManifest.js";
 import { writeFileSync } from "node:fs";
 
 /**
@@ -60,8 +69,10 @@ export async function buildSite(
     );
     return 2;
   }
-  const previous = !options.clean && existsSync(join(out, SITE_MARKER)) ? readSiteManifest(out) : null;
-  const { ledger, issues, warnings } = readLedger(scenarios, archive, {
+  const ours = !options.clean && existsSync(join(out, SITE_MARKER));
+  const previous = ours ? readSiteManifest(out) : null;
+  const { ledger, issues, warnings, archives } = readLedger(scenarios, archive, {
+    trusted: ours ? readTrustedRecords(out) : new Map(),
     images: options.images,
     toolVersion: options.toolVersion,
     salt: buildSalt(),
@@ -107,6 +118,7 @@ export async function buildSite(
       join(tmp, SITE_MANIFEST),
       siteManifestText(units as { path: string; key: string; files: string[] }[]),
     );
+    writeFileSync(join(tmp, SITE_RECORDS), trustedRecordsText(archives));
   } catch (e) {
     rmSync(tmp, { recursive: true, force: true });
     removeEmptyFolders(made);

@@ -1,6 +1,7 @@
 import { existsSync, readdirSync, rmdirSync, rmSync, writeFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { readArchive, type ScenarioArchive } from "../archive/readArchive.js";
+import { bytesHashOf, metaOf, type TrustedRecords } from "../archive/trustedRecords.js";
 import type { TablesDocument } from "../contract/tablesDocument.js";
 import { readRegularFile } from "../common/readRegularFile.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
@@ -49,6 +50,8 @@ export class PreviewSite {
   private files = new Map<string, { text: string; result: FileResult }>();
   private archive: { archives: ScenarioArchive[]; issues: ScenarioIssue[] } | null = null;
   private units: ManifestUnits;
+  /** Version files already checked in full, so that a freeze re-reads the archive without checking it all again. */
+  private readonly trusted: TrustedRecords = new Map();
 
   constructor(
     private readonly scenariosDir: string,
@@ -67,6 +70,28 @@ export class PreviewSite {
   /** Forget every computed scenario (a file other than a scenario changed, such as a samples file). */
   attachmentChanged(): void {
     this.files.clear();
+  }
+
+  /**
+   * The archive, checked (versions read before are trusted by the hash of their bytes). Records read in full are
+   * noted, then read once more as trusted: those read their tables only while a page needs them.
+   */
+  private readArchive(): { archives: ScenarioArchive[]; issues: ScenarioIssue[] } {
+    let a = readArchive(this.archiveDir, this.trusted);
+    let added = 0;
+    for (const x of a.archives)
+      for (const r of x.versions) {
+        const h = bytesHashOf(r);
+        if (h && !this.trusted.has(h)) {
+          this.trusted.set(h, metaOf(r));
+          added++;
+        }
+      }
+    if (added > 0 && a.issues.length === 0) a = readArchive(this.archiveDir, this.trusted);
+    return {
+      archives: a.archives,
+      issues: a.issues.map((i) => ({ file: i.file, line: 1, column: 1, path: "", message: i.message })),
+    };
   }
 
   private readFile(file: string): FileResult {
@@ -96,7 +121,7 @@ export class PreviewSite {
       seen.set(r.scenario.id, r.scenario.source.path);
       docs.push(r.doc);
     }
-    this.archive ??= readArchiveIssues(this.archiveDir);
+    this.archive ??= this.readArchive();
     issues.push(...this.archive.issues);
     const warnings = results.flatMap((r) => r.warnings).map((w) => `warning: ${formatIssue(w)}`); // as check prints them
     if (issues.length > 0)
@@ -154,14 +179,6 @@ function computeFile(file: string): FileResult {
     if (!(e instanceof ScenarioInputError)) throw e;
     return { scenario: null, doc: null, issues: e.issues, warnings: [] };
   }
-}
-
-function readArchiveIssues(dir: string): { archives: ScenarioArchive[]; issues: ScenarioIssue[] } {
-  const a = readArchive(dir);
-  return {
-    archives: a.archives,
-    issues: a.issues.map((i) => ({ file: i.file, line: 1, column: 1, path: "", message: i.message })),
-  };
 }
 
 function removeFileAndEmptyFolders(root: string, file: string): void {

@@ -4,6 +4,7 @@ import type { ScenarioIssue } from "../scenario/scenarioIssue.js";
 import { computeTables } from "./computeTables.js";
 import { readArchive, type ScenarioArchive } from "../archive/readArchive.js";
 import type { TablesDocument } from "../contract/tablesDocument.js";
+import type { TrustedRecords } from "../archive/trustedRecords.js";
 import { sitePages, type PageExporter, type ReuseUnit } from "../site/sitePages.js";
 import { loadScenarioFiles } from "./readScenarioFile.js";
 import type { SiteLedger } from "../site/siteLedger.js";
@@ -27,14 +28,14 @@ export function readLedger(
   dir: string,
   archiveDir: string = defaultArchive(dir),
   options: LedgerOptions = {},
-): { ledger: SiteLedger | null; issues: ScenarioIssue[]; warnings: ScenarioIssue[] } {
+): { ledger: SiteLedger | null; issues: ScenarioIssue[]; warnings: ScenarioIssue[]; archives: ScenarioArchive[] } {
   const loaded = loadScenarioFiles(scenarioFiles(dir));
   const issues: ScenarioIssue[] = [...loaded.issues];
   const files = loaded.scenarios.map((scenario) => ({ scenario, doc: computeTables(scenario) }));
-  const archive = readArchive(archiveDir);
+  const archive = readArchive(archiveDir, options.trusted);
   for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
   const warnings = files.flatMap((f) => scenarioWarnings(f.scenario, f.doc));
-  if (issues.length > 0) return { ledger: null, issues, warnings };
+  if (issues.length > 0) return { ledger: null, issues, warnings, archives: [] };
   return {
     ledger: ledgerFrom(
       files.map((f) => f.doc),
@@ -44,6 +45,7 @@ export function readLedger(
     ),
     issues: [],
     warnings,
+    archives: archive.archives,
   };
 }
 
@@ -53,6 +55,8 @@ export interface LedgerOptions {
   salt?: string;
   reuse?: ReuseUnit;
   toolVersion?: string;
+  /** Version files a previous build of the same site checked in full (src/archive/trustedRecords.ts). */
+  trusted?: TrustedRecords;
 }
 
 /** The site's ledger from computed scenario files and a checked archive (the step after reading, shared with serve). */

@@ -1,6 +1,8 @@
 import { existsSync, linkSync, copyFileSync, lstatSync, mkdirSync, readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import type { SiteUnit } from "../site/sitePages.js";
+import type { ScenarioArchive } from "../archive/readArchive.js";
+import { bytesHashOf, metaOf, type RecordMeta, type TrustedRecords } from "../archive/trustedRecords.js";
 
 /**
  * The list of a built site's pages with their keys and files, kept in the site folder so that the next build of the
@@ -81,4 +83,32 @@ export function carryUnitFiles(fromDir: string, toDir: string, units: SiteUnit[]
     }
     return { ...u, files };
   });
+}
+
+/** The version files this site was built from, by the SHA-256 of their bytes, with their light fields. */
+export const SITE_RECORDS = ".cosmoledger-records.json";
+const RECORDS_FORMAT = "cosmoledger.site-records/1";
+
+/** The version files a previous build of `siteDir` checked in full (empty when there is no readable list). */
+export function readTrustedRecords(siteDir: string): TrustedRecords {
+  const file = join(siteDir, SITE_RECORDS);
+  if (!existsSync(file)) return new Map();
+  try {
+    const m = JSON.parse(readFileSync(file, "utf8")) as { format: string; records: [string, RecordMeta][] };
+    return m.format === RECORDS_FORMAT ? new Map(m.records) : new Map();
+  } catch {
+    return new Map(); // a damaged list costs a full check, never a wrong page
+  }
+}
+
+/** The list for the next build: every version of the archive, in the order of the hashes of their bytes. */
+export function trustedRecordsText(archives: ScenarioArchive[]): string {
+  const records: [string, RecordMeta][] = [];
+  for (const a of archives)
+    for (const r of a.versions) {
+      const h = bytesHashOf(r);
+      if (h) records.push([h, metaOf(r)]);
+    }
+  records.sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
+  return `${JSON.stringify({ format: RECORDS_FORMAT, records })}\n`;
 }

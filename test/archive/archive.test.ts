@@ -138,7 +138,13 @@ describe("freeze, history, diff and verify", { timeout: 180_000 }, () => {
     expect(hubbleDistanceCell(v2)).toBe((C_KM_S / 60).toPrecision(6));
     expect(hubbleDistanceCell(live)).toBe((C_KM_S / 65).toPrecision(6));
     expect(v1.querySelector("article")?.getAttribute("data-status")).toBe("frozen");
-    expect(v1.querySelector(".banner")?.textContent).toMatch(/Version 1 of 2.*first numbers/s);
+    expect(v1.querySelector(".banner")?.textContent).toMatch(/Version 1, frozen .*first numbers/s);
+    // Which version is the latest: one data file per scenario, read by the frozen pages (they never change).
+    const latest = /window\.cosmoledgerLatest = (.*);\n$/.exec(
+      readFileSync(join(work, "site/shelf-test/latest.js"), "utf8"),
+    );
+    expect(JSON.parse(latest![1])).toEqual({ n: 2, path: "shelf-test/v2/" });
+    expect(v1.querySelector('script[src="../latest.js"]')).not.toBeNull();
     expect(live.querySelector("article")?.getAttribute("data-status")).toBe("draft");
     expect(live.querySelector(".banner-draft")?.textContent).toMatch(/Unfrozen draft/);
     // Downloads beside a version page are the frozen ones.

@@ -1,10 +1,8 @@
 // Layout checked in headless Chromium (not by reading HTML): no page kind scrolls sideways at 390 px, tables use
-// the page's width at 1400 px, a title is escaped once, and `npm start` reloads an open page when a scenario changes
-// (its dev-server output alone may open the reload socket; a built site keeps connect-src 'none').
+// the page's width at 1400 px, a title is escaped once, and a built site keeps connect-src 'none' (only the pages of
+// `cosmoledger serve` may connect, to it: test/browser/preview.test.ts).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { spawn, type ChildProcess } from "node:child_process";
 import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
-import { createServer } from "node:net";
 import { join } from "node:path";
 import type { BrowserContext } from "playwright-core";
 import { ROOT, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
@@ -22,15 +20,6 @@ ${Array.from({ length: 6 }, (_, i) => `  - { id: m${i}, label: "Model number ${i
 targets:
   - { name: Arc, z: 2.3, size_kpc: 5 }
 `;
-
-const freePort = () =>
-  new Promise<number>((ok) => {
-    const s = createServer();
-    s.listen(0, "127.0.0.1", () => {
-      const port = (s.address() as { port: number }).port;
-      s.close(() => ok(port));
-    });
-  });
 
 describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chromium", { timeout: 300_000 }, () => {
   let site: string;
@@ -228,63 +217,18 @@ describe.skipIf(!chromiumPath)("layout, titles and live reload in headless Chrom
     await page.close();
   });
 
+  it("a frozen page names the latest version from the scenario's latest.js, from file:// under the pages' CSP", async () => {
+    const page = await context.newPage();
+    await page.goto(`file://${join(site, "six-models/v1/index.html")}`);
+    expect((await page.textContent(".later-version"))?.trim()).toBe("A later version exists: version 2.");
+    expect(await page.getAttribute(".later-version a", "href")).toBe("../../six-models/v2/index.html");
+    await page.goto(`file://${join(site, "six-models/v2/index.html")}`);
+    expect((await page.textContent(".later-version"))?.trim()).toBe("This is the latest version.");
+    await page.close();
+  });
+
   it("the built site keeps connect-src 'none'", () => {
     const html = readFileSync(join(site, "six-models/index.html"), "utf8");
     expect(html).toContain("connect-src 'none';");
-  });
-
-  it("npm start: editing a scenario changes the open page without a manual reload", async () => {
-    const dir = tempDir();
-    mkdirSync(join(dir, "scenarios"));
-    const file = join(dir, "scenarios/live.yaml");
-    writeFileSync(file, "title: Live\nid: live\nmodels:\n  - { id: a, label: Before, H0: 70, Omega_m: 0.3 }\n");
-    const port = await freePort();
-    // The dev server as npm start runs it (eleventy --serve), on our scenarios folder and output.
-    const server: ChildProcess = spawn(
-      process.execPath,
-      [join(ROOT, "node_modules/@11ty/eleventy/cmd.cjs"), "--serve", "--port", String(port), "--quiet"],
-      {
-        cwd: ROOT,
-        env: { ...process.env, COSMOLEDGER_SCENARIOS: join(dir, "scenarios"), COSMOLEDGER_SITE_OUT: join(dir, "out") },
-        stdio: "ignore",
-        detached: true,
-      },
-    );
-    try {
-      const page = await context.newPage();
-      const url = `http://localhost:${port}/live/index.html`;
-      const deadline = Date.now() + 120_000;
-      for (;;) {
-        try {
-          const response = await page.goto(url);
-          if (response?.ok()) break;
-        } catch {
-          // not listening yet
-        }
-        if (Date.now() > deadline) throw new Error("the dev server did not start within 120 s");
-        await page.waitForTimeout(500);
-      }
-      await page.waitForFunction(() => document.body.textContent?.includes("Before"), null, { timeout: 60_000 });
-      const csp = await page.evaluate(
-        () => document.querySelector('meta[http-equiv="Content-Security-Policy"]')?.getAttribute("content") ?? "",
-      );
-      expect(csp).toContain("connect-src 'self' ws: wss:");
-      // Edit, then wait for the page to change on its own. The reload socket may not be connected yet when the first
-      // edit lands (a busy machine), so the edit is written again every 10 s until a 120 s deadline.
-      const edited = "title: Live\nid: live\nmodels:\n  - { id: a, label: After, H0: 71, Omega_m: 0.3 }\n";
-      const until = Date.now() + 120_000;
-      for (let round = 0; ; round++) {
-        writeFileSync(file, round % 2 === 0 ? edited : `${edited}# again\n`);
-        try {
-          await page.waitForFunction(() => document.body.textContent?.includes("After"), null, { timeout: 10_000 });
-          break;
-        } catch (e) {
-          if (Date.now() > until) throw e;
-        }
-      }
-      await page.close();
-    } finally {
-      if (server.pid) process.kill(-server.pid, "SIGTERM");
-    }
   });
 });
