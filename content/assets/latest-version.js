@@ -2,19 +2,19 @@
 // only). The page itself never changes after it is rendered, so a new freeze rewrites one small file, not every
 // version page. Without script the banner points to the history page.
 (() => {
-  var latest = window.cosmoledgerLatest;
-  var slot = document.querySelector(".later-version");
+  const latest = window.cosmoledgerLatest;
+  const slot = document.querySelector(".later-version");
   if (!latest || !slot) return;
-  var n = Number(slot.getAttribute("data-version"));
-  var root = slot
+  const n = Number(slot.getAttribute("data-version"));
+  const root = slot
     .querySelector("a")
     .getAttribute("href")
     .replace(/[^/]+\/history\/index\.html$/, "");
   slot.replaceChildren();
   if (latest.n > n) {
-    var a = document.createElement("a");
-    a.href = root + latest.path + "index.html";
-    a.textContent = "version " + latest.n;
+    const a = document.createElement("a");
+    a.href = `${root + latest.path}index.html`;
+    a.textContent = `version ${latest.n}`;
     slot.append("A later version exists: ", a, ".");
   } else slot.append("This is the latest version.");
 })();
