@@ -54,8 +54,13 @@ export default function (eleventyConfig) {
       writeFileSync(target, content);
     });
     writeFileSync(join(output, SITE_MARKER), "Built by cosmoledger; this folder is replaced by the next build.\n");
+    // Let the ledger go: Eleventy keeps this configuration's listeners after the run, and a build renders many
+    // batches, each with its own ledger.
+    current = null;
   });
 
+  // A build renders its pages in batches; the index, which lists every scenario, comes with the last one.
+  if (process.env.COSMOLEDGER_NO_INDEX === "1") eleventyConfig.ignores.add("content/index.njk");
   eleventyConfig.addPassthroughCopy({ "content/assets": "assets" });
   // Served at the site's root, browsers ask for /favicon.ico whenever a page names no icon (an exported HTML
   // fragment opened on its own): the file is there (bin/drawFavicon.mjs draws it from favicon.svg).

@@ -5,6 +5,8 @@ import { runSiteBench } from "./site.js";
 import { runArchiveBench } from "./archive.js";
 import { runLimitsBench } from "./limits.js";
 import { runSpreadBench } from "./spread.js";
+import { runIncrementalBuildBench } from "./incrementalBuild.js";
+import { runPreviewBench } from "./preview.js";
 
 const engine = runEngineBench();
 console.log(`engine: ${engine.points} points (8 models x 2000 redshifts, z 0..20, all per-redshift quantities)`);
@@ -51,6 +53,26 @@ console.log(
 console.log(
   `  verify ${archive.versions} versions (hashes, chain, recompute): ${archive.verifyMs.toFixed(0)} ms; build with ${archive.versions} version pages and every diff pair (--skip-images): ${(archive.buildMs / 1000).toFixed(2)} s`,
 );
+const incremental = await runIncrementalBuildBench();
+const line = (b) =>
+  `${b.seconds.toFixed(2)} s, peak ${b.peakMB.toFixed(0)} MB${b.rendered !== null ? ` (${b.rendered} of ${b.pages} pages rendered)` : ""}`;
+console.log(
+  `incremental build: ${incremental.count} generated scenarios x ${incremental.versions} frozen versions (--skip-images): clean build ${line(incremental.clean)}`,
+);
+console.log(`  rebuild, nothing changed: ${line(incremental.unchanged)}`);
+console.log(
+  `  rebuild after one more freeze: ${line(incremental.afterFreeze)}; ${(incremental.clean.seconds / incremental.afterFreeze.seconds).toFixed(0)}x faster than the clean build`,
+);
+const preview = await runPreviewBench();
+if (!preview) console.log("preview: chromium is not installed (apt-get install -y chromium); latency not measured");
+else
+  for (const [name, p] of [
+    ["demo scenarios", preview.small],
+    ["200 generated scenarios with 1,000 frozen versions", preview.large],
+  ])
+    console.log(
+      `preview (${name}): save to new number in Chromium, median ${p.medianMs.toFixed(0)} ms over ${p.ms.length} saves (first ${p.firstMs.toFixed(0)} ms, slowest ${p.maxMs.toFixed(0)} ms); serve's first build ${(p.firstBuildMs / 1000).toFixed(1)} s, peak ${p.peakMB.toFixed(0)} MB; a full build of the same folder ${p.fullBuildS.toFixed(1)} s (${((1000 * p.fullBuildS) / p.medianMs).toFixed(0)}x a save)`,
+    );
 const spread = await runSpreadBench();
 console.log(
   `spread: compute of 8 models x 1,000 draws over 200 grid + 20 table redshifts (one massive neutrino each), whole process: ${spread.wholeMs.toFixed(0)} ms (without spreads ${spread.plainMs.toFixed(0)} ms; node -e 0 ${spread.nodeMs.toFixed(0)} ms)`,
@@ -87,6 +109,11 @@ console.log(
     spread_8x1000_ms: Number(spread.wholeMs.toFixed(0)),
     spread_8x1000_warm_ms: Number(spread.warmMs.toFixed(0)),
     draw_over_plain: Number(spread.drawOverPlain.toFixed(2)),
+    incremental_clean_s: Number(incremental.clean.seconds.toFixed(2)),
+    incremental_after_freeze_s: Number(incremental.afterFreeze.seconds.toFixed(2)),
+    incremental_clean_peak_mb: Math.round(incremental.clean.peakMB),
+    preview_demo_median_ms: preview ? Math.round(preview.small.medianMs) : null,
+    preview_200x5_median_ms: preview ? Math.round(preview.large.medianMs) : null,
     limits_peak_mb: Math.max(...limits.flatMap((l) => [l.compute.peakMB, l.build.peakMB])),
   }),
 );

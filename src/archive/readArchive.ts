@@ -5,7 +5,7 @@ import { readRegularFile } from "../common/readRegularFile.js";
 import { checkVersionChain, type ArchiveIssue } from "./checkVersionChain.js";
 import { HEADS_FILE, headLosses, readHeads } from "./headRecord.js";
 import { versionFileName, type StoredVersionRecord } from "../contract/versionRecord.js";
-import { lazyRecord, noteBytesHash, sha256OfBytes, type TrustedRecords } from "./trustedRecords.js";
+import { lazyRecord, metaOf, sha256OfBytes, type TrustedRecords } from "./trustedRecords.js";
 
 export interface ScenarioArchive {
   id: string;
@@ -127,11 +127,12 @@ export function readScenarioArchive(
   }
   const checked = checkVersionChain(displayPath(folder), id, files);
   issues.push(...checked.issues);
-  // Records checked here in full: the hash of their bytes, so that the next build may trust them.
+  // Records checked here in full become trusted ones too (the hash of their bytes noted for the next build): a site
+  // build holds the light fields of every version, and the tables of those it is rendering.
   if (trusted)
-    for (const r of checked.versions) {
+    checked.versions = checked.versions.map((r) => {
       const h = hashes.get(versionFileName(r.version));
-      if (h) noteBytesHash(r, h);
-    }
+      return h ? lazyRecord(join(folder, versionFileName(r.version)), h, metaOf(r)) : r;
+    });
   return { id, folder, versions: checked.versions };
 }

@@ -21,11 +21,6 @@ const metas = new WeakMap<object, RecordMeta>();
 
 export const sha256OfBytes = (bytes: Uint8Array) => createHash("sha256").update(bytes).digest("hex");
 
-/** Remembers the SHA-256 of the bytes a record was read from (for the next build's trusted records). */
-export function noteBytesHash(record: object, hash: string): void {
-  bytesHash.set(record, hash);
-}
-
 export const bytesHashOf = (record: object): string | undefined => bytesHash.get(record);
 
 /** What a later build needs to know of a record without reading it again. */

@@ -4,8 +4,11 @@ import { makeFolders, removeEmptyFolders } from "../common/makeFolders.js";
 import { existsSync, mkdirSync, readdirSync, realpathSync, renameSync, rmSync, statSync } from "node:fs";
 import { isLink } from "../common/readRegularFile.js";
 import { basename, dirname, join, resolve } from "node:path";
-import { defaultArchive, readLedger } from "./readLedger.js";
-import { renderSite } from "./renderSite.js";
+import { defaultArchive, ledgerFrom, readSiteInputs } from "./readLedger.js";
+import type { SiteUnit } from "../site/sitePages.js";
+import { applyStagedSite, hasApplyJournal, writeApplyJournal } from "./applySiteChanges.js";
+
+import { renderInBatches } from "./renderSite.js";
 import { issueLine, issueSummary } from "../scenario/scenarioIssue.js";
 
 import { SITE_MARKER } from "./siteMarker.js";
@@ -69,39 +72,49 @@ export async function buildSite(
     );
     return 2;
   }
+  removeAbandonedBuilds(out); // first: a build killed while applying its changes is finished before this one reads the site
   const ours = !options.clean && existsSync(join(out, SITE_MARKER));
   const previous = ours ? readSiteManifest(out) : null;
-  const { ledger, issues, warnings, archives } = readLedger(scenarios, archive, {
-    trusted: ours ? readTrustedRecords(out) : new Map(),
-    images: options.images,
-    toolVersion: options.toolVersion,
-    salt: buildSalt(),
-    reuse: previous
-      ? (path, key) => {
-          const u = previous.get(path);
-          return !!u && u.key === key && unitFilesPresent(out, u.files);
-        }
-      : undefined,
-  });
-  if (!ledger) {
-    for (const i of issues) process.stderr.write(`${issueLine(i)}\n`);
-    process.stderr.write(`${issueSummary(issues, `the site was not built and ${outDir} is untouched.`)}\n`);
+  const inputs = readSiteInputs(scenarios, archive, ours ? readTrustedRecords(out) : new Map());
+  if (inputs.issues.length > 0) {
+    for (const i of inputs.issues) process.stderr.write(`${issueLine(i)}\n`);
+    process.stderr.write(`${issueSummary(inputs.issues, `the site was not built and ${outDir} is untouched.`)}\n`);
     return 2;
   }
-  if (reportWarnings(warnings, options.strict ?? false)) return 2;
-  if (ledger.docs.length === 0) {
+  if (reportWarnings(inputs.warnings, options.strict ?? false)) return 2;
+  const ledgerOptions = { images: options.images, toolVersion: options.toolVersion, salt: buildSalt() };
+  const ledgerOf = (reuse: (path: string, key: string) => boolean) =>
+    ledgerFrom(inputs.docs, inputs.archives, archive, { ...ledgerOptions, reuse });
+  // The plan: every page's key, nothing built yet. A page is carried over when the last build of this folder made
+  // it from the same inputs and its files are all still there.
+  const plan = ledgerOf(() => true);
+  if (plan.docs.length === 0) {
     process.stderr.write(`error: no scenario files (*.yaml) in ${scenariosDir}\n`);
     return 2;
   }
-  removeAbandonedBuilds(out);
+  const carried = (path: string, key: string) => {
+    const u = previous?.get(path);
+    return !!u && u.key === key && unitFilesPresent(out, u.files.slice(0, 1));
+  };
+  const toRender = plan.units.filter((u) => !carried(u.path, u.key)).map((u) => u.path);
   const stamp = `${process.pid}-${Date.now()}`;
   const tmp = `${out}.building-${stamp}`;
   const old = `${out}.previous-${stamp}`;
   const made = makeFolders(dirname(out));
   let lateRefusal: unknown = null;
+  let units: SiteUnit[] = [];
+  // With a previous build and most of its pages unchanged, the new and changed files are staged and then moved into
+  // the site (src/cli/applySiteChanges.ts); otherwise the whole site is built beside it and swapped in.
+  const inPlace = previous !== null && toRender.length < plan.units.length / 2;
   try {
     namePathOnError(outDir, () => mkdirSync(tmp)); // a refused folder fails here, before Eleventy's parallel writes
-    const units = previous ? carryUnitFiles(out, tmp, ledger.units, previous) : ledger.units;
+    const renderSet = new Set(toRender);
+    const kept = plan.units.filter((u) => !renderSet.has(u.path));
+    const carriedUnits = !previous
+      ? []
+      : inPlace
+        ? kept.map((u) => ({ ...u, files: previous.get(u.path)!.files }))
+        : carryUnitFiles(out, tmp, kept, previous);
     // Eleventy's parallel writes (passthrough copies) can fail after, or without, the write() call failing: a late
     // refusal is the one already reported, and what such writes leave is removed again when the process ends.
     process.on("unhandledRejection", (late) => {
@@ -109,31 +122,40 @@ export async function buildSite(
       lateRefusal ??= late;
     });
     process.on("exit", () => {
-      if (existsSync(tmp)) rmSync(tmp, { recursive: true, force: true });
+      if (existsSync(tmp) && !hasApplyJournal(tmp)) rmSync(tmp, { recursive: true, force: true });
     });
-    await renderSite(ledger, tmp);
+    const rendered = await renderInBatches(ledgerOf, toRender, tmp);
+    units = [...carriedUnits, ...rendered].sort((x, y) => (x.path < y.path ? -1 : x.path > y.path ? 1 : 0));
     if (lateRefusal) throw lateRefusal;
     if (!existsSync(join(tmp, SITE_MARKER))) throw new Error("Eleventy finished without writing the site marker");
     writeFileSync(
       join(tmp, SITE_MANIFEST),
       siteManifestText(units as { path: string; key: string; files: string[] }[]),
     );
-    writeFileSync(join(tmp, SITE_RECORDS), trustedRecordsText(archives));
+    writeFileSync(join(tmp, SITE_RECORDS), trustedRecordsText(inputs.archives));
+    if (inPlace) {
+      const now = new Set(units.flatMap((u) => u.files ?? []));
+      const deletions = [...previous.values()].flatMap((u) => u.files).filter((f) => !now.has(f));
+      writeApplyJournal(tmp, deletions);
+    }
   } catch (e) {
     rmSync(tmp, { recursive: true, force: true });
     removeEmptyFolders(made);
     process.on("exit", () => removeEmptyFolders(made));
     throw systemRefusalInside(e, outDir) ?? e;
   }
-  if (existsSync(out)) renameSync(out, old);
-  renameSync(tmp, out);
-  rmSync(old, { recursive: true, force: true });
-  const frozen = ledger.units.filter((u) => /^[^/]+\/v\d+\/$/.test(u.path)).length;
-  const reused = ledger.units.filter((u) => u.files === null).length;
+  if (inPlace) applyStagedSite(tmp, out, SITE_MANIFEST);
+  else {
+    if (existsSync(out)) renameSync(out, old);
+    renameSync(tmp, out);
+    rmSync(old, { recursive: true, force: true });
+  }
+  const frozen = units.filter((u) => /^[^/]+\/v\d+\/$/.test(u.path)).length;
+  const reused = units.length - toRender.length;
   if (!quiet)
     process.stdout.write(
-      `built ${ledger.docs.length} scenario page${ledger.docs.length === 1 ? "" : "s"} and ${frozen} frozen version page${frozen === 1 ? "" : "s"} into ${outDir}/` +
-        `${reused ? ` (${ledger.units.length - reused} of ${ledger.units.length} pages rendered, the rest unchanged since the last build)` : ""}\n`,
+      `built ${plan.docs.length} scenario page${plan.docs.length === 1 ? "" : "s"} and ${frozen} frozen version page${frozen === 1 ? "" : "s"} into ${outDir}/` +
+        `${reused ? ` (${toRender.length} of ${units.length} pages rendered, the rest unchanged since the last build)` : ""}\n`,
     );
   return 0;
 }
@@ -175,8 +197,11 @@ function removeAbandonedBuilds(out: string): void {
   for (const name of readdirSync(parent)) {
     const m = pattern.exec(name);
     if (!m || Number(m[2]) === process.pid || alive(Number(m[2]))) continue;
-    // A build killed between its two renames left the previous site under .previous-*: put it back.
+    // A build killed between its two renames left the previous site under .previous-*: put it back. One killed
+    // while moving its staged files into the site is finished (its journal lists what remains to do).
     if (m[1] === "previous" && !existsSync(out)) renameSync(join(parent, name), out);
+    else if (m[1] === "building" && existsSync(out) && hasApplyJournal(join(parent, name)))
+      applyStagedSite(join(parent, name), out, SITE_MANIFEST);
     else rmSync(join(parent, name), { recursive: true, force: true });
   }
 }

@@ -60,7 +60,8 @@ archive (default: the folder "archive" inside the scenarios folder), then render
 with Eleventy into the output folder (default _site/): a page per scenario, a page per frozen version at
 <id>/vN/, a history page and diff pages. The site is built in a temporary folder and swapped in, so an invalid
 scenario, a damaged archive or a failed build leaves the previous site untouched. The same inputs and archive
-give byte-identical output.
+give byte-identical output. A build into a folder it built before renders only the pages whose inputs changed
+(a new version of cosmoledger renders everything again) and checks only the version files it has not checked.
 
 Beside every table the pages offer CSV, JSON, Markdown, LaTeX and HTML exports, and beside every chart PNG and
 SVG images (drawn at build time, about 0.5 s per page; kept in node_modules/.cache/cosmoledger/images, so a

@@ -16,7 +16,7 @@ import { buildSalt } from "./buildSalt.js";
 import { computeTables } from "./computeTables.js";
 import { ledgerFrom } from "./readLedger.js";
 import { loadScenarioFile } from "./readScenarioFile.js";
-import { renderSite } from "./renderSite.js";
+import { renderInBatches } from "./renderSite.js";
 import { scenarioFiles } from "./scenarioFiles.js";
 import { scenarioWarnings } from "./scenarioWarnings.js";
 import { readSiteManifest, SITE_MANIFEST, siteManifestText, type ManifestUnits } from "./siteManifest.js";
@@ -72,22 +72,14 @@ export class PreviewSite {
     this.files.clear();
   }
 
-  /**
-   * The archive, checked (versions read before are trusted by the hash of their bytes). Records read in full are
-   * noted, then read once more as trusted: those read their tables only while a page needs them.
-   */
+  /** The archive, checked; versions read before are trusted by the hash of their bytes (src/archive/trustedRecords.ts). */
   private readArchive(): { archives: ScenarioArchive[]; issues: ScenarioIssue[] } {
-    let a = readArchive(this.archiveDir, this.trusted);
-    let added = 0;
+    const a = readArchive(this.archiveDir, this.trusted);
     for (const x of a.archives)
       for (const r of x.versions) {
         const h = bytesHashOf(r);
-        if (h && !this.trusted.has(h)) {
-          this.trusted.set(h, metaOf(r));
-          added++;
-        }
+        if (h && !this.trusted.has(h)) this.trusted.set(h, metaOf(r));
       }
-    if (added > 0 && a.issues.length === 0) a = readArchive(this.archiveDir, this.trusted);
     return {
       archives: a.archives,
       issues: a.issues.map((i) => ({ file: i.file, line: 1, column: 1, path: "", message: i.message })),
@@ -141,12 +133,18 @@ export class PreviewSite {
         reused: 0,
       };
     const previous = this.units;
-    const ledger = ledgerFrom(docs, this.archive.archives, this.archiveDir, {
-      images: this.options.images,
-      salt: `${buildSalt()}\npreview`,
-      reuse: (path, key) => previous.get(path)?.key === key,
-    });
-    await renderSite(ledger, this.outDir, true);
+    const ledgerOf = (reuse: (path: string, key: string) => boolean) =>
+      ledgerFrom(docs, this.archive!.archives, this.archiveDir, {
+        images: this.options.images,
+        salt: `${buildSalt()}\npreview`,
+        reuse,
+      });
+    const plan = ledgerOf(() => true);
+    const toRender = plan.units.filter((u) => previous.get(u.path)?.key !== u.key).map((u) => u.path);
+    const built = new Map(
+      (await renderInBatches(ledgerOf, toRender, this.outDir, { preview: true })).map((u) => [u.path, u]),
+    );
+    const ledger = { units: plan.units.map((u) => built.get(u.path) ?? u) };
     const next: ManifestUnits = new Map();
     for (const u of ledger.units) next.set(u.path, u.files ? { key: u.key, files: u.files } : previous.get(u.path)!);
     // Files the site no longer has: pages of removed scenarios, versions or diffs, and exports a page dropped.

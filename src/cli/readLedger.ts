@@ -19,33 +19,40 @@ export { scenarioFiles };
 /** The archive that belongs to a scenarios folder when none is named: a folder "archive" inside it. */
 export const defaultArchive = (scenariosDir: string) => join(scenariosDir, "archive");
 
+/** What a site is built from: every scenario file computed, and the checked archive; or the issues that stop it. */
+export interface SiteInputs {
+  docs: TablesDocument[];
+  archives: ScenarioArchive[];
+  issues: ScenarioIssue[];
+  warnings: ScenarioIssue[];
+}
+
 /**
  * Reads, validates and computes every scenario of a folder and reads the archive (checking every hash and the
- * chains); either a ledger or the issues that stop the build. `salt` and `reuse` let a build skip the pages it
- * already has (src/site/sitePages.ts, SiteUnit).
+ * chains; with `trusted`, files a previous build checked are trusted by the hash of their bytes).
  */
+export function readSiteInputs(dir: string, archiveDir: string, trusted?: TrustedRecords): SiteInputs {
+  const loaded = loadScenarioFiles(scenarioFiles(dir));
+  const issues: ScenarioIssue[] = [...loaded.issues];
+  const files = loaded.scenarios.map((scenario) => ({ scenario, doc: computeTables(scenario) }));
+  const archive = readArchive(archiveDir, trusted);
+  for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
+  const warnings = files.flatMap((f) => scenarioWarnings(f.scenario, f.doc));
+  return { docs: files.map((f) => f.doc), archives: archive.archives, issues, warnings };
+}
+
+/** readSiteInputs, then the ledger of every page; either a ledger or the issues that stop the build. */
 export function readLedger(
   dir: string,
   archiveDir: string = defaultArchive(dir),
   options: LedgerOptions = {},
-): { ledger: SiteLedger | null; issues: ScenarioIssue[]; warnings: ScenarioIssue[]; archives: ScenarioArchive[] } {
-  const loaded = loadScenarioFiles(scenarioFiles(dir));
-  const issues: ScenarioIssue[] = [...loaded.issues];
-  const files = loaded.scenarios.map((scenario) => ({ scenario, doc: computeTables(scenario) }));
-  const archive = readArchive(archiveDir, options.trusted);
-  for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
-  const warnings = files.flatMap((f) => scenarioWarnings(f.scenario, f.doc));
-  if (issues.length > 0) return { ledger: null, issues, warnings, archives: [] };
+): { ledger: SiteLedger | null; issues: ScenarioIssue[]; warnings: ScenarioIssue[] } {
+  const inputs = readSiteInputs(dir, archiveDir, options.trusted);
+  if (inputs.issues.length > 0) return { ledger: null, issues: inputs.issues, warnings: inputs.warnings };
   return {
-    ledger: ledgerFrom(
-      files.map((f) => f.doc),
-      archive.archives,
-      archiveDir,
-      options,
-    ),
+    ledger: ledgerFrom(inputs.docs, inputs.archives, archiveDir, options),
     issues: [],
-    warnings,
-    archives: archive.archives,
+    warnings: inputs.warnings,
   };
 }
 

@@ -29,7 +29,7 @@ export async function servePreview(args: string[], cwd: string, timeoutMs = 120_
         if (pattern.test(out.slice(from))) {
           clearInterval(poll);
           ok();
-        } else if (child.exitCode !== null || Date.now() > deadline) {
+        } else if (child.exitCode !== null || child.signalCode !== null || Date.now() > deadline) {
           clearInterval(poll);
           fail(new Error(`serve did not print ${pattern} (exit ${child.exitCode}):\n${out}\n${err}`));
         }
