@@ -138,8 +138,7 @@ export async function serveCommand(o: ServeOptions): Promise<number> {
     `cosmoledger serve: previewing ${displayPath(scenariosDir)}${o.archive ? ` (archive ${displayPath(o.archive)})` : ""} at ${address}\n` +
       `  pages are written to ${o.out ?? out}${o.out ? "" : " (removed on exit)"}; Ctrl-C stops\n`,
   );
-  await rebuild();
-
+  // Watching starts before the first build: a save made while it runs is not missed.
   const { watch } = await import("chokidar");
   const watcher = watch([scenarios, archive], { ignoreInitial: true, ignored: (p) => inside(p, out) });
   let timer: NodeJS.Timeout | null = null;
@@ -153,21 +152,28 @@ export async function serveCommand(o: ServeOptions): Promise<number> {
     }, SETTLE_MS);
   });
 
-  return new Promise((done) => {
+  // Ctrl-C is honoured from here on, during the first build too: the server, the watcher and a temporary output go.
+  const stopped = new Promise<number>((done) => {
     const stop = async () => {
       process.off("SIGINT", stop);
       process.off("SIGTERM", stop);
       if (timer) clearTimeout(timer);
       await watcher.close();
       await server.close();
-      await running;
-      if (o.out === undefined) rmSync(out, { recursive: true, force: true });
+      if (o.out === undefined) {
+        // A build still running is not waited for: the process ends now, and the folder goes as it ends.
+        process.on("exit", () => rmSync(out, { recursive: true, force: true }));
+        rmSync(out, { recursive: true, force: true });
+      }
       process.stdout.write("stopped\n");
       done(0);
+      if (running) setImmediate(() => process.exit(0));
     };
     process.on("SIGINT", stop);
     process.on("SIGTERM", stop);
   });
+  void rebuild();
+  return stopped;
 }
 
 const inside = (path: string, folder: string) => {

@@ -5,8 +5,18 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { spawnSync } from "node:child_process";
 import { createHash } from "node:crypto";
-import { mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from "node:fs";
-import { join } from "node:path";
+import {
+  copyFileSync,
+  existsSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  renameSync,
+  rmSync,
+  statSync,
+  writeFileSync,
+} from "node:fs";
+import { dirname, join } from "node:path";
 import { ROOT, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
 
 const scenario = (h0: number) =>
@@ -85,17 +95,20 @@ describe("incremental builds", { timeout: 600_000 }, () => {
     expect(tree(site)).toEqual(cleanTree());
   });
 
-  it("after a freeze: the new version page, the scenario's other versions (their banner names the latest) and its diffs", () => {
+  it("after a freeze: the new version page, its diffs, the history and the live page; earlier version pages stay as they were", () => {
     const f = runCli(["freeze", join(scenarios, "shelf.yaml"), "-m", "H0 70.5"], dir);
     expect(f.code, f.stderr).toBe(0);
     const inode = statSync(join(site, "other/index.html")).ino;
+    const v1 = statSync(join(site, "shelf/v1/index.html")).ino;
     const r = build();
     expect(r.code, r.stderr).toBe(0);
     const n = rendered(r.stdout);
     expect(n!.rendered).toBeLessThan(n!.of);
     expect(tree(site)).toEqual(cleanTree());
-    // The untouched scenario's page was carried over, not rendered: its file is the previous build's (a hard link).
+    // The untouched scenario's page was not rendered again: its file is the previous build's own.
     expect(statSync(join(site, "other/index.html")).ino).toBe(inode);
+    // A frozen page is made from its record alone (the latest version comes from shelf/latest.js).
+    expect(statSync(join(site, "shelf/v1/index.html")).ino).toBe(v1);
   });
 
   it("after a scenario file is deleted: its pages and downloads are gone, as in a clean build", () => {
@@ -123,10 +136,44 @@ describe("incremental builds", { timeout: 600_000 }, () => {
     expect(after).toEqual(tree(clean));
   });
 
-  it("a page removed from the site by hand is rendered again (a reused page must have all its files)", () => {
+  it("a page whose index.html was removed from the site by hand is rendered again", () => {
     rmSync(join(site, "shelf/v2/index.html"));
     const r = build();
     expect(r.code, r.stderr).toBe(0);
     expect(tree(site)).toEqual(cleanTree());
+  });
+
+  it("a build killed while moving its staged changes into the site is finished by the next build", () => {
+    // The state such a kill leaves, made by hand: the next site (built clean elsewhere) staged as the changed and
+    // new files plus a journal of deletions, half of the staged files already moved in, the site's page list gone
+    // (the apply removes it first), and the staging folder named after a process that no longer runs.
+    writeFileSync(join(scenarios, "shelf.yaml"), scenario(71.5));
+    const next = join(dir, "next-site");
+    const n = runCli(["build", "--scenarios", scenarios, "--out", next, "--skip-images", "--quiet"], dir);
+    expect(n.code, n.stderr).toBe(0);
+    const now = new Map(tree(site));
+    const wanted = tree(next);
+    const dead = spawnSync(process.execPath, ["-e", "0"]).pid;
+    const staged = `${site}.building-${dead}-1`;
+    const changed = wanted.filter(([f, h]) => now.get(f) !== h).map(([f]) => f);
+    expect(changed).toContain(".cosmoledger-pages.json");
+    for (const f of changed) {
+      mkdirSync(dirname(join(staged, f)), { recursive: true });
+      copyFileSync(join(next, f), join(staged, f));
+    }
+    const deletions = [...now.keys()].filter((f) => !wanted.some(([g]) => g === f));
+    writeFileSync(join(staged, ".cosmoledger-apply.json"), JSON.stringify({ deletions }));
+    rmSync(join(site, ".cosmoledger-pages.json"));
+    const pages = changed.filter((f) => f !== ".cosmoledger-pages.json");
+    for (const f of pages.slice(0, Math.floor(pages.length / 2))) {
+      mkdirSync(dirname(join(site, f)), { recursive: true });
+      renameSync(join(staged, f), join(site, f));
+    }
+    const r = build();
+    expect(r.code, r.stderr).toBe(0);
+    // Finished, not thrown away: the staged page list came in with the pages, so nothing needed rendering.
+    expect(rendered(r.stdout)?.rendered).toBe(0);
+    expect(existsSync(staged)).toBe(false);
+    expect(tree(site)).toEqual(wanted);
   });
 });
