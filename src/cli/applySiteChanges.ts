@@ -53,16 +53,19 @@ export function applyStagedSite(staged: string, site: string, manifest: string):
   };
   walk(staged);
   if (existsSync(join(staged, manifest))) renameSync(join(staged, manifest), join(site, manifest));
-  for (const f of deletions) {
-    rmSync(join(site, f), { force: true });
-    for (let d = dirname(join(site, f)); d.length > site.length; d = dirname(d)) {
-      try {
-        if (readdirSync(d).length > 0) break;
-        rmdirSync(d);
-      } catch {
-        break;
-      }
+  for (const f of deletions) removeFileAndEmptyFolders(site, f);
+  rmSync(staged, { recursive: true, force: true });
+}
+
+/** Removes one file of a site, then each folder above it that it leaves empty (never the site folder itself). */
+export function removeFileAndEmptyFolders(site: string, file: string): void {
+  rmSync(join(site, file), { force: true });
+  for (let d = dirname(join(site, file)); d.length > site.length; d = dirname(d)) {
+    try {
+      if (readdirSync(d).length > 0) return;
+      rmdirSync(d);
+    } catch {
+      return;
     }
   }
-  rmSync(staged, { recursive: true, force: true });
 }

@@ -75,7 +75,7 @@ export async function buildSite(
   removeAbandonedBuilds(out); // first: a build killed while applying its changes is finished before this one reads the site
   const ours = !options.clean && existsSync(join(out, SITE_MARKER));
   const previous = ours ? readSiteManifest(out) : null;
-  const inputs = readSiteInputs(scenarios, archive, ours ? readTrustedRecords(out) : new Map());
+  const inputs = readSiteInputs(scenarios, archive, ours ? readTrustedRecords(out, buildSalt()) : new Map());
   if (inputs.issues.length > 0) {
     for (const i of inputs.issues) process.stderr.write(`${issueLine(i)}\n`);
     process.stderr.write(`${issueSummary(inputs.issues, `the site was not built and ${outDir} is untouched.`)}\n`);
@@ -94,7 +94,7 @@ export async function buildSite(
   }
   const carried = (path: string, key: string) => {
     const u = previous?.get(path);
-    return !!u && u.key === key && unitFilesPresent(out, u.files.slice(0, 1));
+    return !!u && u.key === key && unitFilesPresent(out, u.files);
   };
   const toRender = plan.units.filter((u) => !carried(u.path, u.key)).map((u) => u.path);
   const stamp = `${process.pid}-${Date.now()}`;
@@ -132,7 +132,7 @@ export async function buildSite(
       join(tmp, SITE_MANIFEST),
       siteManifestText(units as { path: string; key: string; files: string[] }[]),
     );
-    writeFileSync(join(tmp, SITE_RECORDS), trustedRecordsText(inputs.archives));
+    writeFileSync(join(tmp, SITE_RECORDS), trustedRecordsText(inputs.archives, buildSalt()));
     if (inPlace) {
       const now = new Set(units.flatMap((u) => u.files ?? []));
       const deletions = [...previous.values()].flatMap((u) => u.files).filter((f) => !now.has(f));

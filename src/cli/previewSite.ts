@@ -1,5 +1,5 @@
-import { existsSync, readdirSync, rmdirSync, rmSync, writeFileSync } from "node:fs";
-import { dirname, join } from "node:path";
+import { existsSync, writeFileSync } from "node:fs";
+import { join } from "node:path";
 import { readArchive, type ScenarioArchive } from "../archive/readArchive.js";
 import { bytesHashOf, metaOf, type TrustedRecords } from "../archive/trustedRecords.js";
 import type { TablesDocument } from "../contract/tablesDocument.js";
@@ -15,8 +15,9 @@ import {
 import { buildSalt } from "./buildSalt.js";
 import { computeTables } from "./computeTables.js";
 import { ledgerFrom } from "./readLedger.js";
-import { loadScenarioFile } from "./readScenarioFile.js";
+import { idUsedTwice, loadScenarioFile } from "./readScenarioFile.js";
 import { renderInBatches } from "./renderSite.js";
+import { removeFileAndEmptyFolders } from "./applySiteChanges.js";
 import { scenarioFiles } from "./scenarioFiles.js";
 import { scenarioWarnings } from "./scenarioWarnings.js";
 import { readSiteManifest, SITE_MANIFEST, siteManifestText, type ManifestUnits } from "./siteManifest.js";
@@ -104,14 +105,9 @@ export class PreviewSite {
     const docs: TablesDocument[] = [];
     for (const r of results) {
       if (!r.scenario || !r.doc) continue;
-      const other = seen.get(r.scenario.id);
-      if (other) {
-        const message = `scenario id ${r.scenario.id} is also used by ${other}; ids must be unique across the files of one run`;
-        issues.push({ file: r.scenario.source.path, line: 1, column: 1, path: "id", message });
-        continue;
-      }
-      seen.set(r.scenario.id, r.scenario.source.path);
-      docs.push(r.doc);
+      const twice = idUsedTwice(seen, r.scenario);
+      if (twice) issues.push(twice);
+      else docs.push(r.doc);
     }
     this.archive ??= this.readArchive();
     issues.push(...this.archive.issues);
@@ -144,9 +140,9 @@ export class PreviewSite {
     const built = new Map(
       (await renderInBatches(ledgerOf, toRender, this.outDir, { preview: true })).map((u) => [u.path, u]),
     );
-    const ledger = { units: plan.units.map((u) => built.get(u.path) ?? u) };
+    const units = plan.units.map((u) => built.get(u.path) ?? u);
     const next: ManifestUnits = new Map();
-    for (const u of ledger.units) next.set(u.path, u.files ? { key: u.key, files: u.files } : previous.get(u.path)!);
+    for (const u of units) next.set(u.path, u.files ? { key: u.key, files: u.files } : previous.get(u.path)!);
     // Files the site no longer has: pages of removed scenarios, versions or diffs, and exports a page dropped.
     const kept = new Set([...next.values()].flatMap((u) => u.files));
     for (const u of previous.values())
@@ -156,13 +152,13 @@ export class PreviewSite {
       join(this.outDir, SITE_MANIFEST),
       siteManifestText([...next].map(([path, u]) => ({ path, ...u })).sort((a, b) => (a.path < b.path ? -1 : 1))),
     );
-    const rendered = ledger.units.filter((u) => u.files !== null).map((u) => u.path);
+    const rendered = [...built.keys()];
     return {
       errors: [],
       warnings,
       summary: "",
       rendered: ["", ...rendered],
-      reused: ledger.units.length - rendered.length,
+      reused: units.length - rendered.length,
     };
   }
 }
@@ -176,17 +172,5 @@ function computeFile(file: string): FileResult {
   } catch (e) {
     if (!(e instanceof ScenarioInputError)) throw e;
     return { scenario: null, doc: null, issues: e.issues, warnings: [] };
-  }
-}
-
-function removeFileAndEmptyFolders(root: string, file: string): void {
-  rmSync(join(root, file), { force: true });
-  for (let d = dirname(join(root, file)); d.length > root.length; d = dirname(d)) {
-    try {
-      if (readdirSync(d).length > 0) return;
-      rmdirSync(d);
-    } catch {
-      return;
-    }
   }
 }

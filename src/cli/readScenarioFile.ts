@@ -82,16 +82,22 @@ export function loadScenarioFiles(files: string[]): { scenarios: ResolvedScenari
     const r = loadScenarioFile(file);
     issues.push(...r.issues);
     if (!r.scenario) continue;
-    const other = seen.get(r.scenario.id);
-    if (other) {
-      const message = `scenario id ${r.scenario.id} is also used by ${other}; ids must be unique across the files of one run`;
-      issues.push({ file: r.scenario.source.path, line: 1, column: 1, path: "id", message });
-      continue;
-    }
-    seen.set(r.scenario.id, r.scenario.source.path);
-    scenarios.push(r.scenario);
+    const twice = idUsedTwice(seen, r.scenario);
+    if (twice) issues.push(twice);
+    else scenarios.push(r.scenario);
   }
   return { scenarios, issues };
+}
+
+/** The issue of a scenario whose id an earlier file of the same run uses (`seen`: id -> file), or null (then noted). */
+export function idUsedTwice(seen: Map<string, string>, scenario: ResolvedScenario): ScenarioIssue | null {
+  const other = seen.get(scenario.id);
+  if (other === undefined) {
+    seen.set(scenario.id, scenario.source.path);
+    return null;
+  }
+  const message = `scenario id ${scenario.id} is also used by ${other}; ids must be unique across the files of one run`;
+  return { file: scenario.source.path, line: 1, column: 1, path: "id", message };
 }
 
 /**

@@ -89,20 +89,27 @@ export function carryUnitFiles(fromDir: string, toDir: string, units: SiteUnit[]
 export const SITE_RECORDS = ".cosmoledger-records.json";
 const RECORDS_FORMAT = "cosmoledger.site-records/1";
 
-/** The version files a previous build of `siteDir` checked in full (empty when there is no readable list). */
-export function readTrustedRecords(siteDir: string): TrustedRecords {
+/**
+ * The version files a previous build of `siteDir` checked in full: empty when there is no readable list, or when it
+ * was written by other code (`salt`, src/cli/buildSalt.ts): a newer cosmoledger checks every file again by its rules.
+ */
+export function readTrustedRecords(siteDir: string, salt: string): TrustedRecords {
   const file = join(siteDir, SITE_RECORDS);
   if (!existsSync(file)) return new Map();
   try {
-    const m = JSON.parse(readFileSync(file, "utf8")) as { format: string; records: [string, RecordMeta][] };
-    return m.format === RECORDS_FORMAT ? new Map(m.records) : new Map();
+    const m = JSON.parse(readFileSync(file, "utf8")) as {
+      format: string;
+      salt: string;
+      records: [string, RecordMeta][];
+    };
+    return m.format === RECORDS_FORMAT && m.salt === salt ? new Map(m.records) : new Map();
   } catch {
     return new Map(); // a damaged list costs a full check, never a wrong page
   }
 }
 
 /** The list for the next build: every version of the archive, in the order of the hashes of their bytes. */
-export function trustedRecordsText(archives: ScenarioArchive[]): string {
+export function trustedRecordsText(archives: ScenarioArchive[], salt: string): string {
   const records: [string, RecordMeta][] = [];
   for (const a of archives)
     for (const r of a.versions) {
@@ -110,5 +117,5 @@ export function trustedRecordsText(archives: ScenarioArchive[]): string {
       if (h) records.push([h, metaOf(r)]);
     }
   records.sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
-  return `${JSON.stringify({ format: RECORDS_FORMAT, records })}\n`;
+  return `${JSON.stringify({ format: RECORDS_FORMAT, salt, records })}\n`;
 }

@@ -4,29 +4,36 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createServer } from "node:net";
 import { mkdirSync, readdirSync, rmSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
-import { compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
+import { spawnSync } from "node:child_process";
+import { BIN, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
 import { servePreview, type ServedPreview } from "../helpers/servePreview.js";
 
 const scenario = (id: string, h0: number) =>
   `title: ${id}\nid: ${id}\nmodels:\n  - { id: a, H0: ${h0}, Omega_m: 0.3 }\n`;
 
+/** serve that must refuse: a generous deadline, so that a serve that wrongly starts fails the test, not CI's clock. */
+function refused(args: string[], cwd = process.cwd()) {
+  const r = spawnSync(process.execPath, [BIN, "serve", ...args], { cwd, encoding: "utf8", timeout: 120_000 });
+  return { code: r.status, stderr: r.stderr };
+}
+
 describe("cosmoledger serve refuses what it cannot do, with exit 2 and one line", () => {
   beforeAll(() => compileProject());
 
   it("a port outside 0 to 65535", () => {
-    const r = runCli(["serve", "--port", "70000"]);
+    const r = refused(["--port", "70000"]);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/--port 70000: a port is a whole number from 0 \(any free port\) to 65535/);
   });
 
   it("a scenarios folder that does not exist", () => {
-    const r = runCli(["serve", "--scenarios", "no-such-folder"]);
+    const r = refused(["--scenarios", "no-such-folder"]);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/scenarios folder no-such-folder does not exist/);
   });
 
   it("file names instead of a folder", () => {
-    const r = runCli(["serve", "scenarios/tidewater-geometry.yaml"]);
+    const r = refused(["scenarios/tidewater-geometry.yaml"]);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/takes no file names; use --scenarios DIR/);
   });
@@ -35,7 +42,7 @@ describe("cosmoledger serve refuses what it cannot do, with exit 2 and one line"
     const dir = tempDir();
     mkdirSync(join(dir, "mine"));
     writeFileSync(join(dir, "mine/notes.txt"), "mine\n");
-    const r = runCli(["serve", "--scenarios", join(process.cwd(), "scenarios"), "--out", "mine", "--port", "0"], dir);
+    const r = refused(["--scenarios", join(process.cwd(), "scenarios"), "--out", "mine", "--port", "0"], dir);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/refusing to write into mine: it is not empty and was not built by cosmoledger/);
     expect(readdirSync(join(dir, "mine"))).toEqual(["notes.txt"]);
@@ -46,7 +53,7 @@ describe("cosmoledger serve refuses what it cannot do, with exit 2 and one line"
     await new Promise<void>((ok) => blocker.listen(0, "127.0.0.1", () => ok()));
     const port = (blocker.address() as { port: number }).port;
     try {
-      const r = runCli(["serve", "--port", String(port)]);
+      const r = refused(["--port", String(port)]);
       expect(r.code).toBe(2);
       expect(r.stderr).toMatch(/the port is in use; choose another with --port/);
     } finally {

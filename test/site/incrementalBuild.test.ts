@@ -136,11 +136,32 @@ describe("incremental builds", { timeout: 600_000 }, () => {
     expect(after).toEqual(tree(clean));
   });
 
-  it("a page whose index.html was removed from the site by hand is rendered again", () => {
+  it("a page with any of its files removed from the site by hand is rendered again", () => {
     rmSync(join(site, "shelf/v2/index.html"));
+    rmSync(join(site, "shelf/v1/tables.json"));
     const r = build();
     expect(r.code, r.stderr).toBe(0);
     expect(tree(site)).toEqual(cleanTree());
+  });
+
+  it("a site whose list of checked version files names other code checks every version file again", () => {
+    // The list is tied to the code that checked (its salt); a list from other code must not spare a check.
+    const list = join(site, ".cosmoledger-records.json");
+    const kept = JSON.parse(readFileSync(list, "utf8"));
+    expect(kept.records.length).toBeGreaterThan(0);
+    // A version file altered after freezing, and a list that claims its new bytes were checked by other code.
+    const v1 = join(scenarios, "archive/shelf/v1.json");
+    const original = readFileSync(v1, "utf8");
+    const altered = original.replace('"message":"H0 67"', '"message":"H0 67!"');
+    expect(altered).not.toBe(original);
+    writeFileSync(v1, altered);
+    const hash = createHash("sha256").update(altered).digest("hex");
+    const forged = kept.records.map(([h, m]: [string, unknown]) => [h === kept.records[0][0] ? hash : h, m]);
+    writeFileSync(list, JSON.stringify({ ...kept, salt: "other code", records: forged }));
+    const r = build();
+    writeFileSync(v1, original);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/shelf\/v1\.json\S*: content does not match its sha256/);
   });
 
   it("a build killed while moving its staged changes into the site is finished by the next build", () => {
