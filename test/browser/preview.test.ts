@@ -77,11 +77,23 @@ describe.skipIf(!chromiumPath)("cosmoledger serve in headless Chromium", { timeo
     expect(check.code).toBe(2);
     const lines = check.stderr.split("\n").filter((l) => l.startsWith("error: "));
     expect(lines.length).toBeGreaterThan(0);
-    await page.waitForSelector(".preview-overlay:not([hidden])", { timeout: 60_000 });
-    const overlay = await page.textContent(".preview-overlay pre");
-    // check names the file as it was given (scenarios/live.yaml); the server as it watches it (absolute): same words after it.
+    // check names the file as it was given (scenarios/live.yaml); the server as it watches it (absolute): same words
+    // after it. Waited for, not read once: a save seen half-written shows its own (different) errors first.
     const strip = (l: string) => l.replace(/^error: \S*live\.yaml:/, "");
-    expect((overlay ?? "").split("\n").map(strip)).toEqual(lines.map(strip));
+    const expected = lines.map(strip).join("\n");
+    await page
+      .waitForFunction(
+        (want) =>
+          (document.querySelector(".preview-overlay:not([hidden]) pre")?.textContent ?? "")
+            .split("\n")
+            .map((l) => l.replace(/^error: \S*live\.yaml:/, ""))
+            .join("\n") === want,
+        expected,
+        { timeout: 60_000 },
+      )
+      .catch(() => undefined);
+    const overlay = await page.textContent(".preview-overlay pre");
+    expect((overlay ?? "").split("\n").map(strip).join("\n")).toBe(expected);
     expect(await page.evaluate(() => document.body.classList.contains("preview-stale"))).toBe(true);
     expect(await text()).toContain("After"); // the last good page stays underneath
     expect(await page.getAttribute(".preview-overlay", "role")).toBe("alert");
