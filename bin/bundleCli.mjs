@@ -5,7 +5,7 @@
 // directly, so the site shares one copy of every module with .eleventy.js.
 import { build } from "esbuild";
 import { rmSync } from "node:fs";
-import { join, resolve } from "node:path";
+import { dirname, join, resolve } from "node:path";
 
 const ROOT = resolve(import.meta.dirname, "..");
 const out = join(ROOT, "dist/bundle");
@@ -55,4 +55,55 @@ await build({
   legalComments: "none",
   minifyWhitespace: true,
   minifySyntax: true,
+});
+
+// The what-if engine of the pages: the scenario pipeline (src/site/browser/whatIfEngine.ts) as one classic script.
+// Node built-ins get browser stand-ins: SHA-256 from @noble/hashes; the precompiled scenario validator imported
+// directly (it is loaded with require() on Node); the helper thread of spreads, samples files (csv-parse) and TeX
+// label checking, which a what-if scenario never reaches, fail loudly if they ever are.
+const dist = join(ROOT, "dist");
+await build({
+  entryPoints: [join(dist, "site/browser/whatIfEngine.js")],
+  outfile: join(out, "what-if-engine.js"),
+  bundle: true,
+  format: "iife",
+  globalName: "cosmoledgerWhatIfEngine",
+  platform: "browser",
+  target: "es2020",
+  logLevel: "warning",
+  legalComments: "none",
+  minify: true,
+  plugins: [
+    {
+      name: "browser-stand-ins",
+      setup(b) {
+        b.onResolve({ filter: /^node:crypto$/ }, () => ({ path: join(dist, "site/browser/shims/nodeCrypto.js") }));
+        b.onResolve({ filter: /^(node:(worker_threads|os|module|url)|csv-parse\/sync)$/ }, (a) => ({
+          path: a.path,
+          namespace: "absent",
+        }));
+        b.onLoad({ filter: /.*/, namespace: "absent" }, (a) => ({
+          contents: `const absent = () => { throw new Error("${a.path} is not available in a page"); };
+export const Worker = class { constructor() { absent(); } };
+export const availableParallelism = () => 1;
+export const parentPort = null;
+export const createRequire = () => absent;
+export const fileURLToPath = absent;
+export const parse = absent;`,
+          loader: "js",
+        }));
+        b.onLoad({ filter: /scenario[\\/]validateScenarioSchema\.js$/ }, async (a) => {
+          const { readFile } = await import("node:fs/promises");
+          const text = await readFile(a.path, "utf8");
+          const loading = "const validate = await loadValidator();";
+          if (!text.includes(loading)) throw new Error("validateScenarioSchema.js no longer loads its validator as expected");
+          return {
+            contents: text.replace(loading, 'import validate from "../schema/scenarioValidator.cjs";'),
+            loader: "js",
+            resolveDir: dirname(a.path),
+          };
+        });
+      },
+    },
+  ],
 });

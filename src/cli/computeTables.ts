@@ -1,20 +1,2 @@
-import { parseScenarioYaml } from "../scenario/parseScenarioYaml.js";
-import { ScenarioInputError } from "../scenario/scenarioIssue.js";
-import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
-import { buildTablesDocument } from "../tables/buildTablesDocument.js";
-import { ModelComputeError } from "../tables/modelComputeError.js";
-import type { TablesDocument } from "../contract/tablesDocument.js";
-
-/**
- * The tables document of a scenario; a model the engine cannot compute to its accuracy becomes a located input error
- * (file:line:column of the model, exit 2), never an unexpected failure.
- */
-export function computeTables(s: ResolvedScenario, options: { chartGrid?: boolean } = {}): TablesDocument {
-  try {
-    return buildTablesDocument(s, options);
-  } catch (e) {
-    if (!(e instanceof ModelComputeError)) throw e;
-    const at = parseScenarioYaml(s.source.text, s.source.path).locate(["models", e.modelIndex], "value");
-    throw new ScenarioInputError([{ file: s.source.path, ...at, path: `models[${e.modelIndex}]`, message: e.message }]);
-  }
-}
+// `compute`, `build`, `freeze` and `verify` compute through the same located step as the pages' what-if engine.
+export { locatedTables as computeTables } from "../tables/locatedTables.js";
