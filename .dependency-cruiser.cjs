@@ -13,6 +13,7 @@ const LAYERS = [
   "archive",
   "exports",
   "site",
+  "pageEngine",
   "cli",
 ];
 
@@ -81,6 +82,14 @@ module.exports = {
       severity: "error",
       from: { path: "^content/assets/" },
       to: {},
+    },
+    {
+      name: "page-engine-runs-in-a-browser",
+      comment:
+        "src/pageEngine is bundled for the pages' what-if panel: it composes the scenario, compute and presentation layers and imports no Node built-in itself (node:crypto reaches it only through the browser stand-in the bundler puts in its place).",
+      severity: "error",
+      from: { path: "^src/pageEngine/" },
+      to: { dependencyTypes: ["core"] },
     },
     {
       name: "browser-code-is-pure",

@@ -9,6 +9,8 @@ import { formatIssue } from "./dist/scenario/scenarioIssue.js";
 import { ENGINE_VERSION } from "./dist/engine/engineVersion.js";
 import { SITE_MARKER } from "./dist/cli/siteMarker.js";
 import { writeExportFiles } from "./dist/exports/exportFiles.js";
+import { WHAT_IF_FORM } from "./dist/site/whatIfFields.js";
+import { PUBLISHED_SETS } from "./dist/scenario/publishedSets.js";
 import { mkdirSync, writeFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 
@@ -42,6 +44,11 @@ export default function (eleventyConfig) {
     fermiDirac: FERMI_DIRAC_TEX,
   });
   eleventyConfig.addGlobalData("tool", { name: "cosmoledger", engine: ENGINE_VERSION });
+  // The what-if panel's inputs (from the scenario schema) and the published sets a what-if may start from.
+  eleventyConfig.addGlobalData("whatIf", {
+    form: WHAT_IF_FORM,
+    published: PUBLISHED_SETS.map((s) => ({ id: s.id, title: s.title })),
+  });
   eleventyConfig.addWatchTarget(scenariosDir);
   eleventyConfig.addWatchTarget(archiveDir);
   // Mark the output as ours, so that `cosmoledger build` may replace a folder that `npm start` wrote.
@@ -69,6 +76,10 @@ export default function (eleventyConfig) {
   // The page's charts: src/site/browser/charts.ts, bundled by `npm run build:ts` with the configuration builder that
   // the exported images use.
   eleventyConfig.addPassthroughCopy({ "dist/bundle/charts.js": "assets/charts.js" });
+  // The what-if panel (src/site/browser/whatIfPanel.ts) and the engine it loads when a reader opens it
+  // (src/pageEngine/whatIfEngine.ts, the scenario pipeline bundled for the browser): one copy per site.
+  eleventyConfig.addPassthroughCopy({ "dist/bundle/what-if-panel.js": "assets/what-if-panel.js" });
+  eleventyConfig.addPassthroughCopy({ "dist/bundle/what-if-engine.js": "assets/what-if-engine.js" });
 
   // Under `cosmoledger build` (which reports the build itself), Eleventy's timing notes ("[11ty] Benchmark ...") are
   // silenced: a slow machine must not add lines to a command's output.

@@ -57,13 +57,14 @@ await build({
   minifySyntax: true,
 });
 
-// The what-if engine of the pages: the scenario pipeline (src/site/browser/whatIfEngine.ts) as one classic script.
+// The what-if engine of the pages: the scenario pipeline (src/pageEngine/whatIfEngine.ts) as one classic script,
+// loaded by a page when its reader opens the what-if panel.
 // Node built-ins get browser stand-ins: SHA-256 from @noble/hashes; the precompiled scenario validator imported
 // directly (it is loaded with require() on Node); the helper thread of spreads, samples files (csv-parse) and TeX
 // label checking, which a what-if scenario never reaches, fail loudly if they ever are.
 const dist = join(ROOT, "dist");
 await build({
-  entryPoints: [join(dist, "site/browser/whatIfEngine.js")],
+  entryPoints: [join(dist, "pageEngine/whatIfEngine.js")],
   outfile: join(out, "what-if-engine.js"),
   bundle: true,
   format: "iife",
@@ -71,13 +72,16 @@ await build({
   platform: "browser",
   target: "es2020",
   logLevel: "warning",
+  // The helper thread of spreads (src/tables/drawPool.ts) finds its script through import.meta.url; a what-if never
+  // starts it, so the empty import.meta of a classic script is never read.
+  logOverride: { "empty-import-meta": "silent" },
   legalComments: "none",
   minify: true,
   plugins: [
     {
       name: "browser-stand-ins",
       setup(b) {
-        b.onResolve({ filter: /^node:crypto$/ }, () => ({ path: join(dist, "site/browser/shims/nodeCrypto.js") }));
+        b.onResolve({ filter: /^node:crypto$/ }, () => ({ path: join(dist, "pageEngine/nodeCryptoShim.js") }));
         b.onResolve({ filter: /^(node:(worker_threads|os|module|url)|csv-parse\/sync)$/ }, (a) => ({
           path: a.path,
           namespace: "absent",
@@ -96,7 +100,8 @@ export const parse = absent;`,
           const { readFile } = await import("node:fs/promises");
           const text = await readFile(a.path, "utf8");
           const loading = "const validate = await loadValidator();";
-          if (!text.includes(loading)) throw new Error("validateScenarioSchema.js no longer loads its validator as expected");
+          if (!text.includes(loading))
+            throw new Error("validateScenarioSchema.js no longer loads its validator as expected");
           return {
             contents: text.replace(loading, 'import validate from "../schema/scenarioValidator.cjs";'),
             loader: "js",
@@ -106,4 +111,17 @@ export const parse = absent;`,
       },
     },
   ],
+});
+
+// The page's what-if panel (src/site/browser/whatIfPanel.ts): form, columns and curves; it calls the engine above.
+await build({
+  entryPoints: [join(dist, "site/browser/whatIfPanel.js")],
+  outfile: join(out, "what-if-panel.js"),
+  bundle: true,
+  format: "iife",
+  platform: "browser",
+  target: "es2020",
+  logLevel: "warning",
+  legalComments: "none",
+  minify: true,
 });

@@ -13,6 +13,7 @@ import {
 } from "./formatNumber.js";
 import { displayUnit, presentationNotes, type PresentedDocument } from "./presentDocument.js";
 import { chartData } from "./chartData.js";
+export { keysOfRows, rowKeys } from "./rowKeys.js";
 
 /** One cell: the raw value (full precision, for CSV and JSON) and what the page prints (number parts or text). */
 export interface PresentationCell {

@@ -94,6 +94,47 @@ function scenarioCharts(): void {
   if (!element || !Chart) return;
   const data = JSON.parse(element.textContent ?? "{}") as ChartData;
   const logYByKey = new Map(data.series.map((s) => [s.key, s.logY]));
+  // A what-if model (src/site/browser/whatIfPanel.ts) is drawn after the page's models, in the next colour and line
+  // pattern, and left out while the page prints: print shows the archived models only.
+  let extra: ChartData["models"][number] | null = null;
+  let printing = false;
+  const drawn = (): ChartData => (extra && !printing ? { ...data, models: [...data.models, extra] } : data);
+  // A chart out of view is redrawn when it comes into view: a what-if change then costs only the charts on screen.
+  const redraws: { figure: Element; redraw: () => void; stale: boolean; inView: boolean }[] = [];
+  const observer =
+    typeof IntersectionObserver === "function"
+      ? new IntersectionObserver((entries) => {
+          for (const e of entries) {
+            const r = redraws.find((x) => x.figure === e.target);
+            if (!r) continue;
+            r.inView = e.isIntersecting;
+            if (r.inView && r.stale) {
+              r.stale = false;
+              r.redraw();
+            }
+          }
+        })
+      : null;
+  const redrawAll = () => {
+    for (const r of redraws) {
+      if (r.inView || printing || !observer) {
+        r.stale = false;
+        r.redraw();
+      } else r.stale = true;
+    }
+  };
+  (window as unknown as { cosmoledgerWhatIfCurve?: (m: typeof extra) => void }).cosmoledgerWhatIfCurve = (m) => {
+    extra = m;
+    redrawAll();
+  };
+  window.addEventListener("beforeprint", () => {
+    printing = true;
+    if (extra) redrawAll();
+  });
+  window.addEventListener("afterprint", () => {
+    printing = false;
+    if (extra) redrawAll();
+  });
   document.querySelectorAll<HTMLElement>("figure.chart").forEach((figure) => {
     const canvas = figure.querySelector("canvas");
     const series = figure.querySelector<HTMLInputElement | HTMLSelectElement>("[data-series]");
@@ -109,14 +150,16 @@ function scenarioCharts(): void {
     };
     defaultLogY();
     const view = (): ChartView => ({ key: series.value, logX: logX.checked, logY: logY.checked, ratio: ratio.checked });
-    let chart = new Chart(canvas, pageConfiguration(data, view()));
+    let chart = new Chart(canvas, pageConfiguration(drawn(), view()));
     registry()[id] = chart;
     const update = () => {
       // A new view is a new configuration from the same builder (axis types, titles and ticks all follow the view).
       chart.destroy();
-      chart = new Chart(canvas, pageConfiguration(data, view()));
+      chart = new Chart(canvas, pageConfiguration(drawn(), view()));
       registry()[id] = chart;
     };
+    redraws.push({ figure, redraw: update, stale: false, inView: false });
+    observer?.observe(figure);
     for (const input of [logX, ratio, logY]) input.addEventListener("change", update);
     series.addEventListener("change", () => {
       defaultLogY();

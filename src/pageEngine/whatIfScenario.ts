@@ -1,0 +1,103 @@
+// The scenario a page's what-if panel computes: the page's own scenario text cut down to what the what-if model
+// needs (the baseline, the model it starts from and that model's ancestors, every table redshift, target and survey)
+// plus one model of the reader's, written as the block a scenario file would hold (`extends:` the starting point,
+// then the changed keys). The same block is what "Copy as YAML" gives, so pasting it into the scenario file makes
+// the next build compute exactly these numbers.
+import { parse, stringify } from "yaml";
+
+/** Where a what-if model starts: a model of the page, or a published parameter set (`extends: published/<id>`). */
+export type WhatIfStart = { model: string } | { published: string };
+
+/** Model keys as a scenario file writes them (numbers, `flat: true`, `radiation: none`, neutrino masses). */
+export type WhatIfChanges = Record<string, number | string | boolean | number[]>;
+
+export interface WhatIfScenario {
+  /** The scenario text that is computed (YAML, the page's scenario cut down, with the what-if model last). */
+  text: string;
+  /** The what-if model's id (what-if, or what-if-2 ... when the page already has a model of that name). */
+  modelId: string;
+  /** The what-if model's block, ready to paste under `models:` of the page's scenario file. */
+  block: string;
+}
+
+/** The label of the what-if model in the block a reader copies. */
+export const WHAT_IF_MODEL_LABEL = "What-if";
+
+/** Scenario keys that change no number of a what-if model: the prose, and the draws of spreads (a what-if has none). */
+const LEFT_OUT_SCENARIO_KEYS = ["description", "author", "tags", "draws"];
+/** Model keys of the models kept for inheritance that a what-if computation does not need. */
+const LEFT_OUT_MODEL_KEYS = ["spread", "label_tex", "notes"];
+
+type RawModel = Record<string, unknown> & { id: string; extends?: string | string[] };
+
+const parentsOf = (m: RawModel): string[] =>
+  m.extends === undefined ? [] : Array.isArray(m.extends) ? m.extends : [m.extends];
+
+/**
+ * The what-if scenario for a page's scenario source. `source` passed `check` when the page was built; anything
+ * the reader adds is checked again when the text is computed.
+ */
+export function whatIfScenario(
+  source: string,
+  start: WhatIfStart,
+  changes: WhatIfChanges,
+  scenarioId?: string,
+): WhatIfScenario {
+  const raw = parse(source) as Record<string, unknown>;
+  const models = (Array.isArray(raw.models) ? raw.models : []) as RawModel[];
+  const byId = new Map(models.map((m) => [m.id, m]));
+  const baseline = typeof raw.baseline === "string" ? raw.baseline : models[0]?.id;
+
+  // The models the what-if needs: the baseline (for the differences) and the start, each with its ancestors.
+  const needed = new Set<string>();
+  let spreadUpstream = "published" in start;
+  const need = (id: string | undefined) => {
+    const m = id === undefined ? undefined : byId.get(id);
+    if (!m || needed.has(m.id)) return;
+    needed.add(m.id);
+    for (const parent of parentsOf(m)) {
+      if (parent.startsWith("published/")) spreadUpstream = true;
+      else need(parent);
+    }
+  };
+  need(baseline);
+  const startRef = "model" in start ? start.model : `published/${start.published}`;
+  if ("model" in start) {
+    need(start.model);
+    const chain = new Set<string>();
+    const walk = (id: string) => {
+      const m = byId.get(id);
+      if (!m || chain.has(id)) return;
+      chain.add(id);
+      if (m.spread !== undefined && m.spread !== "none") spreadUpstream = true;
+      for (const p of parentsOf(m)) if (p.startsWith("published/")) spreadUpstream = true;
+      parentsOf(m).forEach(walk);
+    };
+    walk(start.model);
+  }
+
+  let modelId = "what-if";
+  for (let n = 2; byId.has(modelId); n++) modelId = `what-if-${n}`;
+  // A spread of the starting point (its own, or a published set's uncertainties) is not inherited: the panel shows
+  // the numbers at the parameters given, and the pasted block must mean the same in the scenario file.
+  const whatIf: Record<string, unknown> = {
+    id: modelId,
+    label: WHAT_IF_MODEL_LABEL,
+    extends: startRef,
+    ...changes,
+    ...(spreadUpstream ? { spread: "none" } : {}),
+  };
+
+  const kept = models
+    .filter((m) => needed.has(m.id))
+    .map((m) => Object.fromEntries(Object.entries(m).filter(([k]) => !LEFT_OUT_MODEL_KEYS.includes(k))));
+  // The id is written out: the computed text is named after the scenario file, not as the file (see whatIfFileName).
+  const scenario: Record<string, unknown> = raw.id === undefined && scenarioId ? { id: scenarioId } : {};
+  for (const [k, v] of Object.entries(raw)) if (!LEFT_OUT_SCENARIO_KEYS.includes(k) && k !== "models") scenario[k] = v;
+  if (baseline !== undefined) scenario.baseline = baseline;
+  scenario.models = [...kept, whatIf];
+  return { text: stringify(scenario), modelId, block: stringify([whatIf]) };
+}
+
+/** The name problems in the computed text are reported under: the scenario file's name, marked as the what-if's. */
+export const whatIfFileName = (file: string) => `${file.replace(/\.ya?ml$/i, "")}.what-if.yaml`;

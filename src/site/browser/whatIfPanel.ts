@@ -1,0 +1,386 @@
+// The what-if panel of a scenario page (content/_includes/whatIfPanel.njk). When a reader opens it, it loads the
+// engine (assets/what-if-engine.js: the scenario pipeline of `compute`, src/pageEngine/whatIfEngine.ts), sends the
+// page's scenario source, the starting point and the changed keys, and places what comes back: the presentation's
+// cells as an extra column of each table, a geometry card and a curve on every chart. It formats nothing itself:
+// every text it writes was made by the presentation in the engine. Nothing is stored, and the page's downloads and
+// copy buttons never see the what-if.
+import { keysOfRows } from "../../presentation/rowKeys.js";
+import { unitText } from "../../presentation/formatNumber.js";
+
+interface Cell {
+  kind: "number" | "text";
+  text: string;
+  difference?: { text: string; notable: boolean };
+  provenance?: string;
+}
+interface Part {
+  columns: { label: string; unit: string }[];
+  rows: { key: string; cells: Cell[] }[];
+}
+interface Card {
+  label: string;
+  geometry: string;
+  kind: string;
+  entries: { label: string; unit: string; text: string }[];
+  warnings: string[];
+}
+type Result = { text: string; block: string; file: string } & (
+  | {
+      ok: true;
+      label: string;
+      tables: Record<string, Part>;
+      chart: unknown;
+      geometry: Card;
+      notes: string[];
+      parameters: Record<string, unknown>;
+      provenance: Record<string, string>;
+    }
+  | { ok: false; problems: string[] }
+);
+type Changes = Record<string, number | string | boolean | number[]>;
+interface Engine {
+  whatIf(request: {
+    source: string;
+    file: string;
+    id: string;
+    start: { model: string } | { published: string };
+    changes: Changes;
+  }): Result;
+}
+interface PanelData {
+  source: string;
+  file: string;
+  id: string;
+  engine: string;
+}
+
+const panel = document.getElementById("what-if");
+const dataElement = document.getElementById("what-if-data");
+if (panel && dataElement) setUp(panel, JSON.parse(dataElement.textContent ?? "{}") as PanelData);
+
+function setUp(panel: HTMLElement, data: PanelData): void {
+  panel.hidden = false;
+  for (const link of document.querySelectorAll<HTMLElement>(".what-if-link")) link.hidden = false;
+  const q = <T extends Element>(selector: string) => panel.querySelector<T>(selector)!;
+  const opener = q<HTMLDetailsElement>("details.what-if-open");
+  const start = q<HTMLSelectElement>("#what-if-start");
+  const status = q<HTMLElement>(".what-if-status");
+  const problems = q<HTMLElement>(".what-if-problems");
+  const notes = q<HTMLElement>(".what-if-notes");
+  const yaml = q<HTMLElement>(".what-if-yaml");
+  const scenarioText = q<HTMLElement>(".what-if-text");
+  const fields = [...panel.querySelectorAll<HTMLInputElement | HTMLSelectElement>("[data-key]")];
+  const choiceKeys = [...panel.querySelectorAll<HTMLSelectElement>("[data-choice-key]")];
+  const choiceValue = (name: string) => q<HTMLInputElement>(`[data-choice-value="${name}"]`);
+  /** Inputs the reader changed since the starting point was chosen: only these are written into the model block. */
+  const dirty = new Set<string>();
+  let engine: Engine | null = null;
+  let last: Result | null = null;
+  let pending = false;
+
+  const startOf = () => {
+    const [kind, id] = start.value.split(/:(.*)/s);
+    return kind === "published" ? { published: id } : { model: id };
+  };
+  /** A number as typed, or the text itself when it is none, so that the scenario validator names the problem. */
+  const numberOrText = (input: HTMLInputElement): number | string => {
+    if (input.validity.badInput) return "(not a number)";
+    const x = Number(input.value);
+    return input.value.trim() !== "" && Number.isFinite(x) ? x : input.value;
+  };
+  const changes = (): Changes => {
+    const out: Changes = {};
+    for (const f of fields) {
+      const key = f.dataset.key!;
+      if (!dirty.has(key) || f.disabled) continue;
+      if (f instanceof HTMLSelectElement) out[key] = f.value;
+      else if (f.dataset.list === "number")
+        out[key] =
+          f.value.trim() === ""
+            ? []
+            : (f.value
+                .split(",")
+                .map((s) => numberOrText({ value: s.trim(), validity: {} } as HTMLInputElement)) as number[]);
+      else out[key] = numberOrText(f);
+    }
+    for (const sel of choiceKeys) {
+      const name = sel.dataset.choiceKey!;
+      if (!dirty.has(name)) continue;
+      out[sel.value] = sel.value === "flat" ? true : numberOrText(choiceValue(name));
+    }
+    return out;
+  };
+
+  const numbered = (text: string) =>
+    text
+      .replace(/\n$/, "")
+      .split("\n")
+      .map((l, i) => `${String(i + 1).padStart(3)}  ${l}`)
+      .join("\n");
+  const clearPage = () => {
+    for (const e of document.querySelectorAll(".what-if-cell")) e.remove();
+    (window as unknown as { cosmoledgerWhatIfCurve?: (m: unknown) => void }).cosmoledgerWhatIfCurve?.(null);
+  };
+
+  const cellElement = (c: Cell): HTMLTableCellElement => {
+    // The markup of a cell as the page's table macro writes it (content/_includes/presentedTable.njk).
+    const td = document.createElement("td");
+    td.className = `what-if-cell ${c.kind === "number" ? "num" : "note"}`;
+    if (c.difference?.notable) td.classList.add("notable");
+    if (c.provenance) {
+      td.classList.add(`prov-${c.provenance}`);
+      td.title = c.provenance;
+    }
+    td.append(c.text);
+    if (c.difference) {
+      const d = document.createElement("span");
+      d.className = "diff";
+      d.textContent = c.difference.text;
+      td.append(d);
+    }
+    return td;
+  };
+
+  const placeTables = (tables: Record<string, Part>) => {
+    for (const [id, part] of Object.entries(tables)) {
+      const table = document.querySelector<HTMLTableElement>(`table[data-table="${CSS.escape(id)}"]`);
+      if (!table) continue;
+      const headRow = table.tHead?.rows[0];
+      if (headRow)
+        for (const c of part.columns) {
+          const th = document.createElement("th");
+          th.scope = "col";
+          th.className = "what-if-cell what-if-head";
+          th.append(c.label);
+          if (c.unit) {
+            const u = document.createElement("span");
+            u.className = "unit";
+            u.textContent = ` [${unitText(c.unit)}]`;
+            th.append(u);
+          }
+          headRow.append(th);
+        }
+      const byKey = new Map(part.rows.map((r) => [r.key, r.cells]));
+      const rows = [...table.querySelectorAll<HTMLTableRowElement>("tbody tr[data-row]")];
+      const keys = keysOfRows(rows.map((r) => r.dataset.row!));
+      rows.forEach((tr, i) => {
+        const cells = byKey.get(keys[i]);
+        for (let j = 0; j < part.columns.length; j++) tr.append(cellElement(cells?.[j] ?? { kind: "text", text: "—" }));
+      });
+    }
+  };
+
+  const placeCard = (card: Card) => {
+    const holder = document.querySelector("[data-geometry-cards]");
+    if (!holder) return;
+    const div = document.createElement("div");
+    div.className = `geo-card geo-${card.geometry} what-if-cell`;
+    const h = document.createElement("h3");
+    h.textContent = card.label;
+    const kind = document.createElement("p");
+    kind.className = "geo-kind";
+    kind.textContent = `${card.geometry} (${card.kind})`;
+    const dl = document.createElement("dl");
+    for (const e of card.entries) {
+      const row = document.createElement("div");
+      const dt = document.createElement("dt");
+      dt.append(e.label);
+      if (e.unit) {
+        const u = document.createElement("span");
+        u.className = "unit";
+        u.textContent = `[${unitText(e.unit)}]`;
+        dt.append(" ", u);
+      }
+      const dd = document.createElement("dd");
+      dd.textContent = e.text;
+      row.append(dt, dd);
+      dl.append(row);
+    }
+    div.append(h, kind, dl);
+    holder.append(div);
+  };
+
+  const listInto = (element: HTMLElement, lines: string[]) => {
+    element.replaceChildren();
+    if (lines.length === 0) return;
+    const ul = document.createElement("ul");
+    for (const l of lines) {
+      const li = document.createElement("li");
+      li.textContent = l;
+      ul.append(li);
+    }
+    element.append(ul);
+  };
+
+  const markInvalid = (lines: string[]) => {
+    const keys = new Set(lines.flatMap((l) => [...l.matchAll(/models\[\d+\]\.(\w+)/g)].map((m) => m[1])));
+    for (const f of panel.querySelectorAll<HTMLElement>("input, select")) {
+      const key =
+        f.dataset.key ??
+        (f.dataset.choiceValue ? q<HTMLSelectElement>(`[data-choice-key="${f.dataset.choiceValue}"]`).value : "");
+      if (keys.has(key)) {
+        f.setAttribute("aria-invalid", "true");
+        f.setAttribute("aria-errormessage", "what-if-problems");
+      } else {
+        f.removeAttribute("aria-invalid");
+        f.removeAttribute("aria-errormessage");
+      }
+    }
+  };
+
+  /** The starting point's values in the inputs (the resolved inputs of the what-if as computed without changes). */
+  const fill = (parameters: Record<string, unknown>, provenance: Record<string, string>) => {
+    for (const f of fields) {
+      const key = f.dataset.key!;
+      const v = parameters[key];
+      if (Array.isArray(v)) f.value = v.join(", ");
+      else f.value = v === undefined || v === null ? "" : String(v);
+    }
+    const curvatureFrom = String(parameters.curvature_from ?? "flat");
+    const baryonKey =
+      provenance.omega_b && provenance.omega_b !== "derived"
+        ? "omega_b"
+        : provenance.Omega_b && provenance.Omega_b !== "derived"
+          ? "Omega_b"
+          : "omega_b";
+    for (const sel of choiceKeys) {
+      const name = sel.dataset.choiceKey!;
+      const key = name === "curvature" ? curvatureFrom : baryonKey;
+      if ([...sel.options].some((o) => o.value === key)) sel.value = key;
+      const v = parameters[sel.value];
+      choiceValue(name).value = typeof v === "number" ? String(v) : "";
+    }
+    syncDisabled();
+  };
+
+  const syncDisabled = () => {
+    for (const sel of choiceKeys) {
+      const name = sel.dataset.choiceKey!;
+      choiceValue(name).disabled = sel.value === "flat";
+      for (const r of panel.querySelectorAll<HTMLElement>(`#what-if-${name}-range [data-range-of]`))
+        r.hidden = r.dataset.rangeOf !== sel.value;
+    }
+    const radiation = panel.querySelector<HTMLSelectElement>('[data-key="radiation"]');
+    for (const key of ["T_cmb", "N_eff"]) {
+      const input = panel.querySelector<HTMLInputElement>(`[data-key="${key}"]`);
+      if (input && radiation) input.disabled = radiation.value === "none";
+    }
+  };
+
+  const run = (refill: boolean) => {
+    pending = false;
+    if (!engine) return;
+    const t0 = performance.now();
+    const result = engine.whatIf({
+      source: data.source,
+      file: data.file,
+      id: data.id,
+      start: startOf(),
+      changes: changes(),
+    });
+    last = result;
+    clearPage();
+    yaml.textContent = result.block;
+    scenarioText.textContent = numbered(result.text);
+    q<HTMLElement>(".what-if-file").textContent = result.file;
+    if (!result.ok) {
+      listInto(problems, result.problems);
+      markInvalid(result.problems);
+      notes.replaceChildren();
+      status.textContent = "Not computed: see the problems below (the words of cosmoledger check).";
+      panel.dataset.state = "problems";
+      return;
+    }
+    problems.replaceChildren();
+    markInvalid([]);
+    if (refill) fill(result.parameters, result.provenance);
+    placeTables(result.tables);
+    placeCard(result.geometry);
+    (window as unknown as { cosmoledgerWhatIfCurve?: (m: unknown) => void }).cosmoledgerWhatIfCurve?.(result.chart);
+    for (const n of result.notes) {
+      const li = document.createElement("li");
+      li.textContent = n;
+      notes.append(li);
+    }
+    if (result.notes.length === 0) notes.replaceChildren();
+    const ms = performance.now() - t0;
+    performance.measure("cosmoledger what-if", { start: t0, duration: ms });
+    status.textContent = `${result.label}: computed in this page (${Math.max(1, Math.round(ms))} ms).`;
+    panel.dataset.state = "computed";
+  };
+  const schedule = () => {
+    if (pending) return;
+    pending = true;
+    setTimeout(() => run(false), 0);
+  };
+
+  const loadEngine = () => {
+    const w = window as unknown as { cosmoledgerWhatIfEngine?: Engine };
+    if (w.cosmoledgerWhatIfEngine) {
+      engine = w.cosmoledgerWhatIfEngine;
+      run(true);
+      return;
+    }
+    status.textContent = "Loading the engine…";
+    const script = document.createElement("script");
+    script.src = data.engine;
+    script.addEventListener("load", () => {
+      engine = w.cosmoledgerWhatIfEngine ?? null;
+      if (engine) run(true);
+      else status.textContent = "The engine did not load.";
+    });
+    script.addEventListener("error", () => {
+      status.textContent = `The engine (${data.engine}) could not be loaded.`;
+    });
+    document.head.append(script);
+  };
+
+  opener.addEventListener("toggle", () => {
+    if (opener.open && !engine) loadEngine();
+  });
+  panel.addEventListener("input", (e) => {
+    const t = e.target as HTMLElement;
+    if (t === start) return;
+    const key = t.dataset.key ?? t.dataset.choiceKey ?? t.dataset.choiceValue;
+    if (!key) return;
+    dirty.add(key);
+    if (t instanceof HTMLSelectElement && t.dataset.choiceKey && last?.ok) {
+      // A curvature (baryon) key chosen anew starts from the model's current value of it (derived ones included).
+      const v = last.parameters[t.value];
+      choiceValue(t.dataset.choiceKey).value = typeof v === "number" ? String(v) : "";
+    }
+    if (t instanceof HTMLSelectElement) syncDisabled();
+    schedule();
+  });
+  start.addEventListener("change", () => {
+    dirty.clear();
+    run(true);
+  });
+  panel.querySelector('[data-what-if="reset"]')?.addEventListener("click", () => {
+    dirty.clear();
+    run(true);
+  });
+  panel.querySelector('[data-what-if="remove"]')?.addEventListener("click", () => {
+    clearPage();
+    dirty.clear();
+    opener.open = false;
+    status.textContent = "The what-if was removed from the page.";
+    panel.dataset.state = "removed";
+  });
+  panel.querySelector('[data-what-if="copy"]')?.addEventListener("click", () => {
+    if (!last) return;
+    const text = last.block;
+    const done = (ok: boolean) => {
+      status.textContent = ok
+        ? "The model block is on the clipboard: paste it under models: in the scenario file."
+        : "Copying was refused by the browser: select the model block below and copy it.";
+    };
+    if (navigator.clipboard?.writeText)
+      navigator.clipboard.writeText(text).then(
+        () => done(true),
+        () => done(false),
+      );
+    else done(false);
+  });
+  panel.querySelector("form")?.addEventListener("submit", (e) => e.preventDefault());
+}
