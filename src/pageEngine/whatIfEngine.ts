@@ -5,8 +5,9 @@
 import { loadScenario } from "../scenario/loadScenario.js";
 import { ScenarioInputError, formatIssue, issueLine } from "../scenario/scenarioIssue.js";
 import { locatedTables } from "../tables/locatedTables.js";
+import type { BuildOptions } from "../tables/buildTablesDocument.js";
 import { scenarioWarnings } from "../tables/scenarioWarnings.js";
-import type { TablesDocument } from "../contract/tablesDocument.js";
+import type { ModelTables, TablesDocument } from "../contract/tablesDocument.js";
 import { presentDocument, unitNotes } from "../presentation/presentDocument.js";
 import {
   chartDataTables,
@@ -98,6 +99,29 @@ function share(t: PresentationTable, models: number, index: number): WhatIfTable
   };
 }
 
+/**
+ * The tables of the models a what-if keeps (the baseline, the starting point and its ancestors), from the last
+ * computation: they come before the what-if in the computed text, which they do not depend on, and the text
+ * without the what-if (WhatIfScenario.kept) is the same for every change from one starting point. Cloned out,
+ * since the compute step completes a model's tables in place.
+ */
+let keptTables: { text: string; byIndex: Map<number, ModelTables> } = { text: "", byIndex: new Map() };
+
+function reusingKeptModels(kept: string, whatIfIndex: number): BuildOptions["modelTablesOf"] {
+  if (keptTables.text !== kept) keptTables = { text: kept, byIndex: new Map() };
+  const { byIndex } = keptTables;
+  return (index, compute) => {
+    if (index === whatIfIndex) return compute();
+    let tables = byIndex.get(index);
+    if (!tables) {
+      tables = compute();
+      byIndex.set(index, structuredClone(tables));
+      return tables;
+    }
+    return structuredClone(tables);
+  };
+}
+
 /** Computes a page's what-if model and presents it as the page presents its own models. */
 export function whatIf(request: WhatIfRequest): WhatIfResult {
   const s = whatIfScenario(request.source, request.start, request.changes, request.id);
@@ -107,7 +131,8 @@ export function whatIf(request: WhatIfRequest): WhatIfResult {
   let warnings: string[];
   try {
     const scenario = loadScenario(s.text, file);
-    doc = locatedTables(scenario);
+    const whatIfIndex = scenario.models.findIndex((m) => m.id === s.modelId);
+    doc = locatedTables(scenario, { modelTablesOf: reusingKeptModels(s.kept, whatIfIndex) });
     // The what-if model's own warnings (the page shows those of its models already), as `check` prints them.
     const at = `models[${doc.models.findIndex((m) => m.id === s.modelId)}]`;
     warnings = scenarioWarnings(scenario, doc)

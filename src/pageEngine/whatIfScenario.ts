@@ -18,6 +18,8 @@ export interface WhatIfScenario {
   modelId: string;
   /** The what-if model's block, ready to paste under `models:` of the page's scenario file. */
   block: string;
+  /** The computed text without the what-if model: the same for every change from one starting point. */
+  kept: string;
 }
 
 /** The label of the what-if model in the block a reader copies. */
@@ -33,6 +35,13 @@ type RawModel = Record<string, unknown> & { id: string; extends?: string | strin
 const parentsOf = (m: RawModel): string[] =>
   m.extends === undefined ? [] : Array.isArray(m.extends) ? m.extends : [m.extends];
 
+/** The page's source parsed once (a page asks with the same source at every change); only read, never changed. */
+let lastParsed: { source: string; value: Record<string, unknown> } | null = null;
+function parsed(source: string): Record<string, unknown> {
+  if (lastParsed?.source !== source) lastParsed = { source, value: parse(source) as Record<string, unknown> };
+  return lastParsed.value;
+}
+
 /**
  * The what-if scenario for a page's scenario source. `source` passed `check` when the page was built; anything
  * the reader adds is checked again when the text is computed.
@@ -43,7 +52,7 @@ export function whatIfScenario(
   changes: WhatIfChanges,
   scenarioId?: string,
 ): WhatIfScenario {
-  const raw = parse(source) as Record<string, unknown>;
+  const raw = parsed(source);
   const models = (Array.isArray(raw.models) ? raw.models : []) as RawModel[];
   const byId = new Map(models.map((m) => [m.id, m]));
   const baseline = typeof raw.baseline === "string" ? raw.baseline : models[0]?.id;
@@ -95,8 +104,10 @@ export function whatIfScenario(
   const scenario: Record<string, unknown> = raw.id === undefined && scenarioId ? { id: scenarioId } : {};
   for (const [k, v] of Object.entries(raw)) if (!LEFT_OUT_SCENARIO_KEYS.includes(k) && k !== "models") scenario[k] = v;
   if (baseline !== undefined) scenario.baseline = baseline;
+  scenario.models = kept;
+  const keptText = stringify(scenario);
   scenario.models = [...kept, whatIf];
-  return { text: stringify(scenario), modelId, block: stringify([whatIf]) };
+  return { text: stringify(scenario), modelId, block: stringify([whatIf]), kept: keptText };
 }
 
 /** The name problems in the computed text are reported under: the scenario file's name, marked as the what-if's. */

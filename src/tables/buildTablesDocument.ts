@@ -187,7 +187,17 @@ function nearCriticalNote(m: ResolvedModel, e: unknown): string {
 }
 
 /** Resolved scenario -> tables document (pure apart from hashing; deterministic: the same input gives the same bytes). */
-export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: boolean } = {}): TablesDocument {
+export interface BuildOptions {
+  /** false: no chart grid (for `quote`, whose document is never written). */
+  chartGrid?: boolean;
+  /**
+   * A model's own tables through the caller, which may give back what it kept from an earlier call on the same
+   * model (the pages' what-if engine keeps the models a reader's changes do not touch); computes them by default.
+   */
+  modelTablesOf?: (index: number, compute: () => ModelTables) => ModelTables;
+}
+
+export function buildTablesDocument(s: ResolvedScenario, options: BuildOptions = {}): TablesDocument {
   // `quote` needs no chart curves: without them its document is not a complete contract document, never written.
   const grid = options.chartGrid === false ? [] : gridRedshifts(s.grid);
   const inputs = frozenInputs(s);
@@ -196,7 +206,8 @@ export function buildTablesDocument(s: ResolvedScenario, options: { chartGrid?: 
   // numbers either way). A model that cannot be computed is still reported in model order.
   const central: ({ tables: ModelTables } | { error: unknown })[] = s.models.map((m, i) => {
     try {
-      return { tables: modelTables(m, s, grid, i) };
+      const compute = () => modelTables(m, s, grid, i);
+      return { tables: options.modelTablesOf ? options.modelTablesOf(i, compute) : compute() };
     } catch (e) {
       return { error: e };
     }

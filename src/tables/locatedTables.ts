@@ -2,7 +2,7 @@ import { parseScenarioYaml } from "../scenario/parseScenarioYaml.js";
 import { ScenarioInputError } from "../scenario/scenarioIssue.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import type { TablesDocument } from "../contract/tablesDocument.js";
-import { buildTablesDocument } from "./buildTablesDocument.js";
+import { buildTablesDocument, type BuildOptions } from "./buildTablesDocument.js";
 import { ModelComputeError } from "./modelComputeError.js";
 
 /**
@@ -10,7 +10,7 @@ import { ModelComputeError } from "./modelComputeError.js";
  * (file:line:column of the model, exit 2), never an unexpected failure. The command line and the pages' what-if
  * engine both compute through here.
  */
-export function locatedTables(s: ResolvedScenario, options: { chartGrid?: boolean } = {}): TablesDocument {
+export function locatedTables(s: ResolvedScenario, options: BuildOptions = {}): TablesDocument {
   try {
     return buildTablesDocument(s, options);
   } catch (e) {

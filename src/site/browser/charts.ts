@@ -158,7 +158,15 @@ function scenarioCharts(): void {
       chart = new Chart(canvas, pageConfiguration(drawn(), view()));
       registry()[id] = chart;
     };
-    redraws.push({ figure, redraw: update, stale: false, inView: false });
+    // A new or changed what-if curve: the same configuration builder, applied to the chart in place.
+    const refresh = () => {
+      const config = pageConfiguration(drawn(), view()) as unknown as { data: unknown; options: unknown };
+      const live = chart as unknown as { data: unknown; options: unknown; update(mode: string): void };
+      live.data = config.data;
+      live.options = config.options;
+      live.update("none");
+    };
+    redraws.push({ figure, redraw: refresh, stale: false, inView: false });
     observer?.observe(figure);
     for (const input of [logX, ratio, logY]) input.addEventListener("change", update);
     series.addEventListener("change", () => {

@@ -5,7 +5,7 @@
 // every text it writes was made by the presentation in the engine. Nothing is stored, and the page's downloads and
 // copy buttons never see the what-if.
 import { keysOfRows } from "../../presentation/rowKeys.js";
-import { unitText } from "../../presentation/formatNumber.js";
+import { partsText, unitText } from "../../presentation/formatNumber.js";
 
 interface Cell {
   kind: "number" | "text";
@@ -164,8 +164,13 @@ function setUp(panel: HTMLElement, data: PanelData): void {
       const rows = [...table.querySelectorAll<HTMLTableRowElement>("tbody tr[data-row]")];
       const keys = keysOfRows(rows.map((r) => r.dataset.row!));
       rows.forEach((tr, i) => {
+        // A row the what-if's scenario has no row for (shown because another model of the page has that quantity)
+        // holds no value of the what-if: blank as the presentation writes it, an em dash in a row of numbers.
+        const blank: Cell = tr.querySelector("td.num")
+          ? { kind: "number", text: partsText(null) }
+          : { kind: "text", text: "" };
         const cells = byKey.get(keys[i]);
-        for (let j = 0; j < part.columns.length; j++) tr.append(cellElement(cells?.[j] ?? { kind: "text", text: "—" }));
+        for (let j = 0; j < part.columns.length; j++) tr.append(cellElement(cells?.[j] ?? blank));
       });
     }
   };
@@ -267,9 +272,12 @@ function setUp(panel: HTMLElement, data: PanelData): void {
     }
   };
 
+  let runs = 0;
   const run = (refill: boolean) => {
     pending = false;
     if (!engine) return;
+    // How many computations the panel has made (data-runs): what a reader's tools and the tests wait on.
+    panel.dataset.runs = String(++runs);
     const t0 = performance.now();
     const result = engine.whatIf({
       source: data.source,
