@@ -27,7 +27,7 @@ export const WHAT_IF_MODEL_LABEL = "What-if";
 
 /** Scenario keys that change no number of a what-if model: the prose, and the draws of spreads (a what-if has none). */
 const LEFT_OUT_SCENARIO_KEYS = ["description", "author", "tags", "draws"];
-/** Model keys of the models kept for inheritance that a what-if computation does not need. */
+/** Model keys of the models kept for inheritance that a what-if computation does not need (spread: see below). */
 const LEFT_OUT_MODEL_KEYS = ["spread", "label_tex", "notes"];
 
 type RawModel = Record<string, unknown> & { id: string; extends?: string | string[] };
@@ -97,9 +97,14 @@ export function whatIfScenario(
     ...(spreadUpstream ? { spread: "none" } : {}),
   };
 
+  // Kept models draw nothing either: their own spreads are left out, and those of the published sets they extend
+  // are turned off (a spread changes no number of the what-if, only bands the panel does not show).
   const kept = models
     .filter((m) => needed.has(m.id))
-    .map((m) => Object.fromEntries(Object.entries(m).filter(([k]) => !LEFT_OUT_MODEL_KEYS.includes(k))));
+    .map((m) => ({
+      ...Object.fromEntries(Object.entries(m).filter(([k]) => !LEFT_OUT_MODEL_KEYS.includes(k))),
+      spread: "none",
+    }));
   // The id is written out: the computed text is named after the scenario file, not as the file (see whatIfFileName).
   const scenario: Record<string, unknown> = raw.id === undefined && scenarioId ? { id: scenarioId } : {};
   for (const [k, v] of Object.entries(raw)) if (!LEFT_OUT_SCENARIO_KEYS.includes(k) && k !== "models") scenario[k] = v;

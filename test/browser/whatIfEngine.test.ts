@@ -3,10 +3,12 @@
 // (fixed seed), compared as JSON text, so every double and every hash must agree. Source of the expectation: the
 // requirement that the page run the same code as the command line (same code, same doubles).
 import { describe, expect, it } from "vitest";
-import { readFileSync, writeFileSync } from "node:fs";
+import { readFileSync, readdirSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { runInNewContext } from "node:vm";
 import fc from "fast-check";
+import { parse } from "yaml";
+import { whatIf } from "../../src/pageEngine/whatIfEngine.js";
 import { ROOT, compileProject, runCli, tempDir } from "../helpers/buildDemoSite.js";
 
 type Engine = { whatIfTables: (text: string, file: string) => { doc: unknown } | { problems: string[] } };
@@ -62,6 +64,25 @@ describe("the what-if engine bundled for the pages", { timeout: 600_000 }, () =>
       }
       expect("doc" in page, JSON.stringify(page)).toBe(true);
       expect(JSON.stringify((page as { doc: unknown }).doc)).toBe(JSON.stringify(JSON.parse(cli.stdout)));
+    }
+  });
+
+  it("answers the panel of every demo page, from every model, as the engine's source does (no Node globals in a page)", () => {
+    compileProject();
+    const engine = loadEngine() as unknown as { whatIf: typeof whatIf };
+    for (const file of readdirSync(join(ROOT, "scenarios")).filter((f) => f.endsWith(".yaml"))) {
+      const source = readFileSync(join(ROOT, "scenarios", file), "utf8");
+      const { id, models } = parse(source) as { id: string; models: { id: string }[] };
+      for (const m of models) {
+        for (const changes of [{}, { w0: -0.95 }] as Record<string, number>[]) {
+          // Unchanged, every model of a page computes; a change may be refused (w0 with Omega_Lambda), alike.
+          const request = { source, file, id, start: { model: m.id }, changes };
+          const page = engine.whatIf(request);
+          if (Object.keys(changes).length === 0)
+            expect(page.ok, `${file} ${m.id}: ${page.ok ? "" : page.problems.join("; ")}`).toBe(true);
+          expect(JSON.stringify(page)).toBe(JSON.stringify(whatIf(request)));
+        }
+      }
     }
   });
 

@@ -229,10 +229,10 @@ describe("what-if models computed as a page computes them", { timeout: 600_000 }
     expect(parse(fromSet.block)).toEqual([
       { id: "what-if-2", label: "What-if", extends: "published/wmap9-lcdm", spread: "none" },
     ]);
-    // The kept models lose their spreads (a what-if draws nothing); the baseline stays, unchanged otherwise.
+    // The kept models draw nothing (their spreads, and published sets' spreads, off); otherwise unchanged.
     expect((parse(fromModel.text) as { models: Record<string, unknown>[] }).models.slice(0, 2)).toEqual([
-      { id: "what-if", H0: 70, Omega_m: 0.3, flat: true },
-      { id: "other", extends: "what-if", Omega_m: 0.32 },
+      { id: "what-if", H0: 70, Omega_m: 0.3, flat: true, spread: "none" },
+      { id: "other", extends: "what-if", Omega_m: 0.32, spread: "none" },
     ]);
   });
 });

@@ -38,6 +38,8 @@ const VIOLATIONS: { rule: string; file: string; text: string; append?: boolean; 
     text: 'import "../../dist/engine/index.js";\n',
   },
   { rule: "browser-code-is-pure", file: "src/site/browser/zz.ts", text: 'import "node:fs";\n' },
+  { rule: "page-engine-runs-in-a-browser", file: "src/pageEngine/zz.ts", text: 'import "node:fs";\n' },
+  { rule: "pageEngine-imports-a-higher-layer", file: "src/pageEngine/zzUp.ts", text: 'import "../cli/main.js";\n' },
   {
     rule: "cli-entry-runs-the-bundle",
     file: "bin/cosmoledger.js",

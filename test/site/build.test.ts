@@ -118,12 +118,17 @@ describe("hostile strings from a scenario are shown as text and run nothing", { 
       (s) => s.getAttribute("src") ?? `${s.getAttribute("type")}#${s.getAttribute("id")}`,
     );
     expect(scripts).toEqual([
+      "application/json#what-if-data",
       "application/json#chart-data",
       "../assets/chart.umd.min.js",
       "../assets/charts.js",
       "exports/copy.js",
       "../assets/copy-buttons.js",
+      "../assets/what-if-panel.js",
     ]);
+    // The what-if panel's data element holds the scenario's source as data: it parses back to the very text.
+    const whatIfData = JSON.parse(page.getElementById("what-if-data")?.textContent ?? "{}") as { source?: string };
+    expect(whatIfData.source).toBe(readFileSync(join(dir, "scenarios", "hostile.yaml"), "utf8"));
     // The copy texts are data: run in an empty sandbox, the file only assigns window.cosmoledgerCopy, and the labels survive as text.
     const sandbox: { window: Record<string, unknown> } = { window: {} };
     runInNewContext(readFileSync(join(out, "hostile", "exports", "copy.js"), "utf8"), sandbox);

@@ -322,29 +322,73 @@ function setUp(panel: HTMLElement, data: PanelData): void {
     setTimeout(() => run(false), 0);
   };
 
-  const loadEngine = () => {
-    const w = window as unknown as { cosmoledgerWhatIfEngine?: Engine };
-    if (w.cosmoledgerWhatIfEngine) {
-      engine = w.cosmoledgerWhatIfEngine;
-      run(true);
-      return;
-    }
-    status.textContent = "Loading the engine…";
-    const script = document.createElement("script");
-    script.src = data.engine;
-    script.addEventListener("load", () => {
-      engine = w.cosmoledgerWhatIfEngine ?? null;
-      if (engine) run(true);
-      else status.textContent = "The engine did not load.";
+  /** The engine, its script loaded once: on opening the panel, or earlier by the warm-up below. */
+  let loading: Promise<Engine> | null = null;
+  const engineLoaded = (): Promise<Engine> => {
+    loading ??= new Promise<Engine>((resolve, reject) => {
+      const w = window as unknown as { cosmoledgerWhatIfEngine?: Engine };
+      if (w.cosmoledgerWhatIfEngine) return resolve(w.cosmoledgerWhatIfEngine);
+      const script = document.createElement("script");
+      script.src = data.engine;
+      script.addEventListener("load", () =>
+        w.cosmoledgerWhatIfEngine ? resolve(w.cosmoledgerWhatIfEngine) : reject(new Error("no engine")),
+      );
+      script.addEventListener("error", () => reject(new Error("not loaded")));
+      document.head.append(script);
     });
-    script.addEventListener("error", () => {
-      status.textContent = `The engine (${data.engine}) could not be loaded.`;
-    });
-    document.head.append(script);
+    return loading;
   };
+  const open = () => {
+    if (engine) return;
+    if (panel.dataset.warm !== "ready") status.textContent = "Loading the engine…";
+    engineLoaded().then(
+      (e) => {
+        engine = e;
+        run(true);
+      },
+      () => {
+        status.textContent = `The engine (${data.engine}) could not be loaded.`;
+      },
+    );
+  };
+  /**
+   * Warm-up: once the page has loaded and the browser is idle, the engine is loaded and the first starting point
+   * computed in the background (nothing is shown), so that opening the panel answers at once: the first
+   * computation of a page builds the engine's tables (the Fermi-Dirac integrals of massive neutrinos) and compiles
+   * its code. Not on a connection that asks to save data; at once when the reader moves to the panel.
+   */
+  const warmUp = () => {
+    if (panel.dataset.warm) return;
+    panel.dataset.warm = "started";
+    engineLoaded().then(
+      (e) => {
+        const compute = () => {
+          if (!engine) e.whatIf({ source: data.source, file: data.file, id: data.id, start: startOf(), changes: {} });
+          panel.dataset.warm = "ready";
+        };
+        const idle = (window as unknown as { requestIdleCallback?: (f: () => void, o: object) => void })
+          .requestIdleCallback;
+        if (idle) idle(compute, { timeout: 2000 });
+        else setTimeout(compute, 0);
+      },
+      () => {
+        panel.dataset.warm = "failed";
+      },
+    );
+  };
+  const saveData = (navigator as unknown as { connection?: { saveData?: boolean } }).connection?.saveData === true;
+  if (!saveData) {
+    const idle = (window as unknown as { requestIdleCallback?: (f: () => void, o: object) => void })
+      .requestIdleCallback;
+    const later = () => (idle ? idle(warmUp, { timeout: 5000 }) : setTimeout(warmUp, 1000));
+    if (document.readyState === "complete") later();
+    else window.addEventListener("load", later, { once: true });
+  }
+  panel.addEventListener("pointerenter", warmUp, { once: true });
+  panel.addEventListener("focusin", warmUp, { once: true });
 
   opener.addEventListener("toggle", () => {
-    if (opener.open && !engine) loadEngine();
+    if (opener.open) open();
   });
   panel.addEventListener("input", (e) => {
     const t = e.target as HTMLElement;
