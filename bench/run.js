@@ -7,6 +7,7 @@ import { runLimitsBench } from "./limits.js";
 import { runSpreadBench } from "./spread.js";
 import { runIncrementalBuildBench } from "./incrementalBuild.js";
 import { runPreviewBench } from "./preview.js";
+import { runWhatIfBench } from "./whatIf.js";
 
 const engine = runEngineBench();
 console.log(`engine: ${engine.points} points (8 models x 2000 redshifts, z 0..20, all per-redshift quantities)`);
@@ -73,6 +74,17 @@ else
     console.log(
       `preview (${name}): save to new number in Chromium, median ${p.medianMs.toFixed(0)} ms over ${p.ms.length} saves (first ${p.firstMs.toFixed(0)} ms, slowest ${p.maxMs.toFixed(0)} ms); serve's first build ${(p.firstBuildMs / 1000).toFixed(1)} s, peak ${p.peakMB.toFixed(0)} MB; a full build of the same folder ${p.fullBuildS.toFixed(1)} s (${((1000 * p.fullBuildS) / p.medianMs).toFixed(0)}x a save)`,
     );
+const whatIf = await runWhatIfBench();
+console.log(
+  `what-if engine bundle: ${whatIf.sizes.engineGzipKB.toFixed(1)} KB gzipped (${whatIf.sizes.engineKB.toFixed(0)} KB; budget 100 KB gzipped); panel script ${whatIf.sizes.panelGzipKB.toFixed(1)} KB gzipped`,
+);
+if (!whatIf.pages)
+  console.log("what-if: chromium is not installed (apt-get install -y chromium); latency not measured");
+else
+  for (const [id, p] of Object.entries(whatIf.pages))
+    console.log(
+      `what-if in Chromium (${id}, 200 grid points and 11 table redshifts): open to numbers cold median ${p.coldMedianMs.toFixed(0)} ms (${p.coldMs.map((x) => x.toFixed(0)).join(", ")}), after the idle warm-up ${p.afterWarmUpMedianMs.toFixed(0)} ms; a change median ${p.warmMedianMs.toFixed(0)} ms (slowest ${p.warmMaxMs.toFixed(0)} ms), with a chart in view ${p.warmWithChartMedianMs.toFixed(0)} ms (slowest ${p.warmWithChartMaxMs.toFixed(0)} ms)`,
+    );
 const spread = await runSpreadBench();
 console.log(
   `spread: compute of 8 models x 1,000 draws over 200 grid + 20 table redshifts (one massive neutrino each), whole process: ${spread.wholeMs.toFixed(0)} ms (without spreads ${spread.plainMs.toFixed(0)} ms; node -e 0 ${spread.nodeMs.toFixed(0)} ms)`,
@@ -114,6 +126,9 @@ console.log(
     incremental_clean_peak_mb: Math.round(incremental.clean.peakMB),
     preview_demo_median_ms: preview ? Math.round(preview.small.medianMs) : null,
     preview_200x5_median_ms: preview ? Math.round(preview.large.medianMs) : null,
+    what_if_engine_gzip_kb: Number(whatIf.sizes.engineGzipKB.toFixed(1)),
+    what_if_change_median_ms: whatIf.pages ? Math.round(whatIf.pages["lantern-deep-field"].warmMedianMs) : null,
+    what_if_cold_median_ms: whatIf.pages ? Math.round(whatIf.pages["lantern-deep-field"].coldMedianMs) : null,
     limits_peak_mb: Math.max(...limits.flatMap((l) => [l.compute.peakMB, l.build.peakMB])),
   }),
 );

@@ -104,9 +104,12 @@ export async function runWhatIfBench({ browsers = 5, changes = 20 } = {}) {
         args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--no-first-run"],
       });
       const page = await context.newPage();
-      // Opened as soon as the page's scripts have run, before the warm-up (which waits for the load event and
-      // an idle moment): nothing loaded or computed before.
-      await page.goto(url, { waitUntil: "domcontentloaded" });
+      // Cold: the page as a connection that asks to save data sees it, with no warm-up: nothing of the engine is
+      // loaded or computed before the panel opens.
+      await page.addInitScript(() =>
+        Object.defineProperty(navigator, "connection", { value: { saveData: true }, configurable: true }),
+      );
+      await page.goto(url);
       await page.waitForSelector("#what-if:not([hidden])");
       cold.push(await page.evaluate(openPanel));
       // A second page of the same browser, opened once its warm-up is done (the engine script then comes from

@@ -211,6 +211,25 @@ describe("what-if models computed as a page computes them", { timeout: 600_000 }
     expect(r.ok ? "" : r.problems.join("\n")).toMatch(/big bang/);
   });
 
+  it("warns of a model outside the verified box in the words of check, and computes it", () => {
+    const file = "lantern-deep-field.yaml";
+    const r = whatIf({
+      source: read(file),
+      file,
+      id: "lantern-deep-field",
+      start: { model: "reference" },
+      changes: { w0: -2.5 },
+    });
+    expect(r.ok).toBe(true);
+    const dir = folderWith(r.text, r.file);
+    const check = runCli(["check", r.file], dir);
+    const checkWarnings = check.stderr.split("\n").filter((l) => l.startsWith("warning:"));
+    expect(checkWarnings.length).toBeGreaterThan(0);
+    // The page shows the what-if's own warnings (its model, models[1]); those of the page's models are on the page.
+    expect(r.ok ? r.notes : []).toEqual(checkWarnings.filter((l) => l.includes("models[1]")));
+    expect((r.ok ? r.notes : []).join("\n")).toMatch(/w0 = -2\.5 lies outside/);
+  });
+
   it("keeps the block honest: its own id, extends the start, no spread inherited, published sets by reference", () => {
     const source = [
       "title: t",

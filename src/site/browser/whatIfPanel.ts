@@ -82,12 +82,16 @@ function setUp(panel: HTMLElement, data: PanelData): void {
     const [kind, id] = start.value.split(/:(.*)/s);
     return kind === "published" ? { published: id } : { model: id };
   };
-  /** A number as typed, or the text itself when it is none, so that the scenario validator names the problem. */
-  const numberOrText = (input: HTMLInputElement): number | string => {
-    if (input.validity.badInput) return "(not a number)";
-    const x = Number(input.value);
-    return input.value.trim() !== "" && Number.isFinite(x) ? x : input.value;
+  /**
+   * A number as typed, or the text itself when it is none (a browser's number input holds no text it cannot read:
+   * that is written as "(not a number)"), so that the scenario validator names the problem in its own words.
+   */
+  const typed = (text: string, unreadable = false): number | string => {
+    if (unreadable) return "(not a number)";
+    const x = Number(text);
+    return text.trim() !== "" && Number.isFinite(x) ? x : text;
   };
+  /** Only the inputs the reader changed; one emptied again inherits from the starting point (an empty mass list: none). */
   const changes = (): Changes => {
     const out: Changes = {};
     for (const f of fields) {
@@ -95,18 +99,16 @@ function setUp(panel: HTMLElement, data: PanelData): void {
       if (!dirty.has(key) || f.disabled) continue;
       if (f instanceof HTMLSelectElement) out[key] = f.value;
       else if (f.dataset.list === "number")
-        out[key] =
-          f.value.trim() === ""
-            ? []
-            : (f.value
-                .split(",")
-                .map((s) => numberOrText({ value: s.trim(), validity: {} } as HTMLInputElement)) as number[]);
-      else out[key] = numberOrText(f);
+        out[key] = f.value.trim() === "" ? [] : (f.value.split(",").map((x) => typed(x.trim())) as number[]);
+      else if (f.value.trim() !== "" || f.validity.badInput) out[key] = typed(f.value, f.validity.badInput);
     }
     for (const sel of choiceKeys) {
       const name = sel.dataset.choiceKey!;
       if (!dirty.has(name)) continue;
-      out[sel.value] = sel.value === "flat" ? true : numberOrText(choiceValue(name));
+      const value = choiceValue(name);
+      if (sel.value === "flat") out.flat = true;
+      else if (value.value.trim() !== "" || value.validity.badInput)
+        out[sel.value] = typed(value.value, value.validity.badInput);
     }
     return out;
   };
