@@ -44,10 +44,14 @@ export default function (eleventyConfig) {
     fermiDirac: FERMI_DIRAC_TEX,
   });
   eleventyConfig.addGlobalData("tool", { name: "cosmoledger", engine: ENGINE_VERSION });
-  // The what-if panel's inputs (from the scenario schema) and the published sets a what-if may start from.
+  // The what-if panel's inputs (from the scenario schema) and the published sets a what-if may start from: those
+  // that give a whole model (H0 and Omega_m); the others (a sigma8, an H0 alone) are extended after a whole one.
   eleventyConfig.addGlobalData("whatIf", {
     form: WHAT_IF_FORM,
-    published: PUBLISHED_SETS.map((s) => ({ id: s.id, title: s.title })),
+    published: PUBLISHED_SETS.filter((s) => "H0" in s.parameters && "Omega_m" in s.parameters).map((s) => ({
+      id: s.id,
+      title: s.title,
+    })),
   });
   eleventyConfig.addWatchTarget(scenariosDir);
   eleventyConfig.addWatchTarget(archiveDir);

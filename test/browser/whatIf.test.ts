@@ -228,6 +228,31 @@ describe.skipIf(!chromiumPath)("the what-if panel in Chromium", () => {
     await page.close();
   });
 
+  it("every starting point it offers computes, on every demo page", { timeout: 300_000 }, async () => {
+    for (const f of readdirSync(scenarios).filter((x) => x.endsWith(".yaml"))) {
+      const id = (parse(readFileSync(join(scenarios, f), "utf8")) as { id: string }).id;
+      const page = await open(`${id}/index.html`);
+      await page.click("#what-if summary");
+      await nextRun(page, 0);
+      const starts = await page.$$eval("#what-if-start option", (os) => os.map((o) => (o as HTMLOptionElement).value));
+      expect(starts.some((s) => s.startsWith("published:"))).toBe(true);
+      for (const s of starts) {
+        const runs = await runsOf(page);
+        await page.selectOption("#what-if-start", s);
+        await page.waitForFunction(
+          (before) => Number(document.getElementById("what-if")!.dataset.runs) > before,
+          runs,
+          {
+            timeout: 60_000,
+          },
+        );
+        expect(`${id} ${s}: ${await page.getAttribute("#what-if", "data-state")}`).toBe(`${id} ${s}: computed`);
+      }
+      await page.close();
+    }
+    expect(problems).toEqual([]);
+  });
+
   it("warms up in the background on every demo page, without an error", { timeout: 300_000 }, async () => {
     for (const f of readdirSync(scenarios).filter((x) => x.endsWith(".yaml"))) {
       const id = (parse(readFileSync(join(scenarios, f), "utf8")) as { id: string }).id;

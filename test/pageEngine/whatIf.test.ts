@@ -143,7 +143,7 @@ describe("what-if models computed as a page computes them", { timeout: 600_000 }
       w0: fc.option(fc.double({ min: -1.2, max: -0.8, noNaN: true }), { nil: undefined }),
       m_nu_eV: fc.option(fc.constantFrom([], [0.06], [0.1, 0.1]), { nil: undefined }),
     });
-    for (const c of fc.sample(change, { seed: 31, numRuns: 8 })) {
+    for (const c of fc.sample(change, { seed: 31, numRuns: 20 })) {
       const source = read(c.file);
       const models = (parse(source) as { models: { id: string }[] }).models;
       const startId = models[c.pick % models.length].id;
