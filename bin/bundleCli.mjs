@@ -42,40 +42,37 @@ await build({
   },
 });
 
-// The page's chart script: the browser side of the one chart-configuration builder (src/site/browser/charts.ts),
-// one classic script (works from file:// and under the pages' content security policy: no eval, no modules).
-await build({
-  entryPoints: [join(ROOT, "dist/site/browser/charts.js")],
-  outfile: join(out, "charts.js"),
-  bundle: true,
-  format: "iife",
-  platform: "browser",
-  target: "es2020",
-  logLevel: "warning",
-  legalComments: "none",
-  minifyWhitespace: true,
-  minifySyntax: true,
-});
+// The pages' scripts are classic scripts (they work from file:// and under the pages' content security policy: no
+// eval, no modules).
+const dist = join(ROOT, "dist");
+const pageScript = (entry, name, more = {}) =>
+  build({
+    entryPoints: [join(dist, entry)],
+    outfile: join(out, name),
+    bundle: true,
+    format: "iife",
+    platform: "browser",
+    target: "es2020",
+    logLevel: "warning",
+    legalComments: "none",
+    minifyWhitespace: true,
+    minifySyntax: true,
+    ...more,
+  });
+
+// The page's chart script: the browser side of the one chart-configuration builder (src/site/browser/charts.ts).
+await pageScript("site/browser/charts.js", "charts.js");
 
 // The what-if engine of the pages: the scenario pipeline (src/pageEngine/whatIfEngine.ts) as one classic script,
 // loaded by a page when its reader opens the what-if panel.
 // Node built-ins get browser stand-ins: SHA-256 from @noble/hashes; the precompiled scenario validator imported
 // directly (it is loaded with require() on Node); the helper thread of spreads, samples files (csv-parse) and TeX
 // label checking, which a what-if scenario never reaches, fail loudly if they ever are.
-const dist = join(ROOT, "dist");
-await build({
-  entryPoints: [join(dist, "pageEngine/whatIfEngine.js")],
-  outfile: join(out, "what-if-engine.js"),
-  bundle: true,
-  format: "iife",
+await pageScript("pageEngine/whatIfEngine.js", "what-if-engine.js", {
   globalName: "cosmoledgerWhatIfEngine",
-  platform: "browser",
-  target: "es2020",
-  logLevel: "warning",
   // The helper thread of spreads (src/tables/drawPool.ts) finds its script through import.meta.url; a what-if never
   // starts it, so the empty import.meta of a classic script is never read.
   logOverride: { "empty-import-meta": "silent" },
-  legalComments: "none",
   minify: true,
   plugins: [
     {
@@ -114,14 +111,4 @@ export const parse = absent;`,
 });
 
 // The page's what-if panel (src/site/browser/whatIfPanel.ts): form, columns and curves; it calls the engine above.
-await build({
-  entryPoints: [join(dist, "site/browser/whatIfPanel.js")],
-  outfile: join(out, "what-if-panel.js"),
-  bundle: true,
-  format: "iife",
-  platform: "browser",
-  target: "es2020",
-  logLevel: "warning",
-  legalComments: "none",
-  minify: true,
-});
+await pageScript("site/browser/whatIfPanel.js", "what-if-panel.js", { minify: true });

@@ -110,6 +110,16 @@ function pasted(source: string, block: string): string {
   return String(d);
 }
 
+/** A what-if of the Lantern demo page, started from its reference model. */
+const fromReference = (changes: Record<string, number | string | number[]>) =>
+  whatIf({
+    source: read("lantern-deep-field.yaml"),
+    file: "lantern-deep-field.yaml",
+    id: "lantern-deep-field",
+    start: { model: "reference" },
+    changes,
+  });
+
 describe("what-if models computed as a page computes them", { timeout: 600_000 }, () => {
   it("with no change, a what-if shows the numbers of the model it starts from (every demo scenario, every model)", () => {
     compileProject();
@@ -176,14 +186,7 @@ describe("what-if models computed as a page computes them", { timeout: 600_000 }
   });
 
   it("refuses a bad value with check's words, located in the computed text it shows", () => {
-    const file = "lantern-deep-field.yaml";
-    const r = whatIf({
-      source: read(file),
-      file,
-      id: "lantern-deep-field",
-      start: { model: "reference" },
-      changes: { H0: -5, Omega_k: "(not a number)" },
-    });
+    const r = fromReference({ H0: -5, Omega_k: "(not a number)" });
     expect(r.ok).toBe(false);
     const dir = tempDir();
     writeFileSync(join(dir, r.file), r.text);
@@ -193,16 +196,9 @@ describe("what-if models computed as a page computes them", { timeout: 600_000 }
   });
 
   it("says that a model without a big bang has none, in the words of check", () => {
-    const file = "lantern-deep-field.yaml";
-    // Omega_m = 0.3 with Omega_de = 2.5: a bounce in the past (common practice: a Lambda-dominated closed model with
-    // little matter has no big bang).
-    const r = whatIf({
-      source: read(file),
-      file,
-      id: "lantern-deep-field",
-      start: { model: "reference" },
-      changes: { Omega_m: 0.3, Omega_de: 2.5 },
-    });
+    // Omega_m = 0.3 with Omega_de = 2.5: a closed model whose cosmological constant is above the bounce value for
+    // its matter (about 1.7 for Omega_m = 0.3, recalled from memory) has no big bang.
+    const r = fromReference({ Omega_m: 0.3, Omega_de: 2.5 });
     const dir = tempDir();
     writeFileSync(join(dir, r.file), r.text);
     const compute = runCli(["compute", r.file, "--json"], dir);
@@ -212,14 +208,7 @@ describe("what-if models computed as a page computes them", { timeout: 600_000 }
   });
 
   it("warns of a model outside the verified box in the words of check, and computes it", () => {
-    const file = "lantern-deep-field.yaml";
-    const r = whatIf({
-      source: read(file),
-      file,
-      id: "lantern-deep-field",
-      start: { model: "reference" },
-      changes: { w0: -2.5 },
-    });
+    const r = fromReference({ w0: -2.5 });
     expect(r.ok).toBe(true);
     const dir = folderWith(r.text, r.file);
     const check = runCli(["check", r.file], dir);
