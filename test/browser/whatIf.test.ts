@@ -223,6 +223,9 @@ describe.skipIf(!chromiumPath)("the what-if panel in Chromium", () => {
     expect(shownProblems).toEqual(check.stderr.split("\n").filter((l) => /^(error|warning):/.test(l)));
     expect(shownProblems.join("\n")).toContain("models[1].H0");
     expect(await page.getAttribute("#what-if-H0", "aria-invalid")).toBe("true");
+    // The field names the element that says what is wrong with it.
+    const named = await page.getAttribute("#what-if-H0", "aria-errormessage");
+    expect(await page.locator(`#${named}`).textContent()).toContain("models[1].H0");
     expect(await page.locator("td.what-if-cell").count()).toBe(0);
     expect(problems).toEqual([]);
     await page.close();
