@@ -121,10 +121,15 @@ const fromReference = (changes: Record<string, number | string | number[]>) =>
   });
 
 describe("what-if models computed as a page computes them", { timeout: 600_000 }, () => {
-  it("with no change, a what-if shows the numbers of the model it starts from (every demo scenario, every model)", () => {
+  it("with no change, a what-if shows the numbers of the model it starts from (every demo scenario, every model; in h units too)", () => {
     compileProject();
-    for (const file of demoFiles) {
-      const source = read(file);
+    // Every demo scenario as it is, and the Lantern scenario shown in h units (lengths in h^-1 Mpc with each
+    // model's own h): the what-if's column must be converted as the page's own columns are.
+    const cases = [
+      ...demoFiles.map((file) => ({ file, source: read(file) })),
+      { file: "lantern-deep-field.yaml", source: `${read("lantern-deep-field.yaml")}h_units: true\n` },
+    ];
+    for (const { file, source } of cases) {
       const full = computeCli(source, file);
       for (const m of full.models) {
         const r = ok(whatIf({ source, file, id: full.scenario.id, start: { model: m.id }, changes: {} }));
@@ -139,6 +144,8 @@ describe("what-if models computed as a page computes them", { timeout: 600_000 }
             ).toEqual(cells.map((c) => c.text));
         }
         expect(r.geometry.entries, `${file} ${m.id} geometry`).toEqual(expected.geometry);
+        // In h units the column's note says so, with the what-if's own H0 (the page's notes name its models').
+        if (/h_units: true/.test(source)) expect(r.notes.join("\n")).toMatch(/What-if \(not archived\): H0 = /);
       }
     }
   });
