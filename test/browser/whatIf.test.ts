@@ -206,6 +206,23 @@ describe.skipIf(!chromiumPath)("the what-if panel in Chromium", () => {
       expect(await whatIfColumn(page, id), id).toEqual(expected);
     }
 
+    // Out of the verified box: check's warning under the panel, as many times as check prints it, however often
+    // the value changes.
+    const counts: number[] = [];
+    for (const w0 of ["-2.5", "-2.6"]) {
+      runs = await runsOf(page);
+      await page.fill("#what-if-w0", w0);
+      await nextRun(page, runs);
+      counts.push(await page.locator(".what-if-notes li").count());
+    }
+    const notes = await page.locator(".what-if-notes li").allTextContents();
+    expect(counts[0]).toBe(counts[1]);
+    expect(
+      notes.filter((n) =>
+        /^warning: lantern-deep-field\.what-if\.yaml:\d+:\d+: models\[1\].*w0 = -2\.6 lies outside/.test(n),
+      ),
+    ).toHaveLength(1);
+
     // A value out of the schema's range: check's words, the field marked, the what-if taken off the tables.
     runs = await runsOf(page);
     await page.fill("#what-if-H0", "-5");

@@ -4,33 +4,16 @@
 // cells as an extra column of each table, a geometry card and a curve on every chart. It formats nothing itself:
 // every text it writes was made by the presentation in the engine. Nothing is stored, and the page's downloads and
 // copy buttons never see the what-if.
-import { keysOfRows } from "../../presentation/rowKeys.js";
-import { partsText, unitText } from "../../presentation/formatNumber.js";
+import type { GeometryCard } from "../../presentation/presentTables.js";
+import { clearWhatIf, placeWhatIf, type WhatIfPart } from "./whatIfPlacement.js";
 
-interface Cell {
-  kind: "number" | "text";
-  text: string;
-  difference?: { text: string; notable: boolean };
-  provenance?: string;
-}
-interface Part {
-  columns: { label: string; unit: string }[];
-  rows: { key: string; cells: Cell[] }[];
-}
-interface Card {
-  label: string;
-  geometry: string;
-  kind: string;
-  entries: { label: string; unit: string; text: string }[];
-  warnings: string[];
-}
 type Result = { text: string; block: string; file: string } & (
   | {
       ok: true;
       label: string;
-      tables: Record<string, Part>;
+      tables: Record<string, WhatIfPart>;
       chart: unknown;
-      geometry: Card;
+      geometry: GeometryCard;
       notes: string[];
       parameters: Record<string, unknown>;
       provenance: Record<string, string>;
@@ -119,94 +102,6 @@ function setUp(panel: HTMLElement, data: PanelData): void {
       .split("\n")
       .map((l, i) => `${String(i + 1).padStart(3)}  ${l}`)
       .join("\n");
-  const clearPage = () => {
-    for (const e of document.querySelectorAll(".what-if-cell")) e.remove();
-    (window as unknown as { cosmoledgerWhatIfCurve?: (m: unknown) => void }).cosmoledgerWhatIfCurve?.(null);
-  };
-
-  const cellElement = (c: Cell): HTMLTableCellElement => {
-    // The markup of a cell as the page's table macro writes it (content/_includes/presentedTable.njk).
-    const td = document.createElement("td");
-    td.className = `what-if-cell ${c.kind === "number" ? "num" : "note"}`;
-    if (c.difference?.notable) td.classList.add("notable");
-    if (c.provenance) {
-      td.classList.add(`prov-${c.provenance}`);
-      td.title = c.provenance;
-    }
-    td.append(c.text);
-    if (c.difference) {
-      const d = document.createElement("span");
-      d.className = "diff";
-      d.textContent = c.difference.text;
-      td.append(d);
-    }
-    return td;
-  };
-
-  const placeTables = (tables: Record<string, Part>) => {
-    for (const [id, part] of Object.entries(tables)) {
-      const table = document.querySelector<HTMLTableElement>(`table[data-table="${CSS.escape(id)}"]`);
-      if (!table) continue;
-      const headRow = table.tHead?.rows[0];
-      if (headRow)
-        for (const c of part.columns) {
-          const th = document.createElement("th");
-          th.scope = "col";
-          th.className = "what-if-cell what-if-head";
-          th.append(c.label);
-          if (c.unit) {
-            const u = document.createElement("span");
-            u.className = "unit";
-            u.textContent = ` [${unitText(c.unit)}]`;
-            th.append(u);
-          }
-          headRow.append(th);
-        }
-      const byKey = new Map(part.rows.map((r) => [r.key, r.cells]));
-      const rows = [...table.querySelectorAll<HTMLTableRowElement>("tbody tr[data-row]")];
-      const keys = keysOfRows(rows.map((r) => r.dataset.row!));
-      rows.forEach((tr, i) => {
-        // A row the what-if's scenario has no row for (shown because another model of the page has that quantity)
-        // holds no value of the what-if: blank as the presentation writes it, an em dash in a row of numbers.
-        const blank: Cell = tr.querySelector("td.num")
-          ? { kind: "number", text: partsText(null) }
-          : { kind: "text", text: "" };
-        const cells = byKey.get(keys[i]);
-        for (let j = 0; j < part.columns.length; j++) tr.append(cellElement(cells?.[j] ?? blank));
-      });
-    }
-  };
-
-  const placeCard = (card: Card) => {
-    const holder = document.querySelector("[data-geometry-cards]");
-    if (!holder) return;
-    const div = document.createElement("div");
-    div.className = `geo-card geo-${card.geometry} what-if-cell`;
-    const h = document.createElement("h3");
-    h.textContent = card.label;
-    const kind = document.createElement("p");
-    kind.className = "geo-kind";
-    kind.textContent = `${card.geometry} (${card.kind})`;
-    const dl = document.createElement("dl");
-    for (const e of card.entries) {
-      const row = document.createElement("div");
-      const dt = document.createElement("dt");
-      dt.append(e.label);
-      if (e.unit) {
-        const u = document.createElement("span");
-        u.className = "unit";
-        u.textContent = `[${unitText(e.unit)}]`;
-        dt.append(" ", u);
-      }
-      const dd = document.createElement("dd");
-      dd.textContent = e.text;
-      row.append(dt, dd);
-      dl.append(row);
-    }
-    div.append(h, kind, dl);
-    holder.append(div);
-  };
-
   const listInto = (element: HTMLElement, lines: string[]) => {
     element.replaceChildren();
     if (lines.length === 0) return;
@@ -289,7 +184,7 @@ function setUp(panel: HTMLElement, data: PanelData): void {
       changes: changes(),
     });
     last = result;
-    clearPage();
+    clearWhatIf();
     yaml.textContent = result.block;
     scenarioText.textContent = numbered(result.text);
     q<HTMLElement>(".what-if-file").textContent = result.file;
@@ -304,15 +199,14 @@ function setUp(panel: HTMLElement, data: PanelData): void {
     problems.replaceChildren();
     markInvalid([]);
     if (refill) fill(result.parameters, result.provenance);
-    placeTables(result.tables);
-    placeCard(result.geometry);
-    (window as unknown as { cosmoledgerWhatIfCurve?: (m: unknown) => void }).cosmoledgerWhatIfCurve?.(result.chart);
-    for (const n of result.notes) {
-      const li = document.createElement("li");
-      li.textContent = n;
-      notes.append(li);
-    }
-    if (result.notes.length === 0) notes.replaceChildren();
+    placeWhatIf(result);
+    notes.replaceChildren(
+      ...result.notes.map((n) => {
+        const li = document.createElement("li");
+        li.textContent = n;
+        return li;
+      }),
+    );
     const ms = performance.now() - t0;
     performance.measure("cosmoledger what-if", { start: t0, duration: ms });
     status.textContent = `${result.label}: computed in this page (${Math.max(1, Math.round(ms))} ms).`;
@@ -415,7 +309,7 @@ function setUp(panel: HTMLElement, data: PanelData): void {
     run(true);
   });
   panel.querySelector('[data-what-if="remove"]')?.addEventListener("click", () => {
-    clearPage();
+    clearWhatIf();
     dirty.clear();
     opener.open = false;
     status.textContent = "The what-if was removed from the page.";
