@@ -244,6 +244,16 @@ describe.skipIf(!chromiumPath)("the what-if panel in Chromium", () => {
     const named = await page.getAttribute("#what-if-H0", "aria-errormessage");
     expect(await page.locator(`#${named}`).textContent()).toContain("models[1].H0");
     expect(await page.locator("td.what-if-cell").count()).toBe(0);
+
+    // Removed: nothing of it is left on the page, and the keyboard is back on the panel's summary.
+    runs = await runsOf(page);
+    await page.fill("#what-if-H0", "70");
+    await nextRun(page, runs);
+    expect(await page.locator(".what-if-cell").count()).toBeGreaterThan(0);
+    await page.focus('[data-what-if="remove"]');
+    await page.keyboard.press("Enter");
+    expect(await page.locator(".what-if-cell").count()).toBe(0);
+    expect(await page.evaluate(() => document.activeElement?.tagName)).toBe("SUMMARY");
     expect(problems).toEqual([]);
     await page.close();
   });

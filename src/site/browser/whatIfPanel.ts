@@ -312,6 +312,8 @@ function setUp(panel: HTMLElement, data: PanelData): void {
     clearWhatIf();
     dirty.clear();
     opener.open = false;
+    // The button is now hidden with the panel's body: the keyboard goes back to the panel's summary.
+    opener.querySelector("summary")?.focus();
     status.textContent = "The what-if was removed from the page.";
     panel.dataset.state = "removed";
   });
