@@ -283,6 +283,21 @@ describe.skipIf(!chromiumPath)("the what-if panel in Chromium", () => {
     expect(problems).toEqual([]);
   });
 
+  it("rows the page has for other models' quantities are blank for a what-if without them, as for its start", {
+    timeout: 300_000,
+  }, async () => {
+    // Harbor Lights: the phantom model rips, so the page has big rip rows; the first model (a cosmological
+    // constant) has none, and neither has a what-if started from it, which is computed without the phantom model.
+    const page = await open("harbor-lights-census/index.html");
+    await page.click("#what-if summary");
+    await nextRun(page, 0);
+    const shown = await whatIfColumn(page, "glance");
+    expect(shown.some((c) => c.key.startsWith("Big rip"))).toBe(true);
+    expect(shown.map((c) => c.text)).toEqual(await pageColumn(page, "glance", 0));
+    await page.close();
+    expect(problems).toEqual([]);
+  });
+
   it("warms up in the background on every demo page, without an error", { timeout: 300_000 }, async () => {
     for (const f of readdirSync(scenarios).filter((x) => x.endsWith(".yaml"))) {
       const id = (parse(readFileSync(join(scenarios, f), "utf8")) as { id: string }).id;
