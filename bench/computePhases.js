@@ -11,13 +11,13 @@ const lap = (name) => {
   t = now;
 };
 const { loadScenarioFiles } = await import("../dist/cli/readScenarioFile.js");
-const { computeTables } = await import("../dist/cli/computeTables.js");
+const { locatedTables } = await import("../dist/tables/locatedTables.js");
 const { tablesCsv } = await import("../dist/contract/tablesCsv.js");
 const { writeOutputsAtomically } = await import("../dist/cli/writeOutputsAtomically.js");
 lap("load modules (unbundled)");
 const { scenarios } = loadScenarioFiles([file]);
 lap("read and resolve the scenario");
-const doc = computeTables(scenarios[0]);
+const doc = locatedTables(scenarios[0]);
 lap("compute (engine and rows, cold)");
 const json = `${JSON.stringify(doc)}\n`;
 lap("serialise tables.json");

@@ -8,7 +8,7 @@ import { parse } from "yaml";
 import { readRegularFile } from "../common/readRegularFile.js";
 import { decodeScenarioText } from "../scenario/decodeScenarioText.js";
 import { idFromFileName } from "../scenario/resolveScenario.js";
-import { computeTables } from "./computeTables.js";
+import { locatedTables } from "../tables/locatedTables.js";
 import type { StoredTablesDocument } from "../contract/tablesDocument.js";
 import { readScenarioArchive } from "../archive/readArchive.js";
 import type { ArchiveIssue } from "../archive/checkVersionChain.js";
@@ -87,7 +87,7 @@ export async function exportCommand(
     doc = record.tables;
     page = `${scenario.id}/v${wanted}/index.html`;
   } else {
-    const current = computeTables(scenario as ResolvedScenario); // without --version, the scenario was resolved
+    const current = locatedTables(scenario as ResolvedScenario); // without --version, the scenario was resolved
     doc = current;
     const latest = versions.at(-1);
     record = latest && holdsSameInputs(latest, current) ? latest : null;

@@ -1,7 +1,7 @@
 import { dirname, join } from "node:path";
 import { displayPath } from "../common/displayPath.js";
 import { readScenarioFile } from "./readScenarioFile.js";
-import { computeTables } from "./computeTables.js";
+import { locatedTables } from "../tables/locatedTables.js";
 import { freezeScenario } from "../archive/freezeScenario.js";
 import { pathKind } from "../archive/readArchive.js";
 
@@ -32,7 +32,7 @@ export function freezeCommand(files: string[], options: { message?: string; arch
     process.stderr.write(`error: ${displayPath(archive)} ${what}; nothing was frozen\n`);
     return 2;
   }
-  const outcome = freezeScenario(archive, scenario, computeTables(scenario), options.message ?? "");
+  const outcome = freezeScenario(archive, scenario, locatedTables(scenario), options.message ?? "");
   if (outcome.kind === "broken") {
     for (const i of outcome.issues) process.stderr.write(`error: ${i.file}: ${i.message}\n`);
     process.stderr.write(

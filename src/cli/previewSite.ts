@@ -13,13 +13,13 @@ import {
   type ScenarioIssue,
 } from "../scenario/scenarioIssue.js";
 import { buildSalt } from "./buildSalt.js";
-import { computeTables } from "./computeTables.js";
+import { locatedTables } from "../tables/locatedTables.js";
 import { ledgerFrom } from "./readLedger.js";
 import { idUsedTwice, loadScenarioFile } from "./readScenarioFile.js";
 import { renderInBatches } from "./renderSite.js";
 import { removeFileAndEmptyFolders } from "./applySiteChanges.js";
 import { scenarioFiles } from "./scenarioFiles.js";
-import { scenarioWarnings } from "./scenarioWarnings.js";
+import { scenarioWarnings } from "../tables/scenarioWarnings.js";
 import { readSiteManifest, SITE_MANIFEST, siteManifestText, type ManifestUnits } from "./siteManifest.js";
 
 /** What one scenario file gave: its scenario and tables document, or its located issues; and its warnings. */
@@ -167,7 +167,7 @@ function computeFile(file: string): FileResult {
   const loaded = loadScenarioFile(file);
   if (!loaded.scenario) return { scenario: null, doc: null, issues: loaded.issues, warnings: [] };
   try {
-    const doc = computeTables(loaded.scenario);
+    const doc = locatedTables(loaded.scenario);
     return { scenario: loaded.scenario, doc, issues: [], warnings: scenarioWarnings(loaded.scenario, doc) };
   } catch (e) {
     if (!(e instanceof ScenarioInputError)) throw e;

@@ -12,7 +12,7 @@ import { TOOL_VERSION } from "../common/toolVersion.js";
 import { displayPath } from "../common/displayPath.js";
 import { tableCsv, tableJson, tableLatex, tableMarkdown } from "../exports/exportFormats.js";
 import type { ExportProvenance } from "../exports/exportProvenance.js";
-import { computeTables } from "./computeTables.js";
+import { locatedTables } from "../tables/locatedTables.js";
 import { attachmentReader, loadScenarioFile } from "./readScenarioFile.js";
 import { DEFAULT_QUOTE_QUANTITIES, UnknownQuantityError, resolveQuantities } from "./quoteQuantities.js";
 import {
@@ -29,7 +29,8 @@ import {
 } from "./quoteRequest.js";
 import { QUOTE_HELP } from "./quoteHelp.js";
 import { quoteSections, quoteTable, quoteTerminal, type QuoteSources } from "./quoteOutput.js";
-import { reportWarnings, scenarioWarnings } from "./scenarioWarnings.js";
+import { reportWarnings } from "./scenarioWarnings.js";
+import { scenarioWarnings } from "../tables/scenarioWarnings.js";
 import { choicesOf, presentDocument } from "../presentation/presentDocument.js";
 
 const FORMATS = ["table", "csv", "json", "md", "tex"] as const;
@@ -283,7 +284,7 @@ function computeQuoted(
   extras: TargetExtras,
 ): TablesDocument {
   try {
-    return computeTables(s, { chartGrid: false });
+    return locatedTables(s, { chartGrid: false });
   } catch (e) {
     if (e instanceof ScenarioInputError) throw mapIssues(e, models, placements, extras);
     throw e;
@@ -303,7 +304,7 @@ function solvedRows(s: ResolvedScenario, doc: TablesDocument, placements: Placem
   const list = [...zs].sort((a, b) => a - b);
   // Presented as the quote's own document is, so that a solved row shows the same units.
   const again = presentDocument(
-    computeTables({ ...s, redshifts: list, targets: [], surveys: [] }, { chartGrid: false }),
+    locatedTables({ ...s, redshifts: list, targets: [], surveys: [] }, { chartGrid: false }),
     choicesOf(doc),
   ).doc;
   for (const m of doc.models) {

@@ -1,7 +1,7 @@
 import { join } from "node:path";
 import { displayPath } from "../common/displayPath.js";
 import type { ScenarioIssue } from "../scenario/scenarioIssue.js";
-import { computeTables } from "./computeTables.js";
+import { locatedTables } from "../tables/locatedTables.js";
 import { readArchive, type ScenarioArchive } from "../archive/readArchive.js";
 import type { TablesDocument } from "../contract/tablesDocument.js";
 import type { TrustedRecords } from "../archive/trustedRecords.js";
@@ -12,7 +12,7 @@ import { EXPORT_FORMATS, exportFiles } from "../exports/exportFiles.js";
 import { cachedRenderers } from "../exports/imageCache.js";
 import { TOOL_VERSION } from "../common/toolVersion.js";
 import { scenarioFiles } from "./scenarioFiles.js";
-import { scenarioWarnings } from "./scenarioWarnings.js";
+import { scenarioWarnings } from "../tables/scenarioWarnings.js";
 
 export { scenarioFiles };
 
@@ -34,7 +34,7 @@ export interface SiteInputs {
 export function readSiteInputs(dir: string, archiveDir: string, trusted?: TrustedRecords): SiteInputs {
   const loaded = loadScenarioFiles(scenarioFiles(dir));
   const issues: ScenarioIssue[] = [...loaded.issues];
-  const files = loaded.scenarios.map((scenario) => ({ scenario, doc: computeTables(scenario) }));
+  const files = loaded.scenarios.map((scenario) => ({ scenario, doc: locatedTables(scenario) }));
   const archive = readArchive(archiveDir, trusted);
   for (const a of archive.issues) issues.push({ file: a.file, line: 1, column: 1, path: "", message: a.message });
   const warnings = files.flatMap((f) => scenarioWarnings(f.scenario, f.doc));

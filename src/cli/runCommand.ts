@@ -1,11 +1,12 @@
 import { join, sep } from "node:path";
 import { ScenarioInputError, issueLine, issueSummary, type ScenarioIssue } from "../scenario/scenarioIssue.js";
-import { computeTables } from "./computeTables.js";
+import { locatedTables } from "../tables/locatedTables.js";
 import { tablesCsv } from "../contract/tablesCsv.js";
 import { OutputRefusedError, writeOutputsAtomically } from "./writeOutputsAtomically.js";
 import { loadScenarioFiles } from "./readScenarioFile.js";
 import { expandFolders } from "./scenarioFiles.js";
-import { reportWarnings, scenarioWarnings } from "./scenarioWarnings.js";
+import { reportWarnings } from "./scenarioWarnings.js";
+import { scenarioWarnings } from "../tables/scenarioWarnings.js";
 import type { ResolvedScenario } from "../scenario/resolvedScenario.js";
 import type { TablesDocument } from "../contract/tablesDocument.js";
 
@@ -47,7 +48,7 @@ export async function runCommand(
     if (progress && command === "compute")
       process.stderr.write(`[${i + 1}/${scenarios.length}] computing ${s.source.path}\n`);
     try {
-      computed.push({ s, doc: computeTables(s) });
+      computed.push({ s, doc: locatedTables(s) });
     } catch (e) {
       if (!(e instanceof ScenarioInputError)) throw e;
       computeIssues.push(...e.issues);

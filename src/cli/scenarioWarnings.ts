@@ -1,7 +1,5 @@
 import { formatIssue, type ScenarioIssue } from "../scenario/scenarioIssue.js";
 
-export { scenarioWarnings } from "../tables/scenarioWarnings.js";
-
 /**
  * Prints warnings as errors are printed (file:line:column: key: message). Under --strict they are errors: the
  * command stops with exit 2 and writes nothing; the return value says whether it must stop.
