@@ -91,7 +91,9 @@ function modelColumns(t: PresentationTable, models: number, index: number): numb
 
 function share(t: PresentationTable, models: number, index: number): WhatIfTable | null {
   const cols = modelColumns(t, models, index);
-  if (!cols) return null;
+  // Only columns that name the what-if (its label, or "label: series" in a chart's data table): a table laid out
+  // otherwise is left without a what-if column rather than given another model's numbers.
+  if (!cols?.every((c) => t.columns[c].label.startsWith(WHAT_IF_PAGE_LABEL))) return null;
   const keys = rowKeys(t.rows);
   return {
     columns: cols.map((c) => ({ label: t.columns[c].label, unit: t.columns[c].unit })),
@@ -129,12 +131,13 @@ export function whatIf(request: WhatIfRequest): WhatIfResult {
   const head = { text: s.text, block: s.block, file };
   let doc: TablesDocument;
   let warnings: string[];
+  let index: number;
   try {
     const scenario = loadScenario(s.text, file);
-    const whatIfIndex = scenario.models.findIndex((m) => m.id === s.modelId);
-    doc = locatedTables(scenario, { modelTablesOf: reusingKeptModels(s.kept, whatIfIndex) });
+    index = scenario.models.findIndex((m) => m.id === s.modelId);
+    doc = locatedTables(scenario, { modelTablesOf: reusingKeptModels(s.kept, index) });
     // The what-if model's own warnings (the page shows those of its models already), as `check` prints them.
-    const at = `models[${doc.models.findIndex((m) => m.id === s.modelId)}]`;
+    const at = `models[${index}]`;
     warnings = scenarioWarnings(scenario, doc)
       .filter((w) => w.path === at || w.path.startsWith(`${at}.`))
       .map((w) => `warning: ${formatIssue(w)}`);
@@ -142,7 +145,6 @@ export function whatIf(request: WhatIfRequest): WhatIfResult {
     if (e instanceof ScenarioInputError) return { ...head, ok: false, problems: e.issues.map(issueLine) };
     throw e;
   }
-  const index = doc.models.findIndex((m) => m.id === s.modelId);
   // On the page the model is named for what it is; the copied block keeps the plain label.
   (doc.models[index] as { label: string }).label = WHAT_IF_PAGE_LABEL;
   const presented = presentDocument(doc);

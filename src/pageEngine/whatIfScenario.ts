@@ -4,6 +4,7 @@
 // then the changed keys). The same block is what "Copy as YAML" gives, so pasting it into the scenario file makes
 // the next build compute exactly these numbers.
 import { parse, stringify } from "yaml";
+import { PUBLISHED_PREFIX } from "../scenario/publishedSets.js";
 
 /** Where a what-if model starts: a model of the page, or a published parameter set (`extends: published/<id>`). */
 export type WhatIfStart = { model: string } | { published: string };
@@ -58,32 +59,29 @@ export function whatIfScenario(
   const baseline = typeof raw.baseline === "string" ? raw.baseline : models[0]?.id;
 
   // The models the what-if needs: the baseline (for the differences) and the start, each with its ancestors.
-  const needed = new Set<string>();
-  let spreadUpstream = "published" in start;
-  const need = (id: string | undefined) => {
-    const m = id === undefined ? undefined : byId.get(id);
-    if (!m || needed.has(m.id)) return;
-    needed.add(m.id);
-    for (const parent of parentsOf(m)) {
-      if (parent.startsWith("published/")) spreadUpstream = true;
-      else need(parent);
-    }
-  };
-  need(baseline);
-  const startRef = "model" in start ? start.model : `published/${start.published}`;
-  if ("model" in start) {
-    need(start.model);
+  const chainOf = (id: string | undefined): Set<string> => {
     const chain = new Set<string>();
-    const walk = (id: string) => {
-      const m = byId.get(id);
-      if (!m || chain.has(id)) return;
-      chain.add(id);
-      if (m.spread !== undefined && m.spread !== "none") spreadUpstream = true;
-      for (const p of parentsOf(m)) if (p.startsWith("published/")) spreadUpstream = true;
-      parentsOf(m).forEach(walk);
+    const visit = (x: string) => {
+      const m = byId.get(x);
+      if (!m || chain.has(x)) return;
+      chain.add(x);
+      for (const p of parentsOf(m)) if (!p.startsWith(PUBLISHED_PREFIX)) visit(p);
     };
-    walk(start.model);
-  }
+    if (id !== undefined) visit(id);
+    return chain;
+  };
+  const startChain = "model" in start ? chainOf(start.model) : new Set<string>();
+  const needed = new Set([...chainOf(baseline), ...startChain]);
+  const startRef = "model" in start ? start.model : PUBLISHED_PREFIX + start.published;
+  // Whether the starting point carries a spread: one of its chain's own, or a published set's uncertainties.
+  const spreadUpstream =
+    "published" in start ||
+    [...startChain].some((id) => {
+      const m = byId.get(id)!;
+      return (
+        (m.spread !== undefined && m.spread !== "none") || parentsOf(m).some((p) => p.startsWith(PUBLISHED_PREFIX))
+      );
+    });
 
   let modelId = "what-if";
   for (let n = 2; byId.has(modelId); n++) modelId = `what-if-${n}`;

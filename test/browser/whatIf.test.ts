@@ -44,11 +44,12 @@ const pageColumn = (page: Page, table: string, index: number) =>
   );
 
 const runsOf = async (page: Page) => Number((await page.getAttribute("#what-if", "data-runs")) ?? 0);
-async function nextRun(page: Page, before: number, state = "computed") {
+/** Waits for a computation after the `before`-th that ended in `state` (any state when null). */
+async function nextRun(page: Page, before: number, state: string | null = "computed") {
   await page.waitForFunction(
     ({ before, state }) => {
       const p = document.getElementById("what-if")!;
-      return Number(p.dataset.runs) > before && p.dataset.state === state;
+      return Number(p.dataset.runs) > before && (state === null || p.dataset.state === state);
     },
     { before, state },
     { timeout: 60_000 },
@@ -76,6 +77,12 @@ describe.skipIf(!chromiumPath)("the what-if panel in Chromium", () => {
   afterAll(async () => {
     await context?.close();
   });
+
+  /** The ids of the demo scenarios (each has a page). */
+  const demoIds = () =>
+    readdirSync(scenarios)
+      .filter((x) => x.endsWith(".yaml"))
+      .map((f) => (parse(readFileSync(join(scenarios, f), "utf8")) as { id: string }).id);
 
   async function open(path: string): Promise<Page> {
     const page = await context.newPage();
@@ -259,8 +266,7 @@ describe.skipIf(!chromiumPath)("the what-if panel in Chromium", () => {
   });
 
   it("every starting point it offers computes, on every demo page", { timeout: 300_000 }, async () => {
-    for (const f of readdirSync(scenarios).filter((x) => x.endsWith(".yaml"))) {
-      const id = (parse(readFileSync(join(scenarios, f), "utf8")) as { id: string }).id;
+    for (const id of demoIds()) {
       const page = await open(`${id}/index.html`);
       await page.click("#what-if summary");
       await nextRun(page, 0);
@@ -269,13 +275,7 @@ describe.skipIf(!chromiumPath)("the what-if panel in Chromium", () => {
       for (const s of starts) {
         const runs = await runsOf(page);
         await page.selectOption("#what-if-start", s);
-        await page.waitForFunction(
-          (before) => Number(document.getElementById("what-if")!.dataset.runs) > before,
-          runs,
-          {
-            timeout: 60_000,
-          },
-        );
+        await nextRun(page, runs, null);
         expect(`${id} ${s}: ${await page.getAttribute("#what-if", "data-state")}`).toBe(`${id} ${s}: computed`);
       }
       await page.close();
@@ -299,8 +299,7 @@ describe.skipIf(!chromiumPath)("the what-if panel in Chromium", () => {
   });
 
   it("warms up in the background on every demo page, without an error", { timeout: 300_000 }, async () => {
-    for (const f of readdirSync(scenarios).filter((x) => x.endsWith(".yaml"))) {
-      const id = (parse(readFileSync(join(scenarios, f), "utf8")) as { id: string }).id;
+    for (const id of demoIds()) {
       const page = await open(`${id}/index.html`);
       await page.waitForSelector("#what-if[data-warm=ready]", { timeout: 120_000 });
       await page.close();

@@ -1,9 +1,9 @@
-// The what-if panel of a scenario page (content/_includes/whatIfPanel.njk). When a reader opens it, it loads the
-// engine (assets/what-if-engine.js: the scenario pipeline of `compute`, src/pageEngine/whatIfEngine.ts), sends the
-// page's scenario source, the starting point and the changed keys, and places what comes back: the presentation's
-// cells as an extra column of each table, a geometry card and a curve on every chart. It formats nothing itself:
-// every text it writes was made by the presentation in the engine. Nothing is stored, and the page's downloads and
-// copy buttons never see the what-if.
+// The what-if panel of a scenario page (content/_includes/whatIfPanel.njk). When a reader opens it (or earlier, at
+// an idle moment: see warmUp), it loads the engine (assets/what-if-engine.js: the scenario pipeline of `compute`,
+// src/pageEngine/whatIfEngine.ts), sends the page's scenario source, the starting point and the changed keys, and
+// places what comes back (./whatIfPlacement.ts): the presentation's cells as an extra column of each table, a
+// geometry card and a curve on every chart. It formats nothing itself: every text it writes was made by the
+// presentation in the engine. Nothing is stored, and the page's downloads and copy buttons never see the what-if.
 import type { GeometryCard } from "../../presentation/presentTables.js";
 import { clearWhatIf, placeWhatIf, type WhatIfPart } from "./whatIfPlacement.js";
 
@@ -176,13 +176,26 @@ function setUp(panel: HTMLElement, data: PanelData): void {
     // How many computations the panel has made (data-runs): what a reader's tools and the tests wait on.
     panel.dataset.runs = String(++runs);
     const t0 = performance.now();
-    const result = engine.whatIf({
-      source: data.source,
-      file: data.file,
-      id: data.id,
-      start: startOf(),
-      changes: changes(),
-    });
+    let result: Result;
+    try {
+      result = engine.whatIf({
+        source: data.source,
+        file: data.file,
+        id: data.id,
+        start: startOf(),
+        changes: changes(),
+      });
+    } catch (e) {
+      // Not a problem of the reader's input (those come back located): the engine itself failed. The page says so,
+      // keeps no stale numbers, and the console has the details.
+      console.error(e);
+      clearWhatIf();
+      last = null;
+      listInto(problems, [`The engine stopped without an answer (${(e as Error).message}); nothing was computed.`]);
+      status.textContent = "Not computed.";
+      panel.dataset.state = "failed";
+      return;
+    }
     last = result;
     clearWhatIf();
     yaml.textContent = result.block;
